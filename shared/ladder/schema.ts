@@ -1,0 +1,139 @@
+/**
+ * The ladder program document: the one data model every part of Rungwright reads.
+ *
+ * Plain, serialisable, read-only JSON with stable string ids and a format version. The zod schemas
+ * are the single definition; the TypeScript types are inferred from them. Layout on the canvas is
+ * computed from the network, so no pixel position is ever stored here.
+ */
+import { z } from 'zod';
+
+export const PROGRAM_FORMAT = 'rungwright.program';
+export const PROGRAM_VERSION = 1;
+
+/** A stable id: letters, digits, `_` and `-`, unique within the program. */
+export const IdSchema = z
+  .string()
+  .min(1, 'an id cannot be empty')
+  .max(64, 'an id is at most 64 characters')
+  .regex(/^[A-Za-z0-9_-]+$/, 'an id uses only letters, digits, "_" and "-"');
+
+/**
+ * What a contact or a block input names: a direct address (`%IX1`, `%QX2`, `%MX10`), a block member
+ * (`T1.Q`, `C1.CV`), a tag name, or a constant (`T#2s`, `3`, `TRUE`). Empty while the student has
+ * not filled it in; validation reports that, the schema does not refuse it, so a half-drawn rung
+ * can be saved.
+ */
+export const OperandSchema = z.string().max(64, 'an operand is at most 64 characters');
+
+/** `| |` NO contact, `|/|` NC contact, `|P|` rising-edge contact, `|N|` falling-edge contact (IEC 61131-3). */
+export const ContactVariantSchema = z.enum(['no', 'nc', 'rising', 'falling']);
+/** `( )` coil, `(/)` negated coil, `(S)` set coil, `(R)` reset coil (IEC 61131-3). */
+export const CoilVariantSchema = z.enum(['coil', 'negated', 'set', 'reset']);
+/** IEC 61131-3 standard function blocks offered in the palette. */
+export const BlockTypeSchema = z.enum(['TON', 'TOF', 'TP', 'CTU', 'CTD', 'CTUD', 'R_TRIG', 'F_TRIG', 'SR', 'RS']);
+
+export const ContactSchema = z.object({
+  kind: z.literal('contact'),
+  id: IdSchema,
+  variant: ContactVariantSchema,
+  operand: OperandSchema,
+  /** Free text shown below the element. */
+  comment: z.string().max(500).optional(),
+});
+
+export const CoilSchema = z.object({
+  kind: z.literal('coil'),
+  id: IdSchema,
+  variant: CoilVariantSchema,
+  operand: OperandSchema,
+  comment: z.string().max(500).optional(),
+});
+
+/**
+ * A standard function block. Its power-flow input (IN, CU, CD, CLK, S1 or S — see `BLOCK_SPECS` in
+ * `blocks.ts`) is wired to the rung on its left; every other input is an operand in `inputs`, keyed
+ * by the formal parameter name (`PT`, `PV`, `R`, `LD`…). Its power-flow output (Q, QU or Q1) carries
+ * on to the right, so a block can end a rung or feed coils; every output is also readable elsewhere
+ * as `<instance>.<member>`.
+ */
+export const BlockSchema = z.object({
+  kind: z.literal('block'),
+  id: IdSchema,
+  type: BlockTypeSchema,
+  /** The instance name, e.g. `T1`; one instance is one piece of memory. */
+  instance: z.string().max(32),
+  inputs: z.record(z.string(), OperandSchema),
+  comment: z.string().max(500).optional(),
+});
+
+export const ElementSchema = z.discriminatedUnion('kind', [ContactSchema, CoilSchema, BlockSchema]);
+
+export type ContactVariant = z.infer<typeof ContactVariantSchema>;
+export type CoilVariant = z.infer<typeof CoilVariantSchema>;
+export type BlockType = z.infer<typeof BlockTypeSchema>;
+export type Contact = z.infer<typeof ContactSchema>;
+export type Coil = z.infer<typeof CoilSchema>;
+export type Block = z.infer<typeof BlockSchema>;
+export type Element = z.infer<typeof ElementSchema>;
+export type ElementKind = Element['kind'];
+
+/** Left to right: power flows through each item in turn. */
+export interface Series {
+  kind: 'series';
+  id: string;
+  items: NetworkNode[];
+}
+
+/** Top to bottom branches joined at both ends: the state on the right is the OR of the branches. */
+export interface Parallel {
+  kind: 'parallel';
+  id: string;
+  branches: NetworkNode[];
+}
+
+export type NetworkNode = Element | Series | Parallel;
+
+export const SeriesSchema: z.ZodType<Series> = z.lazy(() =>
+  z.object({ kind: z.literal('series'), id: IdSchema, items: z.array(NetworkNodeSchema).max(200) }),
+);
+
+export const ParallelSchema: z.ZodType<Parallel> = z.lazy(() =>
+  z.object({ kind: z.literal('parallel'), id: IdSchema, branches: z.array(NetworkNodeSchema).max(64) }),
+);
+
+export const NetworkNodeSchema: z.ZodType<NetworkNode> = z.lazy(() =>
+  z.union([ContactSchema, CoilSchema, BlockSchema, SeriesSchema, ParallelSchema]),
+);
+
+export const RungSchema = z.object({
+  id: IdSchema,
+  comment: z.string().max(2000).default(''),
+  /** Always a series at the root: contacts and branches, closing in coils or a block. */
+  network: SeriesSchema,
+});
+export type Rung = z.infer<typeof RungSchema>;
+
+/** A symbol: a name a student can use instead of an address. */
+export const TagSchema = z.object({
+  name: z
+    .string()
+    .min(1, 'a tag needs a name')
+    .max(32, 'a tag name is at most 32 characters')
+    .regex(/^[A-Za-z_][A-Za-z0-9_]*$/, 'a tag name starts with a letter or "_" and uses letters, digits and "_"'),
+  address: z.string().max(16),
+  comment: z.string().max(200).default(''),
+});
+export type Tag = z.infer<typeof TagSchema>;
+
+export const ProgramSchema = z.object({
+  format: z.literal(PROGRAM_FORMAT),
+  version: z.literal(PROGRAM_VERSION),
+  title: z.string().max(200).default('Untitled program'),
+  description: z.string().max(10_000).default(''),
+  tags: z.array(TagSchema).max(500).default([]),
+  rungs: z.array(RungSchema).max(5000),
+});
+export type Program = z.infer<typeof ProgramSchema>;
+
+/** Index path from a rung's root series to a node: `[2, 0, 1]` = items[2].branches[0].items[1]. */
+export type NodePath = readonly number[];
