@@ -1,0 +1,15 @@
+// Fonts are shipped with the app (no request leaves the server): Inter for the interface,
+// JetBrains Mono for addresses and values; only the latin subsets and the weights we use.
+import '@fontsource/inter/latin-400.css';
+import '@fontsource/inter/latin-500.css';
+import '@fontsource/inter/latin-600.css';
+import '@fontsource/jetbrains-mono/latin-400.css';
+import './styles/base.css';
+
+import { createApp } from 'vue';
+import { createPinia } from 'pinia';
+import { VueQueryPlugin } from '@tanstack/vue-query';
+import App from './App.vue';
+import { router } from './router';
+
+createApp(App).use(createPinia()).use(router).use(VueQueryPlugin).mount('#app');
