@@ -1,0 +1,17 @@
+/** What every router and service receives: the app's dependencies, passed in, never global. */
+import type { Logger } from 'pino';
+import type { Config } from './config';
+import type { Clock } from './clock';
+import type { Db } from './db/client';
+import type { Mailer } from './mail/mailer';
+
+export interface AppContext {
+  orm: Db;
+  driver: 'pglite';
+  mailer: Mailer;
+  clock: Clock;
+  config: Config;
+  logger: Logger;
+  version: string;
+  sessionKey: Uint8Array;
+}

@@ -1,0 +1,36 @@
+/**
+ * `npm run db:reset`: wipes the database in DATA_DIR and seeds the demo data again. Takes the
+ * DATA_DIR lock first, so it refuses while a server is running on that directory.
+ */
+import { rmSync } from 'node:fs';
+import { readConfig } from '../config';
+import { systemClock } from '../clock';
+import { acquireDataDirLock } from '../dataDirLock';
+import { openDatabase, pgliteDirectory } from './client';
+import { seedDemoData } from './seed';
+import { DEMO_ACCOUNTS } from './demoAccounts';
+
+const configResult = readConfig(process.env);
+if (!configResult.ok) {
+  console.error(configResult.error);
+  process.exit(1);
+}
+const { DATA_DIR } = configResult.config;
+const lock = acquireDataDirLock(DATA_DIR, systemClock.now());
+if (!lock.ok) {
+  console.error(`Not resetting: ${lock.error}`);
+  process.exit(1);
+}
+try {
+  rmSync(pgliteDirectory(DATA_DIR), { recursive: true, force: true });
+  const database = await openDatabase({ kind: 'directory', dataDir: DATA_DIR });
+  await seedDemoData(database.orm, systemClock);
+  await database.close();
+  console.log(`Reset the database in ${pgliteDirectory(DATA_DIR)} and seeded the demo data. Demo sign-ins:`);
+  for (const a of DEMO_ACCOUNTS) console.log(`  ${a.role.padEnd(10)} ${a.email}  /  ${a.password}`);
+} catch (err) {
+  console.error(`Reset failed: ${err instanceof Error ? err.message : String(err)}`);
+  process.exitCode = 1;
+} finally {
+  lock.lock.release();
+}

@@ -1,0 +1,210 @@
+/**
+ * The database schema: the single source for tables, migrations (drizzle-kit) and row types.
+ *
+ * Plain PostgreSQL (pg-core) with no PGlite-only SQL, so the same schema runs on a PostgreSQL server
+ * through node-postgres. Timestamps are written from the injected clock, never `now()` defaults, so
+ * tests with a fake clock are deterministic.
+ */
+import { sql } from 'drizzle-orm';
+import {
+  boolean,
+  check,
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
+
+const createdAt = () => timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull();
+
+/** A person who signs in. Email is unique regardless of case (stored as typed, compared lowered). */
+export const users = pgTable(
+  'users',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    email: text('email').notNull(),
+    name: text('name').notNull(),
+    role: text('role', { enum: ['student', 'instructor', 'admin'] }).notNull(),
+    /** `scrypt$N$r$p$salt$hash` (base64url): the parameters travel with the hash. */
+    passwordHash: text('password_hash').notNull(),
+    /** Demo rows are marked so nobody mistakes them for real accounts. */
+    demo: boolean('demo').notNull().default(false),
+    createdAt: createdAt(),
+    lastSignInAt: timestamp('last_sign_in_at', { withTimezone: true, mode: 'date' }),
+  },
+  (t) => [
+    uniqueIndex('users_email_lower_idx').on(sql`lower(${t.email})`),
+    check('users_role_check', sql`${t.role} in ('student', 'instructor', 'admin')`),
+  ],
+);
+
+/** A class an instructor teaches; students join it with the join code. */
+export const classes = pgTable(
+  'classes',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    name: text('name').notNull(),
+    term: text('term').notNull(),
+    instructorId: uuid('instructor_id')
+      .notNull()
+      .references(() => users.id),
+    joinCode: text('join_code').notNull(),
+    demo: boolean('demo').notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('classes_join_code_idx').on(t.joinCode), index('classes_instructor_idx').on(t.instructorId)],
+);
+
+/** A student's membership of a class. */
+export const enrolments = pgTable(
+  'enrolments',
+  {
+    classId: uuid('class_id')
+      .notNull()
+      .references(() => classes.id, { onDelete: 'cascade' }),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.classId, t.userId] }), index('enrolments_user_idx').on(t.userId)],
+);
+
+/** A panel layout (the virtual trainer's configuration); `ownerId` null = built in. */
+export const panelLayouts = pgTable('panel_layouts', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  ownerId: uuid('owner_id').references(() => users.id),
+  name: text('name').notNull(),
+  layout: jsonb('layout').notNull(),
+  createdAt: createdAt(),
+});
+
+/** A lab an instructor publishes to a class (the flow comes with the labs issue). */
+export const labs = pgTable(
+  'labs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    classId: uuid('class_id')
+      .notNull()
+      .references(() => classes.id, { onDelete: 'cascade' }),
+    authorId: uuid('author_id')
+      .notNull()
+      .references(() => users.id),
+    title: text('title').notNull(),
+    brief: text('brief').notNull().default(''),
+    panelLayoutId: uuid('panel_layout_id').references(() => panelLayouts.id),
+    starterDocument: jsonb('starter_document'),
+    checkScript: jsonb('check_script'),
+    publishedAt: timestamp('published_at', { withTimezone: true, mode: 'date' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('labs_class_idx').on(t.classId)],
+);
+
+/** A ladder program a user owns; its content lives in immutable versions. */
+export const programs = pgTable(
+  'programs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    ownerId: uuid('owner_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    title: text('title').notNull(),
+    labId: uuid('lab_id').references(() => labs.id, { onDelete: 'set null' }),
+    /** Number of the newest version (1-based); a save must name it as its base. */
+    headVersion: integer('head_version').notNull(),
+    demo: boolean('demo').notNull().default(false),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [index('programs_owner_idx').on(t.ownerId)],
+);
+
+/** One immutable saved state of a program. Never updated, never deleted on its own. */
+export const programVersions = pgTable(
+  'program_versions',
+  {
+    programId: uuid('program_id')
+      .notNull()
+      .references(() => programs.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    document: jsonb('document').notNull(),
+    message: text('message').notNull(),
+    authorId: uuid('author_id')
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.programId, t.number] })],
+);
+
+/** A student's submission of a program version to a lab (graded in the labs issue). */
+export const submissions = pgTable(
+  'submissions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    labId: uuid('lab_id')
+      .notNull()
+      .references(() => labs.id, { onDelete: 'cascade' }),
+    studentId: uuid('student_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    programId: uuid('program_id')
+      .notNull()
+      .references(() => programs.id),
+    versionNumber: integer('version_number').notNull(),
+    status: text('status', { enum: ['submitted', 'graded', 'returned'] }).notNull(),
+    report: jsonb('report'),
+    score: integer('score'),
+    submittedAt: timestamp('submitted_at', { withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [index('submissions_lab_idx').on(t.labId)],
+);
+
+/**
+ * A one-time link (instructor or student invitation, password reset). Only a SHA-256 of the token is
+ * stored, so a copy of the database cannot be used to sign in.
+ */
+export const oneTimeTokens = pgTable(
+  'one_time_tokens',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    kind: text('kind', { enum: ['invite', 'reset'] }).notNull(),
+    tokenHash: text('token_hash').notNull(),
+    email: text('email').notNull(),
+    /** The account the token acts on (reset), null for an invitation to someone new. */
+    userId: uuid('user_id').references(() => users.id, { onDelete: 'cascade' }),
+    /** For an invitation: the role the new account gets. */
+    role: text('role', { enum: ['student', 'instructor', 'admin'] }),
+    /** For a student invitation from a roster: the class to join. */
+    classId: uuid('class_id').references(() => classes.id, { onDelete: 'cascade' }),
+    invitedName: text('invited_name'),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true, mode: 'date' }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('one_time_tokens_hash_idx').on(t.tokenHash)],
+);
+
+/** Mail the local fake SMTP server received (only when SMTP_URL is unset). */
+export const sentMail = pgTable('sent_mail', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  from: text('from_address').notNull(),
+  to: text('to_address').notNull(),
+  subject: text('subject').notNull(),
+  text: text('text_body').notNull(),
+  html: text('html_body').notNull(),
+  receivedAt: timestamp('received_at', { withTimezone: true, mode: 'date' }).notNull(),
+});
+
+export type UserRow = typeof users.$inferSelect;
+export type ClassRow = typeof classes.$inferSelect;
+export type ProgramRow = typeof programs.$inferSelect;
+export type ProgramVersionRow = typeof programVersions.$inferSelect;
+export type OneTimeTokenRow = typeof oneTimeTokens.$inferSelect;
+export type SentMailRow = typeof sentMail.$inferSelect;

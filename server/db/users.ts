@@ -1,0 +1,84 @@
+/** The users table as plain objects. Email lookups are case-insensitive (`lower(email)` index). */
+import { count, eq, sql } from 'drizzle-orm';
+import type { Db } from './client';
+import { users } from './schema';
+
+/** A user as the services see it (the hash stays in the db layer unless asked for). */
+export interface User {
+  id: string;
+  email: string;
+  name: string;
+  role: 'student' | 'instructor' | 'admin';
+  demo: boolean;
+  createdAt: Date;
+  lastSignInAt: Date | null;
+}
+
+const publicColumns = {
+  id: users.id,
+  email: users.email,
+  name: users.name,
+  role: users.role,
+  demo: users.demo,
+  createdAt: users.createdAt,
+  lastSignInAt: users.lastSignInAt,
+};
+
+export interface NewUser {
+  email: string;
+  name: string;
+  role: User['role'];
+  passwordHash: string;
+  demo?: boolean;
+  createdAt: Date;
+}
+
+/** Inserts a user; returns null when the e-mail is taken (any case). */
+export async function insertUser(db: Db, user: NewUser): Promise<User | null> {
+  const rows = await db
+    .insert(users)
+    .values({ ...user, demo: user.demo ?? false })
+    .onConflictDoNothing()
+    .returning(publicColumns);
+  return rows[0] ?? null;
+}
+
+export async function findUserById(db: Db, id: string): Promise<User | null> {
+  const rows = await db.select(publicColumns).from(users).where(eq(users.id, id)).limit(1);
+  return rows[0] ?? null;
+}
+
+export async function findUserByEmail(db: Db, email: string): Promise<User | null> {
+  const rows = await db.select(publicColumns).from(users).where(sql`lower(${users.email}) = lower(${email})`).limit(1);
+  return rows[0] ?? null;
+}
+
+/** The user and their password hash, for sign-in only. */
+export async function findCredentials(db: Db, email: string): Promise<{ user: User; passwordHash: string } | null> {
+  const rows = await db
+    .select({ ...publicColumns, passwordHash: users.passwordHash })
+    .from(users)
+    .where(sql`lower(${users.email}) = lower(${email})`)
+    .limit(1);
+  const row = rows[0];
+  if (!row) return null;
+  const { passwordHash, ...user } = row;
+  return { user, passwordHash };
+}
+
+export async function setLastSignIn(db: Db, id: string, at: Date): Promise<void> {
+  await db.update(users).set({ lastSignInAt: at }).where(eq(users.id, id));
+}
+
+export async function setPasswordHash(db: Db, id: string, passwordHash: string): Promise<void> {
+  await db.update(users).set({ passwordHash }).where(eq(users.id, id));
+}
+
+export async function countUsers(db: Db): Promise<number> {
+  const [row] = await db.select({ n: count() }).from(users);
+  return row?.n ?? 0;
+}
+
+export async function listUsers(db: Db): Promise<User[]> {
+  return db.select(publicColumns).from(users).orderBy(users.email);
+}

@@ -1,0 +1,66 @@
+/**
+ * The server process (`tsx server/index.ts`): check the environment, lock DATA_DIR, open and
+ * migrate the database, seed a first start, start mail, serve the API and the built client.
+ */
+import type { AddressInfo } from 'node:net';
+import { readConfig } from './config';
+import { systemClock } from './clock';
+import { acquireDataDirLock } from './dataDirLock';
+import { openDatabase } from './db/client';
+import { seedIfEmpty } from './db/seed';
+import { openMailer } from './mail/openMailer';
+import { createLogger } from './http/logging';
+import { loadSessionKey } from './auth/sessionKey';
+import { createApp } from './app';
+
+function fail(message: string): never {
+  console.error(message);
+  process.exit(1);
+}
+
+const configResult = readConfig(process.env);
+if (!configResult.ok) fail(configResult.error);
+const config = configResult.config;
+if (config.DATABASE_URL) {
+  fail('DATABASE_URL is set, but the PostgreSQL driver is not available yet; unset it to use the embedded database in DATA_DIR.');
+}
+
+const lockResult = acquireDataDirLock(config.DATA_DIR, systemClock.now());
+if (!lockResult.ok) fail(lockResult.error);
+const lock = lockResult.lock;
+process.on('exit', () => lock.release());
+
+const logger = createLogger(config.LOG_LEVEL);
+const database = await openDatabase({ kind: 'directory', dataDir: config.DATA_DIR }).catch((err: unknown) =>
+  fail(`Cannot open the database in ${config.DATA_DIR}: ${err instanceof Error ? err.message : String(err)}`),
+);
+if (await seedIfEmpty(database.orm, systemClock)) logger.info('seeded the demo data on a first start');
+const mailer = await openMailer(config, database.orm, systemClock);
+const sessionKey = loadSessionKey(config);
+
+const app = createApp({ db: database, mailer, clock: systemClock, config, logger, sessionKey, clientDir: 'dist' });
+const server = app.listen(config.PORT, config.HOST, () => {
+  const { port } = server.address() as AddressInfo;
+  console.log(`Rungwright listening on http://${config.HOST}:${port}`);
+});
+server.on('error', (err) => fail(`Cannot listen on ${config.HOST}:${config.PORT}: ${err.message}`));
+
+let stopping = false;
+async function shutdown(signal: string): Promise<void> {
+  if (stopping) return;
+  stopping = true;
+  logger.info({ signal }, 'shutting down');
+  // Give in-flight requests a moment, then cut idle keep-alive connections.
+  const force = setTimeout(() => process.exit(1), 5000);
+  force.unref();
+  await new Promise<void>((resolve) => {
+    server.close(() => resolve());
+    server.closeIdleConnections();
+  });
+  await mailer.close();
+  await database.close();
+  lock.release();
+  process.exit(0);
+}
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('SIGINT', () => void shutdown('SIGINT'));

@@ -1,0 +1,70 @@
+/**
+ * `createTestApp()`: the real app on a fresh in-memory copy of the migrated template, a fake clock,
+ * the real local SMTP fake, listening on loopback so requests carry a stable Host/Origin.
+ */
+import { readFileSync } from 'node:fs';
+import type { AddressInfo } from 'node:net';
+import type { Server } from 'node:http';
+import { inject } from 'vitest';
+import request from 'supertest';
+import { createApp } from '../../../server/app';
+import { readConfig, type Config } from '../../../server/config';
+import { openDatabase, type Database } from '../../../server/db/client';
+import { openMailer } from '../../../server/mail/openMailer';
+import type { Mailer } from '../../../server/mail/mailer';
+import { createLogger } from '../../../server/http/logging';
+import { createFakeClock, type FakeClock } from './fakeClock';
+
+export interface TestApp {
+  server: Server;
+  /** `http://127.0.0.1:<port>`; also the Origin state-changing requests must send. */
+  origin: string;
+  database: Database;
+  clock: FakeClock;
+  mailer: Mailer;
+  config: Config;
+  /** supertest bound to the listening server. */
+  http: ReturnType<typeof request>;
+  close(): Promise<void>;
+}
+
+/** Loads the template dump written by globalSetup into a new in-memory database. */
+export async function openTemplateDatabase(): Promise<Database> {
+  const bytes = readFileSync(inject('templateDumpPath'));
+  return openDatabase({ kind: 'dump', dump: new Blob([bytes]) }, { migrate: false });
+}
+
+export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+  const configResult = readConfig({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATA_DIR: '.tmp/unused', AUTH_RATE_LIMIT: '1000', ...env });
+  if (!configResult.ok) throw new Error(configResult.error);
+  const config = configResult.config;
+  const database = await openTemplateDatabase();
+  const clock = createFakeClock();
+  const mailer = await openMailer(config, database.orm, clock);
+  const app = createApp({
+    db: database,
+    mailer,
+    clock,
+    config,
+    logger: createLogger('silent'),
+    sessionKey: new TextEncoder().encode('test-session-key-0123456789abcdef'),
+  });
+  const server = await new Promise<Server>((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const { port } = server.address() as AddressInfo;
+  return {
+    server,
+    origin: `http://127.0.0.1:${port}`,
+    database,
+    clock,
+    mailer,
+    config,
+    http: request(server),
+    async close() {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await mailer.close();
+      await database.close();
+    },
+  };
+}
