@@ -1,0 +1,57 @@
+/**
+ * IEC 61131-3 bistables (clause 6.6.3.5.2, Table 43) and edge detectors (clause 6.6.3.5.3,
+ * Table 44), each a pure step `(state, inputs) -> state`.
+ */
+
+export interface EdgeState {
+  readonly Q: boolean;
+  /** CLK as seen by the previous call (the standard's M, for R_TRIG; NOT M for F_TRIG). */
+  readonly lastCLK: boolean;
+}
+
+export interface BistableState {
+  readonly Q1: boolean;
+}
+
+export interface EdgeInputs {
+  readonly CLK: boolean;
+}
+
+export interface SetDominantInputs {
+  readonly S1: boolean;
+  readonly R: boolean;
+}
+
+export interface ResetDominantInputs {
+  readonly S: boolean;
+  readonly R1: boolean;
+}
+
+/**
+ * Both detectors start as if CLK had been FALSE: a first call with CLK TRUE is a rising edge, and a
+ * first call with CLK FALSE is no falling edge (F_TRIG's M starts so that Q is FALSE).
+ */
+export const EDGE_INITIAL: EdgeState = Object.freeze({ Q: false, lastCLK: false });
+export const BISTABLE_INITIAL: BistableState = Object.freeze({ Q1: false });
+
+/** R_TRIG: `Q := CLK AND NOT M; M := CLK`. */
+export function stepRTrig(state: EdgeState, inputs: EdgeInputs): EdgeState {
+  return { Q: inputs.CLK && !state.lastCLK, lastCLK: inputs.CLK };
+}
+
+/** F_TRIG: `Q := NOT CLK AND NOT M; M := NOT CLK`, kept here as the previous CLK. */
+export function stepFTrig(state: EdgeState, inputs: EdgeInputs): EdgeState {
+  return { Q: !inputs.CLK && state.lastCLK, lastCLK: inputs.CLK };
+}
+
+/** SR, set-dominant: `Q1 := S1 OR (NOT R AND Q1)`. */
+export function stepSR(state: BistableState, inputs: SetDominantInputs): BistableState {
+  const q1 = inputs.S1 || (!inputs.R && state.Q1);
+  return q1 === state.Q1 ? state : { Q1: q1 };
+}
+
+/** RS, reset-dominant: `Q1 := NOT R1 AND (S OR Q1)`. */
+export function stepRS(state: BistableState, inputs: ResetDominantInputs): BistableState {
+  const q1 = !inputs.R1 && (inputs.S || state.Q1);
+  return q1 === state.Q1 ? state : { Q1: q1 };
+}

@@ -1,0 +1,45 @@
+/**
+ * The power flow of the last scan, as the live view reads it: for every node (contact, coil,
+ * block, series, parallel; a rung id stands for its root series) whether it was energised on its
+ * left and on its right.
+ */
+import type { FlowRecord } from './interpreter';
+import type { Plan } from './plan';
+
+/** One node's power flow. */
+export interface ElementFlow {
+  /** Energised on its left side (power arrives). */
+  readonly left: boolean;
+  /** Energised on its right side (power passes on; for a coil, the same as its left). */
+  readonly right: boolean;
+}
+
+/** A read-only view, keyed by document id. */
+export interface PowerFlowView {
+  /** The scan this view describes (0: nothing has run yet, everything is de-energised). */
+  readonly scanCount: number;
+  /** Every id the view knows, in document order. */
+  readonly ids: readonly string[];
+  /** The node's flow, or `undefined` for an id not in the program. */
+  get(id: string): ElementFlow | undefined;
+  has(id: string): boolean;
+}
+
+/** Wrap recorded flow arrays; reads are O(1) and allocate one small object. */
+export function createPowerFlowView(plan: Plan, record: FlowRecord, scanCount: number): PowerFlowView {
+  return {
+    scanCount,
+    ids: plan.flowIds,
+    get(id) {
+      const at = plan.flowIndex.get(id);
+      if (at === undefined) return undefined;
+      return { left: record.left[at] === 1, right: record.right[at] === 1 };
+    },
+    has: (id) => plan.flowIndex.has(id),
+  };
+}
+
+/** Empty flow arrays sized for a plan. */
+export function createFlowRecord(plan: Plan): FlowRecord {
+  return { left: new Uint8Array(plan.flowIds.length), right: new Uint8Array(plan.flowIds.length) };
+}
