@@ -22,7 +22,10 @@ import type { LayoutOptions, ProgramLayout, RungLayout } from './layoutTypes';
 /** Where the root series of every rung begins. */
 export const NETWORK_X = LEFT_RAIL_X + RAIL_W + LEAD_W;
 
-/** Tag name → address, the lookup the labels above operands need. */
+/**
+ * Declared tag name → address, the lookup the labels above operands need. Tag names are
+ * case-insensitive (IEC 61131-3 identifiers), so `operandLabel` compares them in upper case.
+ */
 export function tagAddressMap(tags: readonly Tag[]): Map<string, string> {
   return new Map(tags.map((tag) => [tag.name, tag.address]));
 }

@@ -97,13 +97,11 @@ export function outputTailStart(root: Series): number {
 export function operandLabel(operand: string, tagAddresses: ReadonlyMap<string, string>): OperandLabel {
   const text = operand.trim();
   if (text === '') return { primary: '', secondary: '' };
-  const address = tagAddresses.get(text);
-  if (address !== undefined) return { primary: text, secondary: address };
-  if (text.startsWith('%')) {
-    const upper = text.toUpperCase();
-    for (const [name, tagAddress] of tagAddresses) {
-      if (tagAddress.toUpperCase() === upper) return { primary: name, secondary: text };
-    }
+  const upper = text.toUpperCase();
+  const isAddress = text.startsWith('%');
+  for (const [name, tagAddress] of tagAddresses) {
+    if (!isAddress && name.toUpperCase() === upper) return { primary: name, secondary: tagAddress };
+    if (isAddress && tagAddress.toUpperCase() === upper) return { primary: name, secondary: text };
   }
   return { primary: text, secondary: '' };
 }

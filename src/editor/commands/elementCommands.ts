@@ -1,0 +1,175 @@
+/**
+ * Commands on elements: insert from the palette, delete, branch, move along the rung, copy, cut
+ * and paste. Each `perform` is pure over the editor state.
+ */
+import type { NetworkNode, Program } from '@shared/ladder/schema';
+import { ID_PREFIX } from '@shared/ladder/ids';
+import { elementsOfProgram, findElement } from '@shared/ladder/walk';
+import { addBranchBelow, insertAtSlot, moveAlong, removeNodes, wrapInParallel } from '../networkOps';
+import { paletteItem } from '../palette';
+import { cloneRung, cloneWithFreshIds, createElement, idSource, insertRungs, removeRungs } from '../programOps';
+import { NO_SELECTION, focusElementId, selectElements, selectRungs, selectedElementIds, selectedRungIds } from '../selection';
+import { insertionSlot, selectionRungId, slotAfter } from '../slots';
+import type { Command, CommandName, EditorState } from './types';
+
+const hasElements = (s: EditorState) => selectedElementIds(s.selection).length > 0;
+const hasFocus = (s: EditorState) => focusElementId(s.selection) !== undefined;
+
+/** The selected elements in document order (the order they are copied and pasted in). */
+function selectedNodes(state: EditorState): NetworkNode[] {
+  const ids = new Set(selectedElementIds(state.selection));
+  return elementsOfProgram(state.doc)
+    .filter((located) => ids.has(located.element.id))
+    .map((located) => located.element);
+}
+
+function newBranchIds(doc: Program) {
+  const next = idSource(doc);
+  return { parallel: next(ID_PREFIX.parallel), top: next(ID_PREFIX.series), below: next(ID_PREFIX.series) };
+}
+
+export const ELEMENT_COMMANDS = {
+  'insert-element': {
+    name: 'insert-element',
+    label: 'Insert element',
+    group: 'element',
+    shortcuts: [],
+    edits: true,
+    enabled: (s, args) => {
+      const item = args?.item ? paletteItem(args.item) : undefined;
+      return item !== undefined && insertionSlot(s.doc, s.selection, item) !== undefined;
+    },
+    perform: (s, _effects, args) => {
+      const item = args?.item ? paletteItem(args.item) : undefined;
+      if (!item) return;
+      const slot = insertionSlot(s.doc, s.selection, item);
+      if (!slot) return;
+      const next = idSource(s.doc);
+      const element = createElement(item, next(ID_PREFIX[item.kind]), s.doc);
+      return { doc: insertAtSlot(s.doc, slot, [element], next(ID_PREFIX.series)), selection: selectElements([element.id]) };
+    },
+  },
+  'delete-selection': {
+    name: 'delete-selection',
+    label: 'Delete',
+    group: 'element',
+    shortcuts: ['Delete', 'Backspace'],
+    edits: true,
+    enabled: (s) => hasElements(s) || selectedRungIds(s.selection).length > 0,
+    perform: (s) => {
+      const rungIds = selectedRungIds(s.selection);
+      if (rungIds.length > 0) return { doc: removeRungs(s.doc, new Set(rungIds)), selection: NO_SELECTION };
+      const ids = selectedElementIds(s.selection);
+      const after = slotAfterDeletion(s, ids);
+      return { doc: removeNodes(s.doc, new Set(ids)), selection: after };
+    },
+  },
+  'wrap-in-parallel': {
+    name: 'wrap-in-parallel',
+    label: 'Wrap in parallel branch',
+    group: 'element',
+    shortcuts: ['Shift+B'],
+    edits: true,
+    enabled: (s) => hasElements(s) && wrapInParallel(s.doc, selectedElementIds(s.selection), newBranchIds(s.doc)) !== s.doc,
+    perform: (s) => ({ doc: wrapInParallel(s.doc, selectedElementIds(s.selection), newBranchIds(s.doc)) }),
+  },
+  'add-branch-below': {
+    name: 'add-branch-below',
+    label: 'Add branch below',
+    group: 'element',
+    shortcuts: ['B'],
+    edits: true,
+    enabled: hasFocus,
+    perform: (s) => {
+      const focus = focusElementId(s.selection);
+      if (focus === undefined) return;
+      return { doc: addBranchBelow(s.doc, focus, newBranchIds(s.doc)) };
+    },
+  },
+  'move-element-left': {
+    name: 'move-element-left',
+    label: 'Move left along the rung',
+    group: 'element',
+    shortcuts: ['Alt+ArrowLeft'],
+    edits: true,
+    enabled: (s) => hasFocus(s) && moveAlong(s.doc, focusElementId(s.selection) as string, -1) !== s.doc,
+    perform: (s) => ({ doc: moveAlong(s.doc, focusElementId(s.selection) as string, -1) }),
+  },
+  'move-element-right': {
+    name: 'move-element-right',
+    label: 'Move right along the rung',
+    group: 'element',
+    shortcuts: ['Alt+ArrowRight'],
+    edits: true,
+    enabled: (s) => hasFocus(s) && moveAlong(s.doc, focusElementId(s.selection) as string, 1) !== s.doc,
+    perform: (s) => ({ doc: moveAlong(s.doc, focusElementId(s.selection) as string, 1) }),
+  },
+  copy: {
+    name: 'copy',
+    label: 'Copy',
+    group: 'clipboard',
+    shortcuts: ['Mod+C'],
+    edits: false,
+    enabled: (s) => hasElements(s) || selectedRungIds(s.selection).length > 0,
+    perform: (s) => ({ clipboard: copyOf(s) }),
+  },
+  cut: {
+    name: 'cut',
+    label: 'Cut',
+    group: 'clipboard',
+    shortcuts: ['Mod+X'],
+    edits: true,
+    enabled: (s) => hasElements(s) || selectedRungIds(s.selection).length > 0,
+    perform: (s) => {
+      const clipboard = copyOf(s);
+      const rungIds = selectedRungIds(s.selection);
+      const doc = rungIds.length > 0 ? removeRungs(s.doc, new Set(rungIds)) : removeNodes(s.doc, new Set(selectedElementIds(s.selection)));
+      return { doc, clipboard, selection: NO_SELECTION };
+    },
+  },
+  paste: {
+    name: 'paste',
+    label: 'Paste',
+    group: 'clipboard',
+    shortcuts: ['Mod+V'],
+    edits: true,
+    enabled: (s) => s.clipboard !== null && (s.clipboard.kind === 'rungs' || pasteSlot(s) !== undefined),
+    perform: (s) => {
+      const clip = s.clipboard;
+      if (!clip) return;
+      const next = idSource(s.doc);
+      if (clip.kind === 'rungs') {
+        const rungs = clip.rungs.map((r) => cloneRung(r, next));
+        const anchor = selectionRungId(s.doc, s.selection);
+        const at = anchor === undefined ? s.doc.rungs.length : s.doc.rungs.findIndex((r) => r.id === anchor) + 1;
+        return { doc: insertRungs(s.doc, at, rungs), selection: selectRungs(rungs.map((r) => r.id)) };
+      }
+      const slot = pasteSlot(s);
+      if (!slot) return;
+      const nodes = clip.nodes.map((n) => cloneWithFreshIds(n, next));
+      return { doc: insertAtSlot(s.doc, slot, nodes, next(ID_PREFIX.series)), selection: selectElements(nodes.map((n) => n.id)) };
+    },
+  },
+} as const satisfies Partial<Record<CommandName, Command>>;
+
+function copyOf(s: EditorState): EditorState['clipboard'] {
+  const rungIds = new Set(selectedRungIds(s.selection));
+  if (rungIds.size > 0) return { kind: 'rungs', rungs: s.doc.rungs.filter((r) => rungIds.has(r.id)) };
+  return { kind: 'elements', nodes: selectedNodes(s) };
+}
+
+function pasteSlot(s: EditorState) {
+  if (s.selection.kind === 'slot') return s.selection.slot;
+  const focus = focusElementId(s.selection);
+  return focus === undefined ? undefined : slotAfter(s.doc, focus);
+}
+
+/** After deleting elements, stand on the slot where the first of them was, so typing can go on. */
+function slotAfterDeletion(s: EditorState, ids: readonly string[]) {
+  const first = ids[0];
+  const located = first === undefined ? null : findElement(s.doc, first);
+  if (!located) return NO_SELECTION;
+  const slot = slotAfter(s.doc, located.element.id);
+  if (!slot || slot.path.length !== located.path.length - 1) return NO_SELECTION;
+  return { kind: 'slot' as const, slot: { ...slot, index: Math.max(0, slot.index - 1) } };
+}
