@@ -1,0 +1,56 @@
+/**
+ * Mechanical interlock between two contactors (the reversing pair): a lever that lets only one
+ * carrier pull in. Rule of this simulator (DESIGN.md): once one carrier is engaged (picking up,
+ * closed, or still dropping out) the other is held open; if both coils are energised in the same
+ * step while both carriers are at rest, neither closes and the panel reports an interlock conflict.
+ */
+import { z } from 'zod';
+import type { DeviceModel } from './model';
+
+export const InterlockParamsSchema = z.object({
+  /** The two contactors it couples, by device id. */
+  contactors: z.tuple([z.string(), z.string()]),
+});
+export type InterlockParams = z.infer<typeof InterlockParamsSchema>;
+
+export interface InterlockState {
+  /** Both coils energised while both carriers were open: neither may close. */
+  readonly conflict: boolean;
+}
+
+/** One side of the interlock as the rule sees it. */
+export interface InterlockSide {
+  /** The coil has power this step. */
+  coil: boolean;
+  /** The carrier is picking up, closed or dropping out. */
+  engaged: boolean;
+}
+
+/** Which carriers the lever holds open this step, and whether that is a conflict. */
+export interface InterlockVerdict {
+  blockA: boolean;
+  blockB: boolean;
+  conflict: boolean;
+}
+
+/** The interlock rule, as a pure function of both sides. */
+export function interlockRule(a: InterlockSide, b: InterlockSide): InterlockVerdict {
+  if (!a.engaged && !b.engaged && a.coil && b.coil) return { blockA: true, blockB: true, conflict: true };
+  return { blockA: b.engaged, blockB: a.engaged, conflict: false };
+}
+
+const CLEAR: InterlockState = Object.freeze({ conflict: false });
+const CONFLICT: InterlockState = Object.freeze({ conflict: true });
+
+export const interlock: DeviceModel<InterlockParams, InterlockState> = {
+  kind: 'interlock',
+  noun: 'a mechanical interlock',
+  params: InterlockParamsSchema,
+  contacts: () => [],
+  initial: () => CLEAR,
+  isClosed: () => false,
+  word: (state) => (state.conflict ? 'conflict' : 'clear'),
+  words: () => ['clear', 'conflict'],
+  step: (state, _params, inputs) => (inputs.conflict === state.conflict ? state : inputs.conflict ? CONFLICT : CLEAR),
+  actions: {},
+};

@@ -1,0 +1,110 @@
+/**
+ * The shape every virtual field device shares: its parameters (a zod schema, so a panel layout is
+ * validated data), its contacts, its state words and a pure model — `step(state, params, inputs,
+ * dtMs) -> state` plus actions a student or a check script performs. A model never mutates a state:
+ * it returns a new one, or the same object when nothing changed (the simulation relies on that to
+ * skip work and to notice changes).
+ */
+import type { z } from 'zod';
+
+/** Every kind of device a panel layout can hold. */
+export type DeviceKind =
+  | 'pushbutton'
+  | 'estop'
+  | 'selector'
+  | 'contactor'
+  | 'interlock'
+  | 'overload'
+  | 'lamp'
+  | 'horn'
+  | 'motor'
+  | 'photoeye'
+  | 'limit';
+
+/** What a student (or a check script) can do to a device. */
+export type DeviceAction = 'press' | 'release' | 'set' | 'trip' | 'reset' | 'load' | 'block' | 'unblock';
+
+export const DEVICE_ACTIONS: readonly DeviceAction[] = ['press', 'release', 'set', 'trip', 'reset', 'load', 'block', 'unblock'];
+
+/** Normally open or normally closed, as the contact sits with the device at rest. */
+export type ContactForm = 'NO' | 'NC';
+
+/** One contact a device offers to the wiring, named by its terminal marking where the trade has one. */
+export interface ContactSpec {
+  /** Terminal marking, e.g. `13-14` (NO) or `95-96` (the overload's NC contact). */
+  name: string;
+  form: ContactForm;
+}
+
+/** Which way a motor's supply turns it. */
+export type Supply = 'none' | 'forward' | 'reverse';
+
+/**
+ * What the hardwired circuits hand a device for one field step. Each model reads only the fields
+ * it needs; the simulation fills them from the panel layout.
+ */
+export interface DeviceInputs {
+  /** A load (coil, lamp, horn) has power: output ON, output common live, series contacts closed. */
+  energised: boolean;
+  /** A contactor is held open by a mechanical interlock this step. */
+  blocked: boolean;
+  /** An interlock saw both its coils energised while both contactors were open. */
+  conflict: boolean;
+  /** A motor's supply through the contactors' main contacts. */
+  supply: Supply;
+  /** The current through an overload relay's heaters, in A. */
+  currentA: number;
+}
+
+/** Extra values some actions take: a selector position, a load factor (multiple of FLA). */
+export interface ActionArgs {
+  to?: string;
+  factor?: number;
+}
+
+/** An action either gives the next state or says, in words, why it cannot be done now. */
+export type ActionOutcome<S> = { ok: true; state: S } | { ok: false; error: string };
+
+/**
+ * The actions a model supports. Written as methods so a concrete model fits the generic table
+ * (method parameters are compared bivariantly by TypeScript).
+ */
+export interface DeviceActions<P, S> {
+  press?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+  release?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+  set?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+  trip?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+  reset?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+  load?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+  block?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+  unblock?(state: S, params: P, args: ActionArgs): ActionOutcome<S>;
+}
+
+/** A device kind's behaviour. `P` = parameters after defaults, `S` = state. */
+export interface DeviceModel<P, S> {
+  readonly kind: DeviceKind;
+  /** The kind with its article, for messages: "a contactor". */
+  readonly noun: string;
+  /** Validates and fills in the `params` of a layout entry. */
+  readonly params: z.ZodType<P>;
+  contacts(params: P): readonly ContactSpec[];
+  initial(params: P): S;
+  isClosed(state: S, params: P, contact: string): boolean;
+  /** The state in one word, as check scripts name it: `closed`, `lit`, `tripped`, `RUN`… */
+  word(state: S, params: P): string;
+  /** Every word `word` can return for these parameters. */
+  words(params: P): readonly string[];
+  /** Advance by `dtMs` of virtual time. Absent for devices that only change by actions. */
+  step?(state: S, params: P, inputs: DeviceInputs, dtMs: number): S;
+  readonly actions: DeviceActions<P, S>;
+}
+
+/** Shorthand for a successful action. */
+export function done<S>(state: S): ActionOutcome<S> {
+  return { ok: true, state };
+}
+
+/** Shorthand for a refused action. */
+export function refused<S>(error: string): ActionOutcome<S> {
+  return { ok: false, error };
+}

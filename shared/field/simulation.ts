@@ -1,0 +1,290 @@
+/**
+ * `createSimulation`: a compiled program running against a field panel, scan by scan, as DESIGN.md
+ * describes the scan cycle:
+ *  1. each input bit = its device contact AND the input common (every contact in `inputCommon`);
+ *  2. the engine solves the rungs;
+ *  3. a load is energised only if its output is ON AND the output common AND its series contacts
+ *     (`through`, e.g. F1 95-96) are closed;
+ *  4. the field advances by one scan period: interlocks decide, contactors move after their delay,
+ *     lamps and horns follow their circuits, the motor ramps, the overload's thermal image evolves.
+ * Deterministic: virtual time only, no clock, no randomness.
+ */
+import { checkScanMs, compile, createRuntime, DEFAULT_SCAN_MS, type Diagnostic, type Runtime } from '../engine';
+import type { DeviceInputs, DeviceAction, ActionArgs } from './devices/model';
+import { isEngaged, type ContactorState } from './devices/contactor';
+import { interlockRule } from './devices/interlock';
+import { createEventLog, type EventLog, type FieldEvent, type FieldEventKind } from './events';
+import type { PanelLayout } from './layout';
+import type { Program } from '../ladder/schema';
+import { describeChange, describeCommons, ACTION_WORDS } from './messages';
+import { deviceView, type DeviceView } from './views';
+import { wirePanel, type LoadCircuit, type WiredContact, type Wiring } from './wiring';
+import { explainIO, type IoExplanation } from './explain';
+
+export interface SimulationOptions {
+  program: Program;
+  /** A layout accepted by `parsePanelLayout` (or a built-in panel). */
+  panel: PanelLayout;
+  /** Scan period in ms, 1..1000; 10 if omitted. */
+  scanMs?: number;
+  /** How many events the log keeps (the latest ones); 10 000 if omitted. */
+  maxEvents?: number;
+}
+
+/**
+ * A running simulation, or why there is none: the program's compile errors as located diagnostics,
+ * and a one-line summary (also used for a bad scan period, which has no diagnostics).
+ */
+export type SimulationResult =
+  | { ok: true; simulation: Simulation; warnings: Diagnostic[] }
+  | { ok: false; diagnostics: Diagnostic[]; error: string };
+
+/** The outcome of a device action: done, or why not (also logged as a `refused` event). */
+export type ActionResult = { ok: true } | { ok: false; error: string };
+
+export interface Simulation {
+  readonly panel: PanelLayout;
+  /** The engine: forces, reads, power flow, snapshot. */
+  readonly runtime: Runtime;
+  readonly scanMs: number;
+  readonly timeMs: number;
+  readonly scanCount: number;
+  /** One scan cycle (steps 1-4 above). */
+  scan(): void;
+  /** Whole scans covering `ms` of virtual time: ceil(ms / scanMs). */
+  run(ms: number): void;
+  /** Perform an action on a device by id; `args.to` for `set`, `args.factor` for `load`. */
+  act(deviceId: string, action: DeviceAction, args?: ActionArgs): ActionResult;
+  press(deviceId: string): ActionResult;
+  release(deviceId: string): ActionResult;
+  set(deviceId: string, position: string): ActionResult;
+  trip(deviceId: string): ActionResult;
+  reset(deviceId: string): ActionResult;
+  load(deviceId: string, factor: number): ActionResult;
+  block(deviceId: string): ActionResult;
+  unblock(deviceId: string): ActionResult;
+  /** A device's state word (`closed`, `lit`, `tripped`, `RUN`…), or undefined for an unknown id. */
+  word(deviceId: string): string | undefined;
+  device(deviceId: string): DeviceView | undefined;
+  devices(): DeviceView[];
+  /** Is every contact of the input common closed (true when it has none)? */
+  inputCommonLive(): boolean;
+  outputCommonLive(): boolean;
+  /** Is a load's circuit energised after the last scan (output, common, series contacts)? */
+  energised(deviceId: string): boolean;
+  events(): readonly FieldEvent[];
+  eventsSince(seq: number): readonly FieldEvent[];
+  readonly eventLog: EventLog;
+  /** The I/O status table: each input and output with its circuit and the reason in words. */
+  explain(): IoExplanation;
+}
+
+/** Compile the program for the panel's address space and wire it to a fresh field. */
+export function createSimulation(options: SimulationOptions): SimulationResult {
+  const panel = options.panel;
+  const scanMs = checkScanMs(options.scanMs ?? DEFAULT_SCAN_MS);
+  if (!scanMs.ok) return { ok: false, diagnostics: [], error: scanMs.error };
+  const compiled = compile(options.program, { space: { inputs: panel.inputs, outputs: panel.outputs, memory: 64 } });
+  if (!compiled.ok) {
+    const errors = compiled.diagnostics.filter((d) => d.severity === 'error');
+    const first = errors[0]?.message ?? 'the program does not compile';
+    const more = errors.length > 1 ? ` (and ${errors.length - 1} more)` : '';
+    return { ok: false, diagnostics: compiled.diagnostics, error: `the program does not compile: ${first}${more}` };
+  }
+  const runtime = createRuntime(compiled.plan, { scanMs: scanMs.value });
+  return { ok: true, simulation: buildSimulation(wirePanel(panel), runtime, options.maxEvents), warnings: compiled.diagnostics };
+}
+
+const freshInputs = (): DeviceInputs => ({ energised: false, blocked: false, conflict: false, supply: 'none', currentA: 0 });
+
+function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): Simulation {
+  const { devices, models } = wiring;
+  const params = devices.map((d) => d.params as unknown);
+  const states: unknown[] = devices.map((_, i) => models[i]!.initial(params[i]));
+  const words: string[] = devices.map((_, i) => models[i]!.word(states[i], params[i]));
+  const inputs: DeviceInputs[] = devices.map(freshInputs);
+  const log = createEventLog(maxEvents);
+  const dtMs = runtime.scanMs;
+  let shortCircuit = false;
+
+  const closed = (c: WiredContact): boolean => models[c.device]!.isClosed(states[c.device], params[c.device], c.contact);
+  const allClosed = (list: readonly WiredContact[]): boolean => {
+    for (let i = 0; i < list.length; i += 1) if (!closed(list[i]!)) return false;
+    return true;
+  };
+  const firstOpen = (list: readonly WiredContact[]): WiredContact | undefined => list.find((c) => !closed(c));
+
+  const emit = (device: string | null, kind: FieldEventKind, message: string): void => {
+    log.push({ atMs: runtime.timeMs, scan: runtime.scanCount, device, kind, message });
+  };
+
+  /** Why a load's circuit has no power, in words, or '' if it has. */
+  const cutReason = (load: LoadCircuit): string => {
+    const common = firstOpen(wiring.outputCommon);
+    if (common) return `output common de-energised (${common.label} open)`;
+    const series = firstOpen(load.through);
+    if (series) return `${series.label} opened`;
+    if (!runtime.getOutput(load.output)) return `${load.address} turned OFF`;
+    return '';
+  };
+
+  const readInputs = (): void => {
+    const live = allClosed(wiring.inputCommon);
+    for (const wire of wiring.inputs) runtime.setInput(wire.index, live && closed(wire));
+  };
+
+  const writeOutputs = (): void => {
+    const live = allClosed(wiring.outputCommon);
+    for (const load of wiring.loads) {
+      inputs[load.device]!.energised = live && runtime.getOutput(load.output) && allClosed(load.through);
+    }
+  };
+
+  const applyInterlocks = (): void => {
+    for (const link of wiring.interlocks) {
+      const a = states[link.a] as ContactorState;
+      const b = states[link.b] as ContactorState;
+      const verdict = interlockRule(
+        { coil: inputs[link.a]!.energised, engaged: isEngaged(a) },
+        { coil: inputs[link.b]!.energised, engaged: isEngaged(b) },
+      );
+      inputs[link.a]!.blocked = verdict.blockA;
+      inputs[link.b]!.blocked = verdict.blockB;
+      inputs[link.device]!.conflict = verdict.conflict;
+    }
+  };
+
+  const gatherSupply = (i: number): void => {
+    const feed = wiring.motorFeeds[i]!;
+    let forward = false;
+    let reverse = false;
+    for (const f of feed.feeders) {
+      if (!(states[f.contactor] as ContactorState).closed) continue;
+      if (f.direction === 'forward') forward = true;
+      else reverse = true;
+    }
+    if (forward && reverse) {
+      // Only possible on a layout without a mechanical interlock: both sets of main contacts
+      // closed swap two phases onto each other. The short-circuit protection would clear it.
+      if (!shortCircuit) {
+        emit(devices[i]!.id, 'fault', `${devices[i]!.id} fed forward and reverse at once: phase-to-phase short circuit; supply removed`);
+      }
+      shortCircuit = true;
+    } else {
+      shortCircuit = false;
+    }
+    inputs[i]!.supply = forward && !reverse ? 'forward' : reverse && !forward ? 'reverse' : 'none';
+  };
+
+  const advanceField = (): void => {
+    applyInterlocks();
+    for (const i of wiring.stepOrder) {
+      const device = devices[i]!;
+      if (device.kind === 'motor') gatherSupply(i);
+      else if (device.kind === 'overload') {
+        const m = wiring.measures[i]!;
+        inputs[i]!.currentA = m >= 0 ? (states[m] as { currentA: number }).currentA : 0;
+      }
+      const before = states[i];
+      const after = models[i]!.step!(before, params[i], inputs[i]!, dtMs);
+      if (after === before) continue;
+      states[i] = after;
+      const word = models[i]!.word(after, params[i]);
+      const message = describeChange({
+        device,
+        before,
+        after,
+        wordBefore: words[i]!,
+        word,
+        cutReason: () => (wiring.loadOf[i]! >= 0 ? cutReason(wiring.loads[wiring.loadOf[i]!]!) : ''),
+        holder: () => holderOf(i),
+      });
+      words[i] = word;
+      if (message) emit(device.id, message.kind, message.text);
+    }
+  };
+
+  /** The contactor an interlock holds `i` open for. */
+  const holderOf = (i: number): string => {
+    const link = wiring.interlocks.find((l) => l.a === i || l.b === i);
+    if (!link) return '';
+    return devices[link.a === i ? link.b : link.a]!.id;
+  };
+
+  const scan = (): void => {
+    readInputs();
+    runtime.scan();
+    writeOutputs();
+    advanceField();
+  };
+
+  const act = (deviceId: string, action: DeviceAction, args: ActionArgs = {}): ActionResult => {
+    const i = wiring.indexOf.get(deviceId);
+    if (i === undefined) return { ok: false, error: `no device "${deviceId}" on this panel` };
+    const model = models[i]!;
+    const perform = model.actions[action];
+    if (!perform) return { ok: false, error: `${deviceId} is ${model.noun}: it cannot be given "${action}"` };
+    const outcome = perform.call(model.actions, states[i], params[i], args);
+    if (!outcome.ok) {
+      emit(deviceId, 'refused', `${deviceId} ${action} refused: ${outcome.error}`);
+      return { ok: false, error: outcome.error };
+    }
+    if (outcome.state === states[i]) return { ok: true };
+    const commonsBefore = [allClosed(wiring.inputCommon), allClosed(wiring.outputCommon)] as const;
+    states[i] = outcome.state;
+    words[i] = model.word(outcome.state, params[i]);
+    const commonsAfter = [allClosed(wiring.inputCommon), allClosed(wiring.outputCommon)] as const;
+    const what = ACTION_WORDS[action](args, words[i]!);
+    const commons = describeCommons(commonsBefore, commonsAfter);
+    emit(deviceId, 'action', `${deviceId} ${what}${commons ? `: ${commons}` : ''}`);
+    return { ok: true };
+  };
+
+  const viewOf = (i: number): DeviceView =>
+    deviceView(devices[i]!, models[i]!, states[i], params[i], words[i]!, wiring.loadOf[i]! >= 0 ? inputs[i]!.energised : null);
+
+  return {
+    panel: wiring.panel,
+    runtime,
+    scanMs: dtMs,
+    get timeMs() {
+      return runtime.timeMs;
+    },
+    get scanCount() {
+      return runtime.scanCount;
+    },
+    scan,
+    run(ms) {
+      const scans = Math.ceil(ms / dtMs);
+      for (let n = 0; n < scans; n += 1) scan();
+    },
+    act,
+    press: (id) => act(id, 'press'),
+    release: (id) => act(id, 'release'),
+    set: (id, position) => act(id, 'set', { to: position }),
+    trip: (id) => act(id, 'trip'),
+    reset: (id) => act(id, 'reset'),
+    load: (id, factor) => act(id, 'load', { factor }),
+    block: (id) => act(id, 'block'),
+    unblock: (id) => act(id, 'unblock'),
+    word: (id) => {
+      const i = wiring.indexOf.get(id);
+      return i === undefined ? undefined : words[i];
+    },
+    device: (id) => {
+      const i = wiring.indexOf.get(id);
+      return i === undefined ? undefined : viewOf(i);
+    },
+    devices: () => devices.map((_, i) => viewOf(i)),
+    inputCommonLive: () => allClosed(wiring.inputCommon),
+    outputCommonLive: () => allClosed(wiring.outputCommon),
+    energised: (id) => {
+      const i = wiring.indexOf.get(id);
+      return i !== undefined && wiring.loadOf[i]! >= 0 && inputs[i]!.energised;
+    },
+    events: () => log.list(),
+    eventsSince: (seq) => log.since(seq),
+    eventLog: log,
+    explain: () => explainIO({ wiring, runtime, states, params, words, energised: (i) => inputs[i]!.energised, closed, cutReason }),
+  };
+}

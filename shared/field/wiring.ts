@@ -1,0 +1,133 @@
+/**
+ * Resolves a validated panel layout into index-based circuits the simulation walks every scan:
+ * which device contact feeds which input, each load's circuit (output, series contacts), the two
+ * commons, the interlocks, what feeds each motor and what each overload measures. Done once per
+ * simulation, so the scan loop does no look-ups by name.
+ */
+import { parseAddress } from '../ladder/addresses';
+import { modelOf, STEP_ORDER, type AnyDeviceModel } from './devices';
+import type { DeviceKind } from './devices/model';
+import type { ContactRef, DeviceSpec, PanelLayout } from './layout';
+import { feedingContact } from './parseLayout';
+
+/** One contact of one device, by device index. */
+export interface WiredContact {
+  readonly device: number;
+  readonly contact: string;
+  /** `F1 95-96`, for messages. */
+  readonly label: string;
+}
+
+/** A device contact wired to a PLC input. */
+export interface InputWire extends WiredContact {
+  /** 1-based input number: `%IX<index>`. */
+  readonly index: number;
+  readonly address: string;
+}
+
+/** A load's circuit: the output that drives it and the hardwired contacts in series. */
+export interface LoadCircuit {
+  readonly device: number;
+  /** 1-based output number: `%QX<output>`. */
+  readonly output: number;
+  readonly address: string;
+  readonly through: readonly WiredContact[];
+}
+
+export interface InterlockLink {
+  readonly device: number;
+  readonly a: number;
+  readonly b: number;
+}
+
+export interface MotorFeed {
+  readonly device: number;
+  readonly feeders: readonly { readonly contactor: number; readonly direction: 'forward' | 'reverse' }[];
+}
+
+export interface Wiring {
+  readonly panel: PanelLayout;
+  readonly devices: readonly DeviceSpec[];
+  readonly models: readonly AnyDeviceModel[];
+  readonly indexOf: ReadonlyMap<string, number>;
+  readonly inputs: readonly InputWire[];
+  readonly loads: readonly LoadCircuit[];
+  /** For each device, the index of its load circuit in `loads`, or -1. */
+  readonly loadOf: readonly number[];
+  readonly inputCommon: readonly WiredContact[];
+  readonly outputCommon: readonly WiredContact[];
+  readonly interlocks: readonly InterlockLink[];
+  /** For each device, the motor feed if it is a motor. */
+  readonly motorFeeds: readonly (MotorFeed | null)[];
+  /** For each device, the index of the motor an overload measures, or -1. */
+  readonly measures: readonly number[];
+  /** Device indices in the order the field advances (see `STEP_ORDER`). */
+  readonly stepOrder: readonly number[];
+}
+
+function indexOfAddress(text: string): number {
+  const parsed = parseAddress(text);
+  // parsePanelLayout has already refused any address that does not parse.
+  return parsed.ok ? parsed.value.index : -1;
+}
+
+/** Build the wiring of a layout that `parsePanelLayout` accepted. */
+export function wirePanel(panel: PanelLayout): Wiring {
+  const devices = panel.devices;
+  const models = devices.map((d) => modelOf(d.kind));
+  const indexOf = new Map(devices.map((d, i) => [d.id, i] as const));
+  const wire = (ref: ContactRef): WiredContact => ({
+    device: indexOf.get(ref.device) ?? -1,
+    contact: ref.contact,
+    label: `${ref.device} ${ref.contact}`,
+  });
+  const inputs: InputWire[] = [];
+  const loads: LoadCircuit[] = [];
+  const loadOf = devices.map(() => -1);
+  devices.forEach((device, i) => {
+    if (device.feeds !== undefined) {
+      const contact = feedingContact(device) ?? '';
+      inputs.push({ device: i, contact, label: `${device.id} ${contact}`, index: indexOfAddress(device.feeds), address: device.feeds.toUpperCase() });
+    }
+    if (device.drivenBy !== undefined) {
+      loadOf[i] = loads.length;
+      loads.push({ device: i, output: indexOfAddress(device.drivenBy), address: device.drivenBy.toUpperCase(), through: device.through.map(wire) });
+    }
+  });
+  inputs.sort((a, b) => a.index - b.index);
+  const interlocks: InterlockLink[] = [];
+  const motorFeeds: (MotorFeed | null)[] = devices.map(() => null);
+  const measures = devices.map(() => -1);
+  devices.forEach((device, i) => {
+    if (device.kind === 'interlock') {
+      interlocks.push({ device: i, a: indexOf.get(device.params.contactors[0]) ?? -1, b: indexOf.get(device.params.contactors[1]) ?? -1 });
+    } else if (device.kind === 'motor') {
+      motorFeeds[i] = {
+        device: i,
+        feeders: device.params.feeders.map((f) => ({ contactor: indexOf.get(f.contactor) ?? -1, direction: f.direction })),
+      };
+    } else if (device.kind === 'overload' && device.params.motor !== undefined) {
+      measures[i] = indexOf.get(device.params.motor) ?? -1;
+    }
+  });
+  const stepOrder = devices
+    .map((d, i) => ({ i, order: STEP_ORDER[d.kind as DeviceKind] }))
+    .filter(({ i }) => models[i]!.step !== undefined)
+    .sort((a, b) => a.order - b.order || a.i - b.i)
+    .map(({ i }) => i);
+  return {
+    panel,
+    devices,
+    models,
+    indexOf,
+    inputs,
+    loads,
+    loadOf,
+    inputCommon: panel.inputCommon.map(wire),
+    outputCommon: panel.outputCommon.map(wire),
+    interlocks,
+    motorFeeds,
+    measures,
+    stepOrder,
+  };
+}
