@@ -1,0 +1,338 @@
+/**
+ * Rungs from the connection graph of an LD body, never from positions.
+ *
+ * IEC 61131-3 LD (8.2, links [memory for the sub-clause]) lets power flow left to right only, and
+ * where links join, the state on the right is the OR of the links on the left. TC6 writes that as
+ * several `connection`s on one `connectionPointIn`. So each distinct set of feeds is one junction;
+ * each contact, coil or block is an edge from the junction of its feeds to its own output; each
+ * feed of a junction is an empty wire. A rung is a connected group of elements between the rails,
+ * and it is series-parallel exactly when that two-terminal graph reduces, by merging edges in
+ * series (a junction with one way in and one way out) and in parallel (edges with the same ends),
+ * to one edge from the left rail to the right rail.
+ */
+import { BLOCK_SPECS } from '../blocks';
+import { fail, ok, type Result } from '../result';
+import type { BlockRecord, BodyRecord, PowerElement, RailRecord, Wire } from './readBody';
+
+/** A recovered network: elements, empty wires, series and parallel. */
+export type Tree =
+  | { kind: 'element'; element: PowerElement }
+  | { kind: 'wire' }
+  | { kind: 'series'; items: Tree[] }
+  | { kind: 'parallel'; branches: Tree[] };
+
+/** One rung as found in the graph. */
+export interface RecoveredRung {
+  network: Tree;
+  /** Its elements, by localId. */
+  members: PowerElement[];
+  /** The left rails that feed it. */
+  rails: RailRecord[];
+  /** Where it sits, to order rungs: the top of its highest element, then its lowest localId. */
+  y: number;
+  firstLocalId: number;
+}
+
+/** Branches deeper than this are refused (the document's schema nests as deep; a reader's stack does not). */
+export const MAX_NESTING = 64;
+
+const SOURCE = 'source';
+const SINK = 'sink';
+
+/** Where a power-flow input is fed from: the left rail or another element's output. */
+type Feed = { kind: 'rail'; rail: RailRecord } | { kind: 'element'; element: PowerElement };
+
+/** Recover every rung of an LD body, ordered top to bottom. */
+export function recoverRungs(records: readonly BodyRecord[]): Result<RecoveredRung[]> {
+  const byId = new Map(records.map((r) => [r.localId, r] as const));
+  const power = records.filter((r): r is PowerElement => r.kind === 'contact' || r.kind === 'coil' || r.kind === 'block');
+
+  const feedsOf = new Map<number, Feed[]>();
+  for (const element of power) {
+    const feeds = resolveFeeds(element.inputs, element.label, byId);
+    if (!feeds.ok) return feeds;
+    if (feeds.value.length === 0) {
+      return fail(`${element.label} has nothing connected to its input: every element of a rung must be wired from the left rail`);
+    }
+    feedsOf.set(element.localId, feeds.value);
+  }
+  const toRightRail = new Set<number>();
+  const emptyRungs: RecoveredRung[] = [];
+  for (const rail of records.filter((r): r is RailRecord => r.kind === 'rightRail')) {
+    const feeds = resolveFeeds(rail.inputs, rail.label, byId);
+    if (!feeds.ok) return feeds;
+    for (const feed of feeds.value) {
+      if (feed.kind === 'element') toRightRail.add(feed.element.localId);
+      else emptyRungs.push({ network: { kind: 'wire' }, members: [], rails: [feed.rail], y: feed.rail.y, firstLocalId: feed.rail.localId });
+    }
+  }
+
+  const loop = findLoop(power, feedsOf);
+  if (loop !== null) return fail(`the connections form a loop through ${loop.label}: power in a rung flows left to right only`);
+
+  const rungs: RecoveredRung[] = [...emptyRungs];
+  for (const members of connectedGroups(power, feedsOf)) {
+    const rung = reduceGroup(members, feedsOf, toRightRail);
+    if (!rung.ok) return rung;
+    rungs.push(rung.value);
+  }
+  rungs.sort((a, b) => a.y - b.y || a.firstLocalId - b.firstLocalId);
+  return ok(rungs);
+}
+
+function resolveFeeds(wires: readonly Wire[], label: string, byId: ReadonlyMap<number, BodyRecord>): Result<Feed[]> {
+  const feeds: Feed[] = [];
+  for (const wire of wires) {
+    const source = byId.get(wire.refLocalId);
+    if (source === undefined) return fail(`${label} is connected to localId ${wire.refLocalId}, which is not in the LD body`);
+    if (source.kind === 'leftRail') feeds.push({ kind: 'rail', rail: source });
+    else if (source.kind === 'contact' || source.kind === 'coil') feeds.push({ kind: 'element', element: source });
+    else if (source.kind === 'block') {
+      const problem = blockOutputProblem(source, wire, label);
+      if (problem) return fail(problem);
+      feeds.push({ kind: 'element', element: source });
+    } else if (source.kind === 'inVariable') {
+      return fail(`${label} takes power flow from ${source.label}: in Rungwright power comes from the left rail through contacts; a variable feeds only a block's operand inputs`);
+    } else {
+      return fail(`${label} is connected to ${source.label}, which has no output: power flows from the left rail to the right rail`);
+    }
+  }
+  const seen = new Set<string>();
+  return ok(feeds.filter((feed) => {
+    const key = feedKey(feed);
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  }));
+}
+
+/** Only the block's power-flow output (Q, QU, Q1) can carry a rung on. */
+function blockOutputProblem(block: BlockRecord, wire: Wire, label: string): string | null {
+  const spec = BLOCK_SPECS[block.type];
+  const pin = wire.formalParameter ?? spec.powerOut;
+  if (pin === spec.powerOut) return null;
+  const known = spec.outputs.some((p) => p.name === pin);
+  if (!known) return `${label} is connected to output "${pin}" of ${block.label}, which ${block.type} does not have`;
+  return `${label} is connected to output ${pin} of ${block.label}: only ${spec.powerOut} carries a rung on; read ${pin} elsewhere as the operand ${block.instance || block.type}.${pin}`;
+}
+
+/** All left rails are one source, so every rail feed has one key. */
+function feedKey(feed: Feed): string {
+  return feed.kind === 'rail' ? SOURCE : `o${feed.element.localId}`;
+}
+
+/** An element that feeds itself through other elements, or `null`. */
+function findLoop(power: readonly PowerElement[], feedsOf: ReadonlyMap<number, Feed[]>): PowerElement | null {
+  const state = new Map<number, 'open' | 'done'>();
+  for (const start of power) {
+    if (state.has(start.localId)) continue;
+    // Iterative depth-first search: a long rung must not exhaust the stack.
+    const stack: Array<{ element: PowerElement; next: number }> = [{ element: start, next: 0 }];
+    state.set(start.localId, 'open');
+    while (stack.length > 0) {
+      const top = stack[stack.length - 1] as { element: PowerElement; next: number };
+      const feeds = feedsOf.get(top.element.localId) ?? [];
+      if (top.next >= feeds.length) {
+        state.set(top.element.localId, 'done');
+        stack.pop();
+        continue;
+      }
+      const feed = feeds[top.next] as Feed;
+      top.next += 1;
+      if (feed.kind !== 'element') continue;
+      const seen = state.get(feed.element.localId);
+      if (seen === 'open') return feed.element;
+      if (seen === undefined) {
+        state.set(feed.element.localId, 'open');
+        stack.push({ element: feed.element, next: 0 });
+      }
+    }
+  }
+  return null;
+}
+
+/** Elements joined by connections (the rails join nothing: one rail may serve every rung). */
+function connectedGroups(power: readonly PowerElement[], feedsOf: ReadonlyMap<number, Feed[]>): PowerElement[][] {
+  const parent = new Map<number, number>(power.map((e) => [e.localId, e.localId]));
+  const root = (id: number): number => {
+    let r = id;
+    while (parent.get(r) !== r) r = parent.get(r) as number;
+    parent.set(id, r);
+    return r;
+  };
+  for (const element of power) {
+    for (const feed of feedsOf.get(element.localId) ?? []) {
+      if (feed.kind === 'element') parent.set(root(element.localId), root(feed.element.localId));
+    }
+  }
+  const groups = new Map<number, PowerElement[]>();
+  for (const element of [...power].sort((a, b) => a.localId - b.localId)) {
+    const key = root(element.localId);
+    groups.set(key, [...(groups.get(key) ?? []), element]);
+  }
+  return [...groups.values()];
+}
+
+interface Edge {
+  from: string;
+  to: string;
+  tree: Tree;
+}
+
+/** Reduce one group's two-terminal graph to a single series-parallel tree. */
+function reduceGroup(
+  members: PowerElement[],
+  feedsOf: ReadonlyMap<number, Feed[]>,
+  toRightRail: ReadonlySet<number>,
+): Result<RecoveredRung> {
+  const edges = new Map<number, Edge>();
+  let nextEdge = 0;
+  const addEdge = (edge: Edge): void => {
+    edges.set(nextEdge, edge);
+    nextEdge += 1;
+  };
+  const consumed = new Set<string>();
+  const junctions = new Set<string>();
+  const rails = new Map<number, RailRecord>();
+  for (const element of members) {
+    const feeds = feedsOf.get(element.localId) ?? [];
+    const keys = feeds.map(feedKey).sort();
+    const junction = `j[${keys.join(',')}]`;
+    if (!junctions.has(junction)) {
+      junctions.add(junction);
+      for (const key of keys) addEdge({ from: key, to: junction, tree: { kind: 'wire' } });
+    }
+    for (const feed of feeds) {
+      if (feed.kind === 'rail') rails.set(feed.rail.localId, feed.rail);
+      consumed.add(feedKey(feed));
+    }
+    addEdge({ from: junction, to: `o${element.localId}`, tree: { kind: 'element', element } });
+  }
+  // An output that feeds nothing ends at the right rail, drawn or not: a coil needs no wire after it.
+  for (const element of members) {
+    const out = `o${element.localId}`;
+    if (toRightRail.has(element.localId) || !consumed.has(out)) addEdge({ from: out, to: SINK, tree: { kind: 'wire' } });
+  }
+
+  const reduced = reduceEdges(edges);
+  const first = members[0] as PowerElement;
+  if (reduced === null) {
+    const involved = members.map((m) => m.localId).join(', ');
+    return fail(
+      `the rung that starts at ${first.label} is not series-parallel: its wires cross between branches (elements ${involved}), which a Rungwright rung cannot draw; redraw it as series and parallel branches`,
+    );
+  }
+  if (depth(reduced) > MAX_NESTING) return fail(`the rung that starts at ${first.label} nests branches more than ${MAX_NESTING} deep`);
+  const network = ordered(reduced);
+  return ok({
+    network,
+    members,
+    rails: [...rails.values()],
+    y: Math.min(...members.map((m) => m.y)),
+    firstLocalId: first.localId,
+  });
+}
+
+/**
+ * Merge series and parallel edges until nothing changes. Returns the tree of the single edge
+ * left from the source to the sink, or `null` when the graph is not series-parallel.
+ */
+function reduceEdges(edges: Map<number, Edge>): Tree | null {
+  const outOf = new Map<string, Set<number>>();
+  const into = new Map<string, Set<number>>();
+  const link = (id: number, edge: Edge): void => {
+    edges.set(id, edge);
+    if (!outOf.has(edge.from)) outOf.set(edge.from, new Set());
+    if (!into.has(edge.to)) into.set(edge.to, new Set());
+    outOf.get(edge.from)?.add(id);
+    into.get(edge.to)?.add(id);
+  };
+  const unlink = (id: number): Edge => {
+    const edge = edges.get(id) as Edge;
+    edges.delete(id);
+    outOf.get(edge.from)?.delete(id);
+    into.get(edge.to)?.delete(id);
+    return edge;
+  };
+  let nextId = Math.max(-1, ...edges.keys()) + 1;
+  for (const [id, edge] of [...edges]) link(id, edge);
+
+  const work = new Set<string>([...outOf.keys(), ...into.keys()]);
+  while (work.size > 0) {
+    const node = work.values().next().value as string;
+    work.delete(node);
+    // Parallel: edges leaving this node for the same node become one.
+    const byTarget = new Map<string, number[]>();
+    for (const id of outOf.get(node) ?? []) {
+      const to = (edges.get(id) as Edge).to;
+      byTarget.set(to, [...(byTarget.get(to) ?? []), id]);
+    }
+    for (const [to, ids] of byTarget) {
+      if (ids.length < 2) continue;
+      const trees = ids.map((id) => unlink(id).tree);
+      link(nextId, { from: node, to, tree: parallelOf(trees) });
+      nextId += 1;
+      work.add(node);
+      work.add(to);
+    }
+    // Series: a junction with one way in and one way out disappears.
+    const ins = into.get(node);
+    const outs = outOf.get(node);
+    if (node !== SOURCE && node !== SINK && ins?.size === 1 && outs?.size === 1) {
+      const before = unlink(ins.values().next().value as number);
+      const after = unlink(outs.values().next().value as number);
+      link(nextId, { from: before.from, to: after.to, tree: seriesOf([before.tree, after.tree]) });
+      nextId += 1;
+      work.add(before.from);
+      work.add(after.to);
+    }
+  }
+  const left = [...edges.values()];
+  if (left.length !== 1) return null;
+  const only = left[0] as Edge;
+  return only.from === SOURCE && only.to === SINK ? only.tree : null;
+}
+
+function seriesOf(parts: Tree[]): Tree {
+  const items = parts.flatMap((t) => (t.kind === 'series' ? t.items : t.kind === 'wire' ? [] : [t]));
+  if (items.length === 0) return { kind: 'wire' };
+  if (items.length === 1) return items[0] as Tree;
+  return { kind: 'series', items };
+}
+
+/** Parallel branches, flattened; several empty wires side by side are one. */
+function parallelOf(parts: Tree[]): Tree {
+  const flat = parts.flatMap((t) => (t.kind === 'parallel' ? t.branches : [t]));
+  const solid = flat.filter((t) => t.kind !== 'wire');
+  const branches = solid.length < flat.length ? [...solid, { kind: 'wire' } as Tree] : solid;
+  if (branches.length === 1) return branches[0] as Tree;
+  return { kind: 'parallel', branches };
+}
+
+/** Branches top to bottom by position, then localId; an empty wire last (it has no position). */
+function ordered(tree: Tree): Tree {
+  if (tree.kind === 'series') return { kind: 'series', items: tree.items.map(ordered) };
+  if (tree.kind !== 'parallel') return tree;
+  const branches = tree.branches.map(ordered);
+  const keyed = branches.map((branch) => ({ branch, ...placement(branch) }));
+  keyed.sort((a, b) => a.y - b.y || a.localId - b.localId);
+  return { kind: 'parallel', branches: keyed.map((k) => k.branch) };
+}
+
+function placement(tree: Tree): { y: number; localId: number } {
+  const elements: PowerElement[] = [];
+  const collect = (t: Tree): void => {
+    if (t.kind === 'element') elements.push(t.element);
+    else if (t.kind === 'series') t.items.forEach(collect);
+    else if (t.kind === 'parallel') t.branches.forEach(collect);
+  };
+  collect(tree);
+  if (elements.length === 0) return { y: Number.POSITIVE_INFINITY, localId: Number.POSITIVE_INFINITY };
+  return { y: Math.min(...elements.map((e) => e.y)), localId: Math.min(...elements.map((e) => e.localId)) };
+}
+
+function depth(tree: Tree): number {
+  if (tree.kind === 'series') return 1 + Math.max(0, ...tree.items.map(depth));
+  if (tree.kind === 'parallel') return 1 + Math.max(0, ...tree.branches.map(depth));
+  return 0;
+}
