@@ -10,11 +10,19 @@ import type { Database } from './db/client';
 import type { Mailer } from './mail/mailer';
 import type { AppContext } from './context';
 import { readVersion } from './version';
+import { DEFAULT_SCRYPT, type ScryptParams } from './auth/passwords';
 import { createLogger, requestLogging } from './http/logging';
 import { requireSameOrigin, securityHeaders } from './http/security';
 import { apiNotFound, errorHandler, sendFailure } from './http/errorHandler';
 import { clientFiles } from './http/clientFiles';
 import { healthRouter } from './routes/health';
+import { authRouter } from './routes/auth';
+import { adminRouter } from './routes/admin';
+import { programsRouter } from './routes/programs';
+import { classesRouter } from './routes/classes';
+import { uploadsRouter } from './routes/uploads';
+import { authenticate } from './http/authenticate';
+import { requireJsonBody } from './http/reply';
 
 /** What `createApp` needs. */
 export interface AppDependencies {
@@ -27,6 +35,8 @@ export interface AppDependencies {
   logger?: Logger;
   /** Signs session tokens (HS256); see `auth/sessionKey.ts`. */
   sessionKey: Uint8Array;
+  /** Cost of new password hashes; defaults to `DEFAULT_SCRYPT`. */
+  passwordParams?: ScryptParams;
 }
 
 /** Builds the app: security headers, logging, the API under `/api`, then the client. */
@@ -41,6 +51,7 @@ export function createApp(deps: AppDependencies): Express {
     logger,
     version: readVersion(),
     sessionKey: deps.sessionKey,
+    passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
   };
 
   const app = express();
@@ -51,8 +62,16 @@ export function createApp(deps: AppDependencies): Express {
 
   const api = express.Router();
   api.use(requireSameOrigin);
-  api.use(express.json({ limit: '1mb' }));
+  api.use(authenticate(ctx));
   api.use(healthRouter(ctx));
+  // Uploads read multipart bodies, so they come before the JSON-only rule.
+  api.use(uploadsRouter(ctx));
+  api.use(requireJsonBody);
+  api.use(express.json({ limit: '1mb' }));
+  api.use(authRouter(ctx));
+  api.use(adminRouter(ctx));
+  api.use(programsRouter(ctx));
+  api.use(classesRouter(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

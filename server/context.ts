@@ -4,6 +4,7 @@ import type { Config } from './config';
 import type { Clock } from './clock';
 import type { Db } from './db/client';
 import type { Mailer } from './mail/mailer';
+import type { ScryptParams } from './auth/passwords';
 
 export interface AppContext {
   orm: Db;
@@ -14,4 +15,6 @@ export interface AppContext {
   logger: Logger;
   version: string;
   sessionKey: Uint8Array;
+  /** Cost of new password hashes (tests lower it; stored hashes carry their own). */
+  passwordParams: ScryptParams;
 }

@@ -14,6 +14,10 @@ import { openMailer } from '../../../server/mail/openMailer';
 import type { Mailer } from '../../../server/mail/mailer';
 import { createLogger } from '../../../server/http/logging';
 import { createFakeClock, type FakeClock } from './fakeClock';
+import type { ScryptParams } from '../../../server/auth/passwords';
+
+/** Cheap hashes keep tests fast; the production cost is measured in the benchmark, not here. */
+export const TEST_SCRYPT: ScryptParams = { N: 1024, r: 8, p: 1 };
 
 export interface TestApp {
   server: Server;
@@ -48,6 +52,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     config,
     logger: createLogger('silent'),
     sessionKey: new TextEncoder().encode('test-session-key-0123456789abcdef'),
+    passwordParams: TEST_SCRYPT,
   });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));

@@ -1,0 +1,55 @@
+/**
+ * Sessions: a JWT (HS256, jose) in an httpOnly, SameSite=Lax cookie, Secure outside development,
+ * valid 8 h. Times come from the injected clock.
+ */
+import { SignJWT, jwtVerify } from 'jose';
+import type { Response } from 'express';
+import type { Config } from '../config';
+
+export const SESSION_COOKIE = 'rw_session';
+/** 8 hours, in seconds: a working day at the bench. */
+export const SESSION_SECONDS = 8 * 60 * 60;
+const ISSUER = 'rungwright';
+
+export async function signSession(userId: string, key: Uint8Array, now: Date): Promise<string> {
+  const iat = Math.floor(now.getTime() / 1000);
+  return new SignJWT({})
+    .setProtectedHeader({ alg: 'HS256' })
+    .setSubject(userId)
+    .setIssuer(ISSUER)
+    .setIssuedAt(iat)
+    .setExpirationTime(iat + SESSION_SECONDS)
+    .sign(key);
+}
+
+/** The user id in a valid, unexpired token; null for anything else (never throws). */
+export async function verifySession(token: string, key: Uint8Array, now: Date): Promise<string | null> {
+  try {
+    const { payload } = await jwtVerify(token, key, { issuer: ISSUER, algorithms: ['HS256'], currentDate: now });
+    return typeof payload.sub === 'string' ? payload.sub : null;
+  } catch {
+    return null;
+  }
+}
+
+function cookieOptions(config: Config) {
+  return { httpOnly: true, sameSite: 'lax' as const, secure: config.NODE_ENV !== 'development', path: '/' };
+}
+
+export function setSessionCookie(res: Response, token: string, config: Config): void {
+  res.cookie(SESSION_COOKIE, token, { ...cookieOptions(config), maxAge: SESSION_SECONDS * 1000 });
+}
+
+export function clearSessionCookie(res: Response, config: Config): void {
+  res.clearCookie(SESSION_COOKIE, cookieOptions(config));
+}
+
+/** The session token from a Cookie header (no cookie-parser needed for one cookie). */
+export function readSessionCookie(header: string | undefined): string | null {
+  if (!header) return null;
+  for (const part of header.split(';')) {
+    const eq = part.indexOf('=');
+    if (eq > 0 && part.slice(0, eq).trim() === SESSION_COOKIE) return decodeURIComponent(part.slice(eq + 1).trim());
+  }
+  return null;
+}

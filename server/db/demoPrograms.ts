@@ -1,0 +1,66 @@
+/**
+ * Demo programs for the Larch Hollow Timber Co. reversing conveyor (invented scenario, demo data).
+ * Addresses follow the default `reversing-conveyor` panel layout in DESIGN.md.
+ */
+import { PROGRAM_FORMAT, PROGRAM_VERSION, type Element, type Program, type Tag } from '@shared/ladder/schema';
+
+const no = (id: string, operand: string): Element => ({ kind: 'contact', id, variant: 'no', operand });
+const nc = (id: string, operand: string): Element => ({ kind: 'contact', id, variant: 'nc', operand });
+const coil = (id: string, operand: string): Element => ({ kind: 'coil', id, variant: 'coil', operand });
+
+const CONVEYOR_TAGS: Tag[] = [
+  { name: 'S1_Stop', address: '%IX1', comment: 'Stop, red, NC (reads TRUE at rest)' },
+  { name: 'S2_Fwd', address: '%IX2', comment: 'Forward, green, NO' },
+  { name: 'S3_Rev', address: '%IX3', comment: 'Reverse, black, NO' },
+  { name: 'K1_Fwd', address: '%QX1', comment: 'Forward contactor coil' },
+  { name: 'K2_Rev', address: '%QX2', comment: 'Reverse contactor coil' },
+  { name: 'P2_Red', address: '%QX5', comment: 'Red lamp: stopped' },
+];
+
+function program(title: string, description: string, rungs: Program['rungs']): Program {
+  return { format: PROGRAM_FORMAT, version: PROGRAM_VERSION, title, description, tags: CONVEYOR_TAGS, rungs };
+}
+
+/** Three-wire start/stop: the forward contactor seals itself in through its own output. */
+export const THREE_WIRE_DEMO: Program = program(
+  'Three-wire start/stop (demo)',
+  'Demo: Larch Hollow Timber Co. conveyor, forward only. S1 is a normally closed button, so the NO contact on %IX1 passes power at rest.',
+  [
+    {
+      id: 'r1',
+      comment: 'Start forward; seal in; stop breaks the seal',
+      network: { kind: 'series', id: 's1', items: [no('c1', 'S1_Stop'), { kind: 'parallel', id: 'p1', branches: [no('c2', 'S2_Fwd'), no('c3', 'K1_Fwd')] }, coil('q1', 'K1_Fwd')] },
+    },
+  ],
+);
+
+/** Forward/reverse with electrical interlocks and a red "stopped" lamp. */
+export const REVERSING_DEMO: Program = program(
+  'Forward/reverse with interlocks (demo)',
+  'Demo: Larch Hollow Timber Co. reversing conveyor. Each direction is sealed in and blocked while the other runs.',
+  [
+    {
+      id: 'r1',
+      comment: 'Forward, interlocked against reverse',
+      network: {
+        kind: 'series',
+        id: 's1',
+        items: [no('c1', 'S1_Stop'), { kind: 'parallel', id: 'p1', branches: [no('c2', 'S2_Fwd'), no('c3', 'K1_Fwd')] }, nc('c4', 'K2_Rev'), coil('q1', 'K1_Fwd')],
+      },
+    },
+    {
+      id: 'r2',
+      comment: 'Reverse, interlocked against forward',
+      network: {
+        kind: 'series',
+        id: 's2',
+        items: [no('c5', 'S1_Stop'), { kind: 'parallel', id: 'p2', branches: [no('c6', 'S3_Rev'), no('c7', 'K2_Rev')] }, nc('c8', 'K1_Fwd'), coil('q2', 'K2_Rev')],
+      },
+    },
+    {
+      id: 'r3',
+      comment: 'Red lamp while neither direction runs',
+      network: { kind: 'series', id: 's3', items: [nc('c9', 'K1_Fwd'), nc('c10', 'K2_Rev'), coil('q3', 'P2_Red')] },
+    },
+  ],
+);

@@ -1,0 +1,83 @@
+/** One-time tokens (hashed) for invitations and password resets. */
+import { and, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import type { Db } from './client';
+import { oneTimeTokens, type OneTimeTokenRow } from './schema';
+
+export type OneTimeToken = OneTimeTokenRow;
+
+export interface NewToken {
+  kind: OneTimeToken['kind'];
+  tokenHash: string;
+  email: string;
+  userId?: string | null;
+  role?: OneTimeToken['role'];
+  classId?: string | null;
+  invitedName?: string | null;
+  expiresAt: Date;
+  now: Date;
+}
+
+export async function insertToken(db: Db, t: NewToken): Promise<OneTimeToken> {
+  const [row] = await db
+    .insert(oneTimeTokens)
+    .values({
+      kind: t.kind,
+      tokenHash: t.tokenHash,
+      email: t.email,
+      userId: t.userId ?? null,
+      role: t.role ?? null,
+      classId: t.classId ?? null,
+      invitedName: t.invitedName ?? null,
+      expiresAt: t.expiresAt,
+      createdAt: t.now,
+    })
+    .returning();
+  return row;
+}
+
+/** An unused, unexpired token of this kind. */
+export async function findUsableToken(db: Db, kind: OneTimeToken['kind'], tokenHash: string, now: Date): Promise<OneTimeToken | null> {
+  const rows = await db
+    .select()
+    .from(oneTimeTokens)
+    .where(and(eq(oneTimeTokens.kind, kind), eq(oneTimeTokens.tokenHash, tokenHash), isNull(oneTimeTokens.usedAt), gt(oneTimeTokens.expiresAt, now)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+/** Marks a token used; false if it was used meanwhile (single use, even under a race). */
+export async function markTokenUsed(db: Db, id: string, now: Date): Promise<boolean> {
+  const rows = await db
+    .update(oneTimeTokens)
+    .set({ usedAt: now })
+    .where(and(eq(oneTimeTokens.id, id), isNull(oneTimeTokens.usedAt)))
+    .returning({ id: oneTimeTokens.id });
+  return rows.length === 1;
+}
+
+/** Invitations to a class, newest first. */
+export async function listClassInvitations(db: Db, classId: string): Promise<OneTimeToken[]> {
+  return db
+    .select()
+    .from(oneTimeTokens)
+    .where(and(eq(oneTimeTokens.kind, 'invite'), eq(oneTimeTokens.classId, classId)))
+    .orderBy(desc(oneTimeTokens.createdAt));
+}
+
+/** True when an unused, unexpired invitation exists for this e-mail and class. */
+export async function hasOpenClassInvitation(db: Db, classId: string, email: string, now: Date): Promise<boolean> {
+  const rows = await db
+    .select({ id: oneTimeTokens.id })
+    .from(oneTimeTokens)
+    .where(
+      and(
+        eq(oneTimeTokens.kind, 'invite'),
+        eq(oneTimeTokens.classId, classId),
+        sql`lower(${oneTimeTokens.email}) = lower(${email})`,
+        isNull(oneTimeTokens.usedAt),
+        gt(oneTimeTokens.expiresAt, now),
+      ),
+    )
+    .limit(1);
+  return rows.length === 1;
+}

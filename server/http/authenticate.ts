@@ -1,0 +1,50 @@
+/**
+ * Who is asking: reads the session cookie once per request and loads the user (so a removed
+ * account or a changed role takes effect at once). Routes then say who may call them with
+ * `requireUser` / `requireRole`; what a user may do with one resource is the policies' job.
+ */
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
+import type { AppContext } from '../context';
+import { readSessionCookie, verifySession } from '../auth/session';
+import { findUserById, type User } from '../db/users';
+import { ApiError } from './failure';
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Request {
+      /** The signed-in user, when there is one. */
+      user?: User;
+    }
+  }
+}
+
+export function authenticate(ctx: AppContext): RequestHandler {
+  return async (req: Request, _res: Response, next: NextFunction) => {
+    const token = readSessionCookie(req.headers.cookie);
+    if (token) {
+      const userId = await verifySession(token, ctx.sessionKey, ctx.clock.now());
+      if (userId) req.user = (await findUserById(ctx.orm, userId)) ?? undefined;
+    }
+    next();
+  };
+}
+
+/** The signed-in user; routes behind `requireUser` call this. */
+export function currentUser(req: Request): User {
+  if (!req.user) throw new ApiError({ code: 'unauthenticated', message: 'Please sign in first' });
+  return req.user;
+}
+
+export const requireUser: RequestHandler = (req, _res, next) => {
+  next(req.user ? undefined : new ApiError({ code: 'unauthenticated', message: 'Please sign in first' }));
+};
+
+export function requireRole(...roles: User['role'][]): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.user) next(new ApiError({ code: 'unauthenticated', message: 'Please sign in first' }));
+    else if (!roles.includes(req.user.role)) {
+      next(new ApiError({ code: 'forbidden', message: `Only ${roles.join(' or ')} accounts can do this` }));
+    } else next();
+  };
+}

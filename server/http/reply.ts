@@ -1,0 +1,35 @@
+/** Route helpers: parse a request part with zod into an Outcome, and answer an Outcome. */
+import type { RequestHandler, Response } from 'express';
+import { z } from 'zod';
+import { describeFields, failure, fieldsFromZod, success, type Outcome } from './failure';
+import { sendFailure } from './errorHandler';
+
+/** Parses `value` (a body, query or params) with `schema`; a failure names each bad field. */
+export function parse<S extends z.ZodType>(schema: S, value: unknown): Outcome<z.infer<S>> {
+  const parsed = schema.safeParse(value ?? {});
+  if (parsed.success) return success(parsed.data);
+  const fields = fieldsFromZod(parsed.error);
+  return failure('validation', describeFields(fields), { fields });
+}
+
+/** Parses a route's `:id`-style parameter; anything that is not a uuid cannot exist (404). */
+export function parseId(value: unknown, what: string): Outcome<string> {
+  const parsed = z.uuid().safeParse(value);
+  return parsed.success ? success(parsed.data) : failure('not_found', `No ${what} with that id`);
+}
+
+/** Sends the value with `status` (204 sends no body), or the failure. */
+export function reply<T>(res: Response, outcome: Outcome<T>, status = 200, body: (value: T) => unknown = (v) => v): void {
+  if (!outcome.ok) sendFailure(res, outcome.failure);
+  else if (status === 204) res.status(204).end();
+  else res.status(status).json(body(outcome.value));
+}
+
+/** 415 for a state-changing request whose body is not JSON (uploads are mounted before this). */
+export const requireJsonBody: RequestHandler = (req, res, next) => {
+  if (req.method !== 'GET' && req.method !== 'HEAD' && req.is('application/json') === false) {
+    sendFailure(res, { code: 'unsupported_media_type', message: `Send JSON (Content-Type: application/json), not ${req.get('content-type') ?? 'an untyped body'}` });
+    return;
+  }
+  next();
+};

@@ -1,0 +1,146 @@
+/**
+ * Programs and versions: every save is a new immutable version based on the version the editor
+ * loaded; if the head moved on, the save is refused with the current head (409), never merged or
+ * overwritten. Access is decided by `programPolicy` before anything is read or written.
+ */
+import type { CreateProgramRequest, DiffResponse, ProgramDetail, ProgramSummary, RestoreVersionRequest, SaveVersionRequest, VersionDetail, VersionSummary } from '@shared/api';
+import type { Program as ProgramDocument } from '@shared/ladder/schema';
+import { PROGRAM_FORMAT, PROGRAM_VERSION } from '@shared/ladder/schema';
+import type { AppContext } from '../context';
+import type { User } from '../db/users';
+import * as db from '../db/programs';
+import { failure, success, type Outcome } from '../http/failure';
+import { programAccess, type ProgramAction } from '../policies/programPolicy';
+import { refusal } from '../policies/access';
+import { checkProgramDocument, diffProgramDocuments } from './ladderDocuments';
+import { programView, versionDetailView, versionView } from './views';
+
+/** A new program's first document when none is given: one empty rung. */
+export function emptyDocument(title: string): ProgramDocument {
+  return {
+    format: PROGRAM_FORMAT,
+    version: PROGRAM_VERSION,
+    title,
+    description: '',
+    tags: [],
+    rungs: [{ id: 'r1', comment: '', network: { kind: 'series', id: 's1', items: [] } }],
+  };
+}
+
+/** Loads a program the actor may act on, or the failure to answer (404 hides, 403 refuses). */
+async function authorised(ctx: AppContext, actor: User, programId: string, action: ProgramAction): Promise<Outcome<db.Program>> {
+  const program = await db.findProgram(ctx.orm, programId);
+  if (!program) return failure('not_found', 'No program with that id');
+  return refusal(await programAccess(ctx.orm, actor, program.ownerId, action), 'program') ?? success(program);
+}
+
+export async function listPrograms(ctx: AppContext, actor: User, ownerId: string | undefined): Promise<Outcome<ProgramSummary[]>> {
+  const owner = ownerId ?? actor.id;
+  const denied = refusal(await programAccess(ctx.orm, actor, owner, 'read'), 'user');
+  if (denied) return denied;
+  return success((await db.listProgramsByOwner(ctx.orm, owner)).map(programView));
+}
+
+export async function createProgram(ctx: AppContext, actor: User, req: CreateProgramRequest, demo = false): Promise<Outcome<ProgramDetail>> {
+  const checked = checkProgramDocument(req.document ?? emptyDocument(req.title));
+  if (!checked.ok) return checked;
+  const { program, version } = await db.insertProgram(ctx.orm, {
+    ownerId: actor.id,
+    title: req.title,
+    labId: req.labId ?? null,
+    demo,
+    document: checked.value,
+    message: req.message || 'Created',
+    authorId: actor.id,
+    now: ctx.clock.now(),
+  });
+  return success({ program: programView(program), head: versionDetailView(version) });
+}
+
+export async function getProgram(ctx: AppContext, actor: User, programId: string): Promise<Outcome<ProgramDetail>> {
+  const found = await authorised(ctx, actor, programId, 'read');
+  if (!found.ok) return found;
+  const head = await db.findVersion(ctx.orm, programId, found.value.headVersion);
+  if (!head) return failure('internal', 'The program has no head version');
+  return success({ program: programView(found.value), head: versionDetailView(head) });
+}
+
+export async function renameProgram(ctx: AppContext, actor: User, programId: string, title: string): Promise<Outcome<ProgramSummary>> {
+  const found = await authorised(ctx, actor, programId, 'write');
+  if (!found.ok) return found;
+  const renamed = await db.renameProgram(ctx.orm, programId, title, ctx.clock.now());
+  return renamed ? success(programView(renamed)) : failure('not_found', 'No program with that id');
+}
+
+export async function deleteProgram(ctx: AppContext, actor: User, programId: string): Promise<Outcome<null>> {
+  const found = await authorised(ctx, actor, programId, 'write');
+  if (!found.ok) return found;
+  await db.deleteProgram(ctx.orm, programId);
+  return success(null);
+}
+
+async function append(ctx: AppContext, actor: User, programId: string, baseVersion: number, document: unknown, message: string): Promise<Outcome<VersionDetail>> {
+  const checked = checkProgramDocument(document);
+  if (!checked.ok) return checked;
+  const result = await db.appendVersion(ctx.orm, { programId, baseVersion, document: checked.value, message, authorId: actor.id, now: ctx.clock.now() });
+  if (result.ok) return success(versionDetailView(result.version));
+  if (!result.head) return failure('not_found', 'No program with that id');
+  return failure('version_conflict', `Version ${result.head.number} was saved after version ${baseVersion}; load it and apply your change again`, {
+    details: { head: versionView(result.head) },
+  });
+}
+
+export async function saveVersion(ctx: AppContext, actor: User, programId: string, req: SaveVersionRequest): Promise<Outcome<VersionDetail>> {
+  const found = await authorised(ctx, actor, programId, 'write');
+  if (!found.ok) return found;
+  return append(ctx, actor, programId, req.baseVersion, req.document, req.message || `Saved on version ${req.baseVersion}`);
+}
+
+export async function listVersions(ctx: AppContext, actor: User, programId: string): Promise<Outcome<VersionSummary[]>> {
+  const found = await authorised(ctx, actor, programId, 'read');
+  if (!found.ok) return found;
+  return success((await db.listVersions(ctx.orm, programId)).map(versionView));
+}
+
+async function loadVersion(ctx: AppContext, programId: string, number: number): Promise<Outcome<db.ProgramVersion>> {
+  const version = await db.findVersion(ctx.orm, programId, number);
+  return version ? success(version) : failure('not_found', `This program has no version ${number}`);
+}
+
+export async function getVersion(ctx: AppContext, actor: User, programId: string, number: number): Promise<Outcome<VersionDetail>> {
+  const found = await authorised(ctx, actor, programId, 'read');
+  if (!found.ok) return found;
+  const version = await loadVersion(ctx, programId, number);
+  return version.ok ? success(versionDetailView(version.value)) : version;
+}
+
+/** The version itself, for export. */
+export async function getVersionDocument(ctx: AppContext, actor: User, programId: string, number: number): Promise<Outcome<{ program: db.Program; document: ProgramDocument }>> {
+  const found = await authorised(ctx, actor, programId, 'read');
+  if (!found.ok) return found;
+  const version = await loadVersion(ctx, programId, number);
+  if (!version.ok) return version;
+  const checked = checkProgramDocument(version.value.document);
+  return checked.ok ? success({ program: found.value, document: checked.value }) : checked;
+}
+
+export async function diffVersions(ctx: AppContext, actor: User, programId: string, from: number, to: number): Promise<Outcome<DiffResponse>> {
+  const found = await authorised(ctx, actor, programId, 'read');
+  if (!found.ok) return found;
+  const [a, b] = await Promise.all([loadVersion(ctx, programId, from), loadVersion(ctx, programId, to)]);
+  if (!a.ok) return a;
+  if (!b.ok) return b;
+  const before = checkProgramDocument(a.value.document);
+  const after = checkProgramDocument(b.value.document);
+  if (!before.ok) return before;
+  if (!after.ok) return after;
+  return success({ from, to, rungs: diffProgramDocuments(before.value, after.value) });
+}
+
+export async function restoreVersion(ctx: AppContext, actor: User, programId: string, req: RestoreVersionRequest): Promise<Outcome<VersionDetail>> {
+  const found = await authorised(ctx, actor, programId, 'write');
+  if (!found.ok) return found;
+  const old = await loadVersion(ctx, programId, req.version);
+  if (!old.ok) return old;
+  return append(ctx, actor, programId, req.baseVersion, old.value.document, req.message || `Restored version ${req.version}`);
+}

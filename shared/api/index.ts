@@ -1,0 +1,7 @@
+/** The API contract shared by the server and the client. */
+export * from './errors';
+export * from './health';
+export * from './auth';
+export * from './programs';
+export * from './classes';
+export * from './mail';

@@ -1,0 +1,91 @@
+/** Programs and their immutable versions: request and response bodies. */
+import { z } from 'zod';
+
+/** A program as listed: no document. */
+export const ProgramSummarySchema = z.object({
+  id: z.string(),
+  ownerId: z.string(),
+  title: z.string(),
+  labId: z.string().nullable(),
+  headVersion: z.number().int(),
+  demo: z.boolean(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type ProgramSummary = z.infer<typeof ProgramSummarySchema>;
+
+export const VersionSummarySchema = z.object({
+  number: z.number().int(),
+  message: z.string(),
+  authorId: z.string(),
+  createdAt: z.string(),
+});
+export type VersionSummary = z.infer<typeof VersionSummarySchema>;
+
+/** A version with its document (a `shared/ladder` Program, checked with its schema by the client). */
+export const VersionDetailSchema = VersionSummarySchema.extend({ document: z.unknown() });
+export type VersionDetail = z.infer<typeof VersionDetailSchema>;
+
+/** `GET /api/programs/:id`: the program and its head version. */
+export const ProgramDetailSchema = z.object({ program: ProgramSummarySchema, head: VersionDetailSchema });
+export type ProgramDetail = z.infer<typeof ProgramDetailSchema>;
+
+export const ProgramListSchema = z.object({ programs: z.array(ProgramSummarySchema) });
+export const VersionListSchema = z.object({ versions: z.array(VersionSummarySchema) });
+
+export const ProgramTitleSchema = z.string().trim().min(1, 'a title is needed').max(200, 'a title is at most 200 characters');
+export const VersionMessageSchema = z.string().trim().max(500, 'a message is at most 500 characters');
+
+/** `POST /api/programs`: a new program; without a document it starts empty. */
+export const CreateProgramRequestSchema = z.object({
+  title: ProgramTitleSchema,
+  document: z.unknown().optional(),
+  message: VersionMessageSchema.optional(),
+  labId: z.uuid('not a lab id').optional(),
+});
+export type CreateProgramRequest = z.infer<typeof CreateProgramRequestSchema>;
+
+export const RenameProgramRequestSchema = z.object({ title: ProgramTitleSchema });
+
+/** `POST /api/programs/:id/versions`: a save, based on the version the editor loaded. */
+export const SaveVersionRequestSchema = z.object({
+  baseVersion: z.number({ error: 'baseVersion must be the version number the edit started from' }).int().min(1),
+  document: z.unknown().refine((v) => v !== undefined, 'the program document is missing'),
+  message: VersionMessageSchema.default(''),
+});
+export type SaveVersionRequest = z.infer<typeof SaveVersionRequestSchema>;
+
+/** `POST /api/programs/:id/restore`: a new version copying an old one. */
+export const RestoreVersionRequestSchema = z.object({
+  version: z.number().int().min(1),
+  baseVersion: z.number().int().min(1),
+  message: VersionMessageSchema.optional(),
+});
+export type RestoreVersionRequest = z.infer<typeof RestoreVersionRequestSchema>;
+
+/** `details` of a `version_conflict` (409): the head that moved on. */
+export const VersionConflictDetailsSchema = z.object({ head: VersionSummarySchema });
+
+export const DiffQuerySchema = z.object({
+  from: z.coerce.number().int().min(1, 'from must be a version number'),
+  to: z.coerce.number().int().min(1, 'to must be a version number'),
+});
+
+/** One rung's change between two versions, with the rung's one-line text form. */
+export const RungDiffSchema = z.object({
+  kind: z.enum(['added', 'removed', 'changed', 'same']),
+  rungId: z.string(),
+  before: z.string().optional(),
+  after: z.string().optional(),
+});
+export type RungDiffView = z.infer<typeof RungDiffSchema>;
+
+export const DiffResponseSchema = z.object({ from: z.number(), to: z.number(), rungs: z.array(RungDiffSchema) });
+export type DiffResponse = z.infer<typeof DiffResponseSchema>;
+
+export const ExportQuerySchema = z.object({ format: z.enum(['json', 'plcopen']).default('json') });
+
+/** `POST /api/programs/import` answer. */
+export const ImportResponseSchema = z.object({ program: ProgramSummarySchema, warnings: z.array(z.string()) });
+
+export const OwnerQuerySchema = z.object({ ownerId: z.uuid('not a user id').optional() });
