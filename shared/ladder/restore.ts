@@ -1,0 +1,168 @@
+/**
+ * Loading a program document: the one function that turns untrusted JSON into a `Program`
+ * (client and server alike). It applies the schema's defaults, refuses what the schema refuses
+ * with a message naming the place (`rungs[2].network.items[0]: unknown element kind "lamp"`) and
+ * checks that ids are unique. It does not rearrange networks: what was saved is what loads.
+ */
+import { ID_PREFIX, freshId } from './ids';
+import { fail, ok, type Result } from './result';
+import {
+  BlockSchema,
+  CoilSchema,
+  ContactSchema,
+  ParallelSchema,
+  PROGRAM_FORMAT,
+  PROGRAM_VERSION,
+  ProgramSchema,
+  SeriesSchema,
+  type NetworkNode,
+  type Program,
+} from './schema';
+import { visitNodes } from './walk';
+import type { z } from 'zod';
+
+export { freshId };
+
+/** Schemas of network nodes by kind, to explain a node that matches none of them. */
+const NODE_SCHEMAS = {
+  contact: ContactSchema,
+  coil: CoilSchema,
+  block: BlockSchema,
+  series: SeriesSchema,
+  parallel: ParallelSchema,
+} as const satisfies Record<NetworkNode['kind'], z.ZodType>;
+
+const MAX_REPORTED = 5;
+
+type PathKey = PropertyKey;
+
+/** `rungs[2].network.items[0]`; the empty path is "the document". */
+export function formatIssuePath(path: readonly PathKey[]): string {
+  let text = '';
+  for (const key of path) {
+    if (typeof key === 'number') text += `[${key}]`;
+    else text += text === '' ? String(key) : `.${String(key)}`;
+  }
+  return text === '' ? 'the document' : text;
+}
+
+function valueAt(root: unknown, path: readonly PathKey[]): unknown {
+  let value = root;
+  for (const key of path) {
+    if (value === null || typeof value !== 'object') return undefined;
+    value = (value as Record<PropertyKey, unknown>)[key];
+  }
+  return value;
+}
+
+/** One readable line per zod issue, digging into unions by the node's `kind`. */
+function describeIssues(issues: readonly z.core.$ZodIssue[], root: unknown, prefix: readonly PathKey[]): string[] {
+  return issues.flatMap((issue) => describeIssue(issue, root, prefix));
+}
+
+function describeIssue(issue: z.core.$ZodIssue, root: unknown, prefix: readonly PathKey[]): string[] {
+  const path = [...prefix, ...issue.path];
+  const where = formatIssuePath(path);
+  if (issue.code === 'invalid_union') {
+    const value = valueAt(root, path);
+    if (value === null || typeof value !== 'object' || Array.isArray(value)) {
+      return [`${where}: expected a network node (an object with a "kind"), got ${describeValue(value)}`];
+    }
+    const kind = (value as { kind?: unknown }).kind;
+    if (typeof kind !== 'string') return [`${where}: a network node needs a "kind" (contact, coil, block, series or parallel)`];
+    if (!(kind in NODE_SCHEMAS)) {
+      return [`${where}: unknown element kind "${kind}" (expected contact, coil, block, series or parallel)`];
+    }
+    const schema = NODE_SCHEMAS[kind as keyof typeof NODE_SCHEMAS];
+    const parsed = schema.safeParse(value);
+    if (!parsed.success) return describeIssues(parsed.error.issues, root, path);
+    return [`${where}: ${issue.message}`];
+  }
+  if (path.length === 1 && path[0] === 'format') {
+    return [`format: not a Rungwright program (expected "${PROGRAM_FORMAT}")`];
+  }
+  if (path.length === 1 && path[0] === 'version') {
+    const found = valueAt(root, path);
+    return [`version: this document is version ${describeValue(found)}; Rungwright reads version ${PROGRAM_VERSION}`];
+  }
+  if (issue.code === 'invalid_value' && path.at(-1) === 'variant') {
+    return [`${where}: unknown variant ${describeValue(valueAt(root, path))} (expected ${issue.values.join(', ')})`];
+  }
+  if (issue.code === 'invalid_value' && path.at(-1) === 'type') {
+    return [`${where}: unknown block type ${describeValue(valueAt(root, path))} (expected ${issue.values.join(', ')})`];
+  }
+  if (issue.code === 'invalid_type' && valueAt(root, path) === undefined) {
+    return [`${where}: missing (expected ${issue.expected})`];
+  }
+  return [`${where}: ${issue.message}`];
+}
+
+function describeValue(value: unknown): string {
+  if (value === undefined) return 'nothing';
+  if (value === null) return 'null';
+  if (Array.isArray(value)) return 'a list';
+  if (typeof value === 'string') return JSON.stringify(value.length > 40 ? `${value.slice(0, 40)}…` : value);
+  if (typeof value === 'object') return 'an object';
+  return String(value);
+}
+
+function joinProblems(problems: readonly string[]): string {
+  const unique = [...new Set(problems)];
+  const shown = unique.slice(0, MAX_REPORTED).join('; ');
+  const more = unique.length - MAX_REPORTED;
+  return more > 0 ? `${shown} (and ${more} more)` : shown;
+}
+
+/** The first repeated id, with where both uses are, or null. */
+function findDuplicateId(program: Program): string | null {
+  const seen = new Map<string, string>();
+  for (const [rungIndex, rung] of program.rungs.entries()) {
+    const rungWhere = `rungs[${rungIndex}]`;
+    const entries: Array<[string, string]> = [[rung.id, rungWhere]];
+    visitNodes(rung.network, (node, path) => {
+      entries.push([node.id, `${rungWhere}.network${path.map((i) => `[${i}]`).join('')}`]);
+    });
+    for (const [id, where] of entries) {
+      const first = seen.get(id);
+      if (first !== undefined) return `${where}: duplicate id "${id}" (first used at ${first})`;
+      seen.set(id, where);
+    }
+  }
+  return null;
+}
+
+/** Parse and normalise a program document from JSON data (not text: `JSON.parse` first). */
+export function parseProgram(json: unknown): Result<Program> {
+  if (json === null || typeof json !== 'object' || Array.isArray(json)) {
+    return fail(`the document is not a Rungwright program: expected a JSON object, got ${describeValue(json)}`);
+  }
+  const parsed = ProgramSchema.safeParse(json);
+  if (!parsed.success) return fail(joinProblems(describeIssues(parsed.error.issues, json, [])));
+  const duplicate = findDuplicateId(parsed.data);
+  if (duplicate !== null) return fail(duplicate);
+  return ok(parsed.data);
+}
+
+/** Parse a document from its JSON text, with a clear message when the text is not JSON. */
+export function parseProgramText(text: string): Result<Program> {
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (error) {
+    return fail(`the file is not valid JSON: ${error instanceof Error ? error.message : String(error)}`);
+  }
+  return parseProgram(json);
+}
+
+/** A new program with one empty rung, ready for the editor. */
+export function createEmptyProgram(title?: string): Program {
+  const cleanTitle = title?.trim();
+  return {
+    format: PROGRAM_FORMAT,
+    version: PROGRAM_VERSION,
+    title: cleanTitle ? cleanTitle.slice(0, 200) : 'Untitled program',
+    description: '',
+    tags: [],
+    rungs: [{ id: `${ID_PREFIX.rung}1`, comment: '', network: { kind: 'series', id: `${ID_PREFIX.series}1`, items: [] } }],
+  };
+}
