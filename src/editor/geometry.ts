@@ -52,3 +52,6 @@ export const SLOT_MARK_R = 6;
 /** Zoom limits of the canvas. */
 export const MIN_ZOOM = 0.4;
 export const MAX_ZOOM = 2.5;
+
+/** Where rung comments and text forms start, in line with the left rail. */
+export const NETWORK_TEXT_X = LEFT_RAIL_X;

@@ -1,9 +1,10 @@
 /**
- * The editor's gestures on whole rungs, element fields and tags, as pure `(program, args) =>
+ * The editor's gestures on whole rungs and element fields (tags are edited with the shared
+ * `shared/ladder/edits.ts` operations), as pure `(program, args) =>
  * program` functions; plus fresh ids and the factories that make new elements from the palette.
  */
 import { BLOCK_SPECS, operandInputs } from '@shared/ladder/blocks';
-import type { BlockType, Element, NetworkNode, Program, Rung, Series, Tag } from '@shared/ladder/schema';
+import type { BlockType, Element, NetworkNode, Program, Rung, Series } from '@shared/ladder/schema';
 import { createIdSource, ID_PREFIX } from '@shared/ladder/ids';
 import { allIds, visitNodes } from '@shared/ladder/walk';
 import { updateElement, updateRung } from './networkOps';
@@ -125,57 +126,4 @@ export function setElementComment(program: Program, id: string, comment: string)
 
 export function setTitle(program: Program, title: string): Program {
   return program.title === title ? program : { ...program, title };
-}
-
-/** Add a tag at the end of the table. */
-export function addTag(program: Program, tag: Tag): Program {
-  return { ...program, tags: [...program.tags, tag] };
-}
-
-/** Change a tag's address or comment (its name through `renameTag`). */
-export function updateTag(program: Program, index: number, change: Partial<Pick<Tag, 'address' | 'comment'>>): Program {
-  const tag = program.tags[index];
-  if (!tag) return program;
-  const next = { ...tag, ...change };
-  if (next.address === tag.address && next.comment === tag.comment) return program;
-  const tags = program.tags.slice();
-  tags[index] = next;
-  return { ...program, tags };
-}
-
-export function deleteTag(program: Program, index: number): Program {
-  if (!program.tags[index]) return program;
-  return { ...program, tags: program.tags.filter((_, i) => i !== index) };
-}
-
-/**
- * Rename a tag and every use of it: contact and coil operands, block inputs, and member references
- * `Name.Q` (names compare without regard to case, as IEC 61131-3 identifiers do).
- */
-export function renameTag(program: Program, index: number, name: string): Program {
-  const tag = program.tags[index];
-  if (!tag || tag.name === name) return program;
-  const old = tag.name.toUpperCase();
-  const rename = (operand: string): string => {
-    const trimmed = operand.trim();
-    if (trimmed.toUpperCase() === old) return name;
-    return operand;
-  };
-  const tags = program.tags.slice();
-  tags[index] = { ...tag, name };
-  let next: Program = { ...program, tags };
-  for (const rung of program.rungs) {
-    visitNodes(rung.network, (node) => {
-      if (node.kind === 'contact' || node.kind === 'coil') {
-        const renamed = rename(node.operand);
-        if (renamed !== node.operand) next = setOperand(next, node.id, renamed);
-      } else if (node.kind === 'block') {
-        for (const [input, operand] of Object.entries(node.inputs)) {
-          const renamed = rename(operand);
-          if (renamed !== operand) next = setBlockInput(next, node.id, input, renamed);
-        }
-      }
-    });
-  }
-  return next;
 }

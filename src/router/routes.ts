@@ -1,7 +1,7 @@
 /**
  * The route table, apart from `createRouter` so node-environment tests can import it
  * (createWebHistory needs `location`). Every view is lazy-loaded: the canvas libraries are only
- * fetched on the workbench.
+ * fetched on the workbench. `meta` feeds the access guard (`guards.ts`).
  */
 import type { RouteRecordRaw } from 'vue-router';
 
@@ -11,7 +11,44 @@ export const routes: RouteRecordRaw[] = [
     path: '/sign-in',
     name: 'sign-in',
     component: () => import('../views/SignInView.vue'),
-    meta: { public: true, title: 'Sign in' },
+    meta: { public: true, guestOnly: true, title: 'Sign in' },
+  },
+  {
+    path: '/join',
+    name: 'join',
+    component: () => import('../views/JoinClassView.vue'),
+    meta: { public: true, guestOnly: true, title: 'Join a class' },
+  },
+  {
+    path: '/reset-password',
+    name: 'reset-password',
+    component: () => import('../views/ResetPasswordView.vue'),
+    meta: { public: true, title: 'Reset password' },
+  },
+  {
+    path: '/programs',
+    name: 'programs',
+    component: () => import('../views/ProgramsView.vue'),
+    meta: { title: 'My programs' },
+  },
+  {
+    path: '/programs/:id',
+    name: 'workbench',
+    component: () => import('../views/WorkbenchView.vue'),
+    props: true,
+    meta: { title: 'Workbench' },
+  },
+  {
+    path: '/classes',
+    name: 'classes',
+    component: () => import('../views/ClassesView.vue'),
+    meta: { title: 'Classes' },
+  },
+  {
+    path: '/admin',
+    name: 'admin',
+    component: () => import('../views/AdminView.vue'),
+    meta: { roles: ['admin'], title: 'Administration' },
   },
   {
     path: '/:pathMatch(.*)*',

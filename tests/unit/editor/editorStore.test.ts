@@ -2,7 +2,6 @@ import { beforeEach, describe, expect, it } from 'vitest';
 import { createPinia, setActivePinia } from 'pinia';
 import type { KeyChord } from '@/editor/commands/registry';
 import { findElement } from '@shared/ladder/walk';
-import { renameTag } from '@/editor/programOps';
 import { selectElements, selectRungs, selectSlot } from '@/editor/selection';
 import { useEditorStore } from '@/stores/editor';
 import { coil, no, program, rung, series, threeWire } from './fixtures';
@@ -75,7 +74,7 @@ describe('keyboard commands', () => {
     editor.handleKey(key('C', { shiftKey: true })); // NC contact after it
     editor.handleKey(key('o')); // coil after that
     const items = editor.doc.rungs[0]!.network.items;
-    expect(items.map((i) => (i.kind === 'series' || i.kind === 'parallel' ? i.kind : `${i.kind}:${i.variant}`))).toEqual([
+    expect(items.map((i) => (i.kind === 'contact' || i.kind === 'coil' ? `${i.kind}:${i.variant}` : i.kind))).toEqual([
       'contact:no',
       'contact:nc',
       'coil:coil',
@@ -143,18 +142,5 @@ describe('keyboard commands', () => {
     const editor = useEditorStore();
     editor.load(threeWire());
     expect(editor.handleKey(key('q'))).toBe(false);
-  });
-});
-
-describe('tag renames', () => {
-  it('follows every use of the tag, whatever the case it was typed in', () => {
-    const doc = program(
-      [rung('r1', series('n', no('a', 'start'), no('b', 'S1'), coil('q', 'START')))],
-      [{ name: 'Start', address: '%IX2', comment: '' }],
-    );
-    const renamed = renameTag(doc, 0, 'Forward');
-    expect(renamed.tags[0]!.name).toBe('Forward');
-    const operands = renamed.rungs[0]!.network.items.map((i) => (i.kind === 'contact' || i.kind === 'coil' ? i.operand : ''));
-    expect(operands).toEqual(['Forward', 'S1', 'Forward']);
   });
 });
