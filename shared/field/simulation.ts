@@ -39,6 +39,17 @@ export type SimulationResult =
   | { ok: true; simulation: Simulation; warnings: Diagnostic[] }
   | { ok: false; diagnostics: Diagnostic[]; error: string };
 
+/**
+ * The field's device states, to carry a running panel over to a simulation of an edited program
+ * (the e-stop stays latched, the motor keeps turning). States are immutable, so sharing them is safe.
+ */
+export interface FieldSnapshot {
+  readonly panelId: string;
+  readonly deviceIds: readonly string[];
+  readonly states: readonly unknown[];
+  readonly inputs: readonly DeviceInputs[];
+}
+
 /** The outcome of a device action: done, or why not (also logged as a `refused` event). */
 export type ActionResult = { ok: true } | { ok: false; error: string };
 
@@ -77,6 +88,10 @@ export interface Simulation {
   readonly eventLog: EventLog;
   /** The I/O status table: each input and output with its circuit and the reason in words. */
   explain(): IoExplanation;
+  /** The field's device states (see `FieldSnapshot`). */
+  fieldSnapshot(): FieldSnapshot;
+  /** Put back a field snapshot of the same panel; false, and nothing changed, when it does not fit. */
+  restoreField(snapshot: FieldSnapshot): boolean;
 }
 
 /** Compile the program for the panel's address space and wire it to a fresh field. */
@@ -286,5 +301,24 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     eventsSince: (seq) => log.since(seq),
     eventLog: log,
     explain: () => explainIO({ wiring, runtime, states, params, words, energised: (i) => inputs[i]!.energised, closed, cutReason }),
+    fieldSnapshot: () => ({
+      panelId: wiring.panel.id,
+      deviceIds: devices.map((d) => d.id),
+      states: [...states],
+      inputs: inputs.map((x) => ({ ...x })),
+    }),
+    restoreField(snapshot) {
+      const fits =
+        snapshot.panelId === wiring.panel.id &&
+        snapshot.deviceIds.length === devices.length &&
+        devices.every((d, i) => snapshot.deviceIds[i] === d.id);
+      if (!fits) return false;
+      devices.forEach((_, i) => {
+        states[i] = snapshot.states[i];
+        words[i] = models[i]!.word(states[i], params[i]);
+        Object.assign(inputs[i]!, snapshot.inputs[i]);
+      });
+      return true;
+    },
   };
 }

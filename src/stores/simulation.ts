@@ -1,0 +1,225 @@
+/**
+ * The simulation in the workbench: run, pause, step one scan, cold restart, scan period, speed,
+ * device actions, forces, the trace's picked signals. A thin Pinia adapter (STYLE.md point 9) over
+ * `src/simulation/session.ts` (the state) and `frameLoop.ts` (the pacing); components read the
+ * computed views and call the actions. `tick` changes after every change of the simulation, so the
+ * views recompute exactly then.
+ */
+import { defineStore } from 'pinia';
+import { computed, ref, shallowRef } from 'vue';
+import { DEFAULT_SCAN_MS } from '@shared/engine';
+import { builtInPanel, DEFAULT_PANEL_ID, type ActionArgs, type ActionResult, type DeviceAction, type PanelLayout } from '@shared/field';
+import type { Program } from '@shared/ladder/schema';
+import { browserScheduler, createFrameLoop, type FrameScheduler } from '@/simulation/frameLoop';
+import { createLiveView, type LiveView } from '@/simulation/liveView';
+import type { SimulationSpeed } from '@/simulation/pacing';
+import { createSimulatorSession, type SimulatorSession } from '@/simulation/session';
+
+/** Where the simulation is: never run since the last (re)start, running, or paused. */
+export type SimulationMode = 'stopped' | 'running' | 'paused';
+
+export const useSimulationStore = defineStore('simulation', () => {
+  const session = shallowRef<SimulatorSession | null>(null);
+  const tick = ref(0);
+  const mode = ref<SimulationMode>('stopped');
+  const speed = ref<SimulationSpeed>('real');
+  /** Virtual ms dropped in the latest frame (the page could not keep up); 0 when on time. */
+  const behindMs = ref(0);
+  /** Signals shown in the timing diagram, in order. */
+  const traced = ref<string[]>(['%IX1', '%IX2', '%QX1', '%IX7']);
+  let scheduler: FrameScheduler = browserScheduler();
+
+  const changed = (): void => {
+    tick.value += 1;
+  };
+
+  const loop = createFrameLoop({
+    scheduler: {
+      request: (cb) => scheduler.request(cb),
+      cancel: (h) => scheduler.cancel(h),
+    },
+    speed: () => speed.value,
+    scanMs: () => session.value?.scanMs ?? DEFAULT_SCAN_MS,
+    onFrame(scans, behind) {
+      behindMs.value = behind;
+      session.value?.advance(scans);
+      changed();
+    },
+  });
+
+  const simulation = computed(() => {
+    void tick.value;
+    return session.value?.simulation ?? null;
+  });
+  const panel = computed<PanelLayout | null>(() => session.value?.panel ?? null);
+  const program = computed<Program | null>(() => {
+    void tick.value;
+    return session.value?.program ?? null;
+  });
+  const scanMs = computed(() => {
+    void tick.value;
+    return session.value?.scanMs ?? DEFAULT_SCAN_MS;
+  });
+  const timeMs = computed(() => simulation.value?.timeMs ?? 0);
+  const scanCount = computed(() => simulation.value?.scanCount ?? 0);
+  const devices = computed(() => simulation.value?.devices() ?? []);
+  const io = computed(() => simulation.value?.explain() ?? null);
+  const forces = computed(() => simulation.value?.runtime.forces() ?? new Map<string, boolean>());
+  const log = computed(() => {
+    void tick.value;
+    return session.value?.log ?? [];
+  });
+  const messages = computed(() => {
+    void tick.value;
+    return session.value?.messages ?? [];
+  });
+  const diagnostics = computed(() => {
+    void tick.value;
+    return session.value?.diagnostics ?? [];
+  });
+  /** Power flow and values per element id for the rung canvas; null before the first scan. */
+  const liveView = computed<LiveView | null>(() => {
+    const sim = simulation.value;
+    const prog = program.value;
+    if (sim === null || prog === null || sim.scanCount === 0) return null;
+    return createLiveView(sim.runtime, prog);
+  });
+
+  /** Open a program on a panel (the default panel if none): a fresh, stopped simulation. */
+  function load(next: Program, options: { panel?: PanelLayout; scanMs?: number } = {}): void {
+    loop.stop();
+    const layout = options.panel ?? builtInPanel(DEFAULT_PANEL_ID)!;
+    session.value = createSimulatorSession({ program: next, panel: layout, scanMs: options.scanMs ?? scanMs.value });
+    session.value.setExtraSignals(traced.value.filter((s) => !/^%[IQ]X\d+$/i.test(s)));
+    mode.value = 'stopped';
+    behindMs.value = 0;
+    changed();
+  }
+
+  function run(): void {
+    if (session.value?.simulation == null) return;
+    mode.value = 'running';
+    loop.start();
+  }
+
+  function pause(): void {
+    loop.stop();
+    if (mode.value === 'running') mode.value = 'paused';
+    behindMs.value = 0;
+  }
+
+  /** One scan, then paused. */
+  function step(): void {
+    if (session.value?.simulation == null) return;
+    loop.stop();
+    session.value.advance(1);
+    mode.value = 'paused';
+    changed();
+  }
+
+  /** Cold restart, stopped. */
+  function reset(): void {
+    loop.stop();
+    session.value?.reset();
+    mode.value = 'stopped';
+    behindMs.value = 0;
+    changed();
+  }
+
+  function setSpeed(next: SimulationSpeed): void {
+    speed.value = next;
+  }
+
+  function setScanMs(ms: number): { ok: true } | { ok: false; error: string } {
+    const result = session.value?.setScanMs(ms) ?? { ok: false as const, error: 'nothing is loaded' };
+    changed();
+    return result;
+  }
+
+  /** An edited program: recompiled at once, memory kept where it can be (see the session). */
+  function setProgram(next: Program): void {
+    session.value?.setProgram(next);
+    if (session.value?.simulation == null) {
+      loop.stop();
+      if (mode.value === 'running') mode.value = 'paused';
+    }
+    changed();
+  }
+
+  function act(deviceId: string, action: DeviceAction, args?: ActionArgs): ActionResult {
+    const result = session.value?.act(deviceId, action, args) ?? { ok: false as const, error: 'nothing is loaded' };
+    changed();
+    return result;
+  }
+
+  function force(operand: string, value: boolean): { ok: true } | { ok: false; error: string } {
+    const result = session.value?.force(operand, value) ?? { ok: false as const, error: 'nothing is loaded' };
+    changed();
+    return result;
+  }
+
+  function unforce(operand: string): void {
+    session.value?.unforce(operand);
+    changed();
+  }
+
+  function clearForces(): void {
+    session.value?.clearForces();
+    changed();
+  }
+
+  /** Show or hide a signal in the timing diagram. */
+  function toggleTraced(signal: string): void {
+    const list = traced.value.includes(signal) ? traced.value.filter((s) => s !== signal) : [...traced.value, signal];
+    traced.value = list;
+    session.value?.setExtraSignals(list.filter((s) => !/^%[IQ]X\d+$/i.test(s)));
+    changed();
+  }
+
+  function dismissMessage(id: number): void {
+    session.value?.dismissMessage(id);
+    changed();
+  }
+
+  /** For tests: drive frames by hand. */
+  function useScheduler(next: FrameScheduler): void {
+    scheduler = next;
+  }
+
+  return {
+    session,
+    tick,
+    mode,
+    speed,
+    behindMs,
+    traced,
+    simulation,
+    panel,
+    program,
+    scanMs,
+    timeMs,
+    scanCount,
+    devices,
+    io,
+    forces,
+    log,
+    messages,
+    diagnostics,
+    liveView,
+    load,
+    run,
+    pause,
+    step,
+    reset,
+    setSpeed,
+    setScanMs,
+    setProgram,
+    act,
+    force,
+    unforce,
+    clearForces,
+    toggleTraced,
+    dismissMessage,
+    useScheduler,
+  };
+});
