@@ -124,7 +124,12 @@ export function createSimulatorSession(options: SessionOptions): SimulatorSessio
   };
 
   /** A fresh simulation of `prog`, or the compile failure as diagnostics. */
-  const build = (prog: Program, ms: number) => createSimulation({ program: prog, panel, scanMs: ms, maxEvents: 2000 });
+  const build = (prog: Program, ms: number) => {
+    const built = createSimulation({ program: prog, panel, scanMs: ms, maxEvents: 2000 });
+    // The runtime records power flow from its first powerFlow() call on; the live view needs every scan.
+    if (built.ok) built.simulation.runtime.powerFlow();
+    return built;
+  };
 
   const start = (): void => {
     const built = build(program, scanMs);

@@ -47,10 +47,15 @@ export const useSimulationStore = defineStore('simulation', () => {
     },
   });
 
-  const simulation = computed(() => {
+  /**
+   * The running simulation, read so that the caller depends on `tick`: the simulation object stays
+   * the same while it runs, so a computed holding only it would never tell its readers.
+   */
+  const current = () => {
     void tick.value;
     return session.value?.simulation ?? null;
-  });
+  };
+  const simulation = computed(current);
   const panel = computed<PanelLayout | null>(() => session.value?.panel ?? null);
   const program = computed<Program | null>(() => {
     void tick.value;
@@ -60,11 +65,11 @@ export const useSimulationStore = defineStore('simulation', () => {
     void tick.value;
     return session.value?.scanMs ?? DEFAULT_SCAN_MS;
   });
-  const timeMs = computed(() => simulation.value?.timeMs ?? 0);
-  const scanCount = computed(() => simulation.value?.scanCount ?? 0);
-  const devices = computed(() => simulation.value?.devices() ?? []);
-  const io = computed(() => simulation.value?.explain() ?? null);
-  const forces = computed(() => simulation.value?.runtime.forces() ?? new Map<string, boolean>());
+  const timeMs = computed(() => current()?.timeMs ?? 0);
+  const scanCount = computed(() => current()?.scanCount ?? 0);
+  const devices = computed(() => current()?.devices() ?? []);
+  const io = computed(() => current()?.explain() ?? null);
+  const forces = computed(() => current()?.runtime.forces() ?? new Map<string, boolean>());
   const log = computed(() => {
     void tick.value;
     return session.value?.log ?? [];
@@ -79,7 +84,7 @@ export const useSimulationStore = defineStore('simulation', () => {
   });
   /** Power flow and values per element id for the rung canvas; null before the first scan. */
   const liveView = computed<LiveView | null>(() => {
-    const sim = simulation.value;
+    const sim = current();
     const prog = program.value;
     if (sim === null || prog === null || sim.scanCount === 0) return null;
     return createLiveView(sim.runtime, prog);
