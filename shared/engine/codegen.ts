@@ -93,6 +93,8 @@ function booleanCode(source: PlanSource): string {
 
 interface Emitting {
   readonly lines: string[];
+  /** Declarations of the reusable input records, one per block call (see the block emitter). */
+  readonly records: string[];
   maxDepth: number;
 }
 
@@ -130,13 +132,22 @@ const EMITTERS = {
     const typeIndex = BLOCK_TYPES.indexOf(node.type);
     if (typeIndex < 0) throw new Error('code generation: unknown block type');
     const i = index(node.instance);
-    const fields = [`${member(node.powerIn)}: r${depth} === 1`];
-    for (const input of node.inputs) {
+    // One input record per call site, made once and refilled on every scan: a step only reads its
+    // inputs during the call, so reusing the record saves an allocation per block per scan.
+    const record = `in${out.records.length}`;
+    const names = [member(node.powerIn), ...node.inputs.map((input) => member(input.name))];
+    const initial = [node.powerIn, ...node.inputs.map((input) => input.name)].map((name, n) => {
+      const type = n === 0 ? 'BOOL' : node.inputs[n - 1]!.type;
+      return `${member(name)}: ${type === 'BOOL' ? 'false' : '0'}`;
+    });
+    out.records.push(`const ${record} = { ${initial.join(', ')} };`);
+    const fills = [`${record}.${names[0]} = r${depth} === 1;`];
+    node.inputs.forEach((input, n) => {
       const value = input.type === 'BOOL' ? booleanCode(input.source) : numberCode(input.source);
-      fields.push(`${member(input.name)}: ${value}`);
-    }
+      fills.push(`${record}.${names[n + 1]} = ${value};`);
+    });
     const dt = node.chargesTime ? 'dt' : '0';
-    out.lines.push(`s[${i}] = step${typeIndex}(s[${i}], { ${fields.join(', ')} }, ${dt});`);
+    out.lines.push(`${fills.join(' ')} s[${i}] = step${typeIndex}(s[${i}], ${record}, ${dt});`);
     out.lines.push(`r${depth} = s[${i}].${member(node.powerOut)} ? 1 : 0;`);
   },
 } as const satisfies { [K in PlanOp]: Emitter<Extract<PlanNode, { op: K }>> };
@@ -169,8 +180,8 @@ function chunkRungs(rungs: readonly PlanRung[]): PlanRung[][] {
   return chunks;
 }
 
-function chunkSource(rungs: readonly PlanRung[], name: string): string {
-  const out: Emitting = { lines: [], maxDepth: 0 };
+function chunkSource(rungs: readonly PlanRung[], name: string, records: string[]): string {
+  const out: Emitting = { lines: [], records, maxDepth: 0 };
   for (const rung of rungs) {
     out.lines.push('r0 = 1;');
     emit(rung.network, 0, out);
@@ -192,11 +203,13 @@ function chunkSource(rungs: readonly PlanRung[], name: string): string {
 export function kernelSource(plan: Plan): string {
   const chunks = chunkRungs(plan.rungs);
   const header = BLOCK_TYPES.map((_, i) => `const step${i} = steps[${i}];`);
-  const bodies = chunks.map((rungs, i) => chunkSource(rungs, `chunk${i}`));
+  const records: string[] = [];
+  const bodies = chunks.map((rungs, i) => chunkSource(rungs, `chunk${i}`, records));
   const calls = chunks.map((_, i) => `  chunk${i}(b, e, s, k, f, dt);`);
   return [
     "'use strict';",
     ...header,
+    ...records,
     ...bodies,
     'return function kernel(b, e, s, k, f, dt) {',
     ...calls,

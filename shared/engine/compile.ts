@@ -3,7 +3,10 @@
  * not. A user's mistake is always returned, never thrown.
  */
 import { DEFAULT_ADDRESS_SPACE, type AddressSpace } from '../ladder/addresses';
-import { ProgramSchema, type Program } from '../ladder/schema';
+import { hasErrors } from '../ladder/diagnostics';
+import { parseProgram } from '../ladder/restore';
+import type { Program } from '../ladder/schema';
+import { validateProgram } from '../ladder/validate';
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
 import { lowerProgram } from './lower';
 import type { Plan } from './plan';
@@ -17,21 +20,18 @@ export interface CompileOptions {
   space?: AddressSpace;
 }
 
-/** Validate and lower a program. */
+/**
+ * Validate and lower a program: the document is checked (`parseProgram`), then validated against
+ * the panel's address space (`validateProgram`); any error stops compilation and is returned with
+ * the warnings. Never throws for anything in the document.
+ */
 export function compile(program: Program, options: CompileOptions = {}): CompileResult {
   const space = options.space ?? DEFAULT_ADDRESS_SPACE;
-  const parsed = ProgramSchema.safeParse(program);
-  if (!parsed.success) {
-    const diagnostics = parsed.error.issues.slice(0, 20).map((issue) => {
-      const where = issue.path.length > 0 ? ` at ${issue.path.join('.')}` : '';
-      const rungIndex = issue.path[0] === 'rungs' && typeof issue.path[1] === 'number' ? issue.path[1] : -1;
-      const rungId = rungIndex >= 0 ? String(program.rungs?.[rungIndex]?.id ?? '') : '';
-      return engineDiagnostic('engine-document', rungId, [], null, `the program document is not valid${where}: ${issue.message}`);
-    });
-    return { ok: false, diagnostics };
-  }
-  const checked = parsed.data;
-  const lowered = lowerProgram(checked, space);
-  if (!lowered.ok) return { ok: false, diagnostics: lowered.diagnostics };
-  return { ok: true, plan: lowered.plan, diagnostics: [] };
+  const parsed = parseProgram(program);
+  if (!parsed.ok) return { ok: false, diagnostics: [engineDiagnostic(null, [], null, '', parsed.error)] };
+  const diagnostics = validateProgram(parsed.value, space);
+  if (hasErrors(diagnostics)) return { ok: false, diagnostics };
+  const lowered = lowerProgram(parsed.value, space);
+  if (!lowered.ok) return { ok: false, diagnostics: [...diagnostics, ...lowered.diagnostics] };
+  return { ok: true, plan: lowered.plan, diagnostics };
 }

@@ -1,30 +1,21 @@
 /**
- * Diagnostics the engine adds to validation's, in the same shape, so the editor shows them in the
- * same messages drawer.
+ * The engine speaks validation's language: its diagnostics are `Diagnostic`s from
+ * `shared/ladder/diagnostics.ts`, shown in the same messages drawer. The engine adds only
+ * fallbacks for what validation should already have caught, as `operand-invalid` with the reason.
  */
+import { createDiagnostic, type Diagnostic } from '../ladder/diagnostics';
 import type { NodePath } from '../ladder/schema';
 
-export type Severity = 'error' | 'warning';
+export type { Diagnostic, DiagnosticCode, Severity } from '../ladder/diagnostics';
 
-/** A located message: which rung, which node (path and id), how bad, and what to do. */
-export interface Diagnostic {
-  code: string;
-  rungId: string;
-  path: NodePath;
-  elementId: string | null;
-  severity: Severity;
-  message: string;
-}
-
-/** Engine-side codes, for problems validation should already have caught. */
-export type EngineDiagnosticCode = 'engine-document' | 'engine-operand' | 'engine-coil-target' | 'engine-block';
-
+/** A located error found while lowering (a gap in validation, never a crash). */
 export function engineDiagnostic(
-  code: EngineDiagnosticCode,
-  rungId: string,
+  rungId: string | null,
   path: NodePath,
   elementId: string | null,
-  message: string,
+  operand: string,
+  reason: string,
+  field?: string,
 ): Diagnostic {
-  return { code, rungId, path: [...path], elementId, severity: 'error', message };
+  return createDiagnostic('operand-invalid', { operand, reason }, { rungId, path, elementId, field });
 }

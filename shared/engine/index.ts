@@ -2,7 +2,7 @@
  * The scan engine: compile a program to a plan, run it in virtual time, force, trace, snapshot.
  */
 export { compile, type CompileOptions, type CompileResult } from './compile';
-export type { Diagnostic, EngineDiagnosticCode, Severity } from './diagnostic';
+export type { Diagnostic, DiagnosticCode, Severity } from './diagnostic';
 export type { Plan, PlanNode, PlanRung, PlanInstance, PlanEdge, PlanSource, BitLayout } from './plan';
 export {
   createRuntime,

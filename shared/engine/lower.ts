@@ -108,7 +108,7 @@ const UNUSABLE: PlanSource = { kind: 'constant', value: 0 };
 
 function lowerContact(contact: Contact, flow: number, path: number[], context: Lowering): PlanNode {
   const report = (message: string): void => {
-    context.diagnostics.push(engineDiagnostic('engine-operand', context.rungId, path, contact.id, message));
+    context.diagnostics.push(engineDiagnostic(context.rungId, path, contact.id, contact.operand.trim(), message));
   };
   const resolved = resolveOperand(contact.operand, context.symbols);
   let source = UNUSABLE;
@@ -126,7 +126,7 @@ function lowerContact(contact: Contact, flow: number, path: number[], context: L
 
 function lowerCoil(coil: Coil, flow: number, path: number[], context: Lowering): PlanNode {
   const report = (message: string): void => {
-    context.diagnostics.push(engineDiagnostic('engine-coil-target', context.rungId, path, coil.id, message));
+    context.diagnostics.push(engineDiagnostic(context.rungId, path, coil.id, coil.operand.trim(), message));
   };
   const resolved = resolveOperand(coil.operand, context.symbols);
   let bit = -1;
@@ -143,8 +143,8 @@ function lowerCoil(coil: Coil, flow: number, path: number[], context: Lowering):
 }
 
 function lowerBlock(block: Block, flow: number, path: number[], context: Lowering): PlanNode {
-  const report = (message: string): void => {
-    context.diagnostics.push(engineDiagnostic('engine-block', context.rungId, path, block.id, message));
+  const report = (message: string, field?: string): void => {
+    context.diagnostics.push(engineDiagnostic(context.rungId, path, block.id, block.instance.trim(), message, field));
   };
   const spec = BLOCK_SPECS[block.type];
   const key = symbolKey(block.instance);
@@ -173,20 +173,20 @@ function lowerBlockInput(
   block: Block,
   param: BlockParam,
   context: Lowering,
-  report: (message: string) => void,
+  report: (message: string, field?: string) => void,
 ): PlanBlockInput {
   const given = Object.entries(block.inputs).find(([name]) => name.toUpperCase() === param.name)?.[1] ?? '';
   const required = (BLOCK_SPECS[block.type].required as readonly string[]).includes(param.name);
   if (given.trim() === '') {
-    if (required) report(`${block.instance || block.type}.${param.name} needs a value`);
+    if (required) report(`${block.instance || block.type}.${param.name} needs a value`, param.name);
     return { name: param.name, type: param.type, source: UNUSABLE };
   }
   const resolved = resolveOperand(given, context.symbols);
   if (!resolved.ok) {
-    report(`${param.name}: ${resolved.error}`);
+    report(`${param.name}: ${resolved.error}`, param.name);
     return { name: param.name, type: param.type, source: UNUSABLE };
   }
-  const source = sourceFor(resolved.value, param.type, context, (message) => report(`${param.name}: ${message}`));
+  const source = sourceFor(resolved.value, param.type, context, (message) => report(`${param.name}: ${message}`, param.name));
   return { name: param.name, type: param.type, source: source ?? UNUSABLE };
 }
 

@@ -16,8 +16,13 @@ export interface ElementFlow {
 
 /** A read-only view, keyed by document id. */
 export interface PowerFlowView {
-  /** The scan this view describes (0: nothing has run yet, everything is de-energised). */
+  /** The scan this view describes. */
   readonly scanCount: number;
+  /**
+   * False when that scan was not recorded (nothing has run yet, recording had not started, or the
+   * runtime was restored since): then every node reads de-energised.
+   */
+  readonly recorded: boolean;
   /** Every id the view knows, in document order. */
   readonly ids: readonly string[];
   /** The node's flow, or `undefined` for an id not in the program. */
@@ -26,9 +31,10 @@ export interface PowerFlowView {
 }
 
 /** Wrap recorded flow arrays; reads are O(1) and allocate one small object. */
-export function createPowerFlowView(plan: Plan, record: FlowRecord, scanCount: number): PowerFlowView {
+export function createPowerFlowView(plan: Plan, record: FlowRecord, scanCount: number, recorded: boolean): PowerFlowView {
   return {
     scanCount,
+    recorded,
     ids: plan.flowIds,
     get(id) {
       const at = plan.flowIndex.get(id);

@@ -36,12 +36,14 @@ export const BISTABLE_INITIAL: BistableState = Object.freeze({ Q1: false });
 
 /** R_TRIG: `Q := CLK AND NOT M; M := CLK`. */
 export function stepRTrig(state: EdgeState, inputs: EdgeInputs): EdgeState {
-  return { Q: inputs.CLK && !state.lastCLK, lastCLK: inputs.CLK };
+  const q = inputs.CLK && !state.lastCLK;
+  return q === state.Q && inputs.CLK === state.lastCLK ? state : { Q: q, lastCLK: inputs.CLK };
 }
 
 /** F_TRIG: `Q := NOT CLK AND NOT M; M := NOT CLK`, kept here as the previous CLK. */
 export function stepFTrig(state: EdgeState, inputs: EdgeInputs): EdgeState {
-  return { Q: !inputs.CLK && state.lastCLK, lastCLK: inputs.CLK };
+  const q = !inputs.CLK && state.lastCLK;
+  return q === state.Q && inputs.CLK === state.lastCLK ? state : { Q: q, lastCLK: inputs.CLK };
 }
 
 /** SR, set-dominant: `Q1 := S1 OR (NOT R AND Q1)`. */

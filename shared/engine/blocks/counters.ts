@@ -1,7 +1,8 @@
 /**
  * IEC 61131-3 counters (clause 6.6.3.5.4, Table 45): CTU, CTD, CTUD.
  *
- * Each is a pure step `(state, inputs) -> state`. A counter counts rising edges of its count inputs,
+ * Each is a pure step `(state, inputs) -> state`, returning the very same state object when
+ * nothing changed (a scan then allocates nothing for an idle counter). A counter counts rising edges of its count inputs,
  * so it keeps the value each count input had at the previous call; the edge memory follows the input
  * on every call, also while R or LD holds the counter. CV is an INT: the standard bounds it by
  * PVmax/PVmin, which Rungwright takes as the 16-bit INT range (IEC 61131-3 Table 10 [memory]).
@@ -71,7 +72,9 @@ export function stepCTU(state: UpCounterState, inputs: UpCounterInputs): UpCount
   let cv = state.CV;
   if (inputs.R) cv = 0;
   else if (edge && cv < INT_MAX) cv += 1;
-  return { Q: cv >= intValue(inputs.PV), CV: cv, lastCU: inputs.CU };
+  const q = cv >= intValue(inputs.PV);
+  if (q === state.Q && cv === state.CV && inputs.CU === state.lastCU) return state;
+  return { Q: q, CV: cv, lastCU: inputs.CU };
 }
 
 /** Down counter: LD has priority (CV := PV); each rising edge of CD subtracts 1 down to PVmin; Q := CV <= 0. */
@@ -80,7 +83,9 @@ export function stepCTD(state: DownCounterState, inputs: DownCounterInputs): Dow
   let cv = state.CV;
   if (inputs.LD) cv = intValue(inputs.PV);
   else if (edge && cv > INT_MIN) cv -= 1;
-  return { Q: cv <= 0, CV: cv, lastCD: inputs.CD };
+  const q = cv <= 0;
+  if (q === state.Q && cv === state.CV && inputs.CD === state.lastCD) return state;
+  return { Q: q, CV: cv, lastCD: inputs.CD };
 }
 
 /**
@@ -96,5 +101,8 @@ export function stepCTUD(state: UpDownCounterState, inputs: UpDownCounterInputs)
   else if (inputs.LD) cv = pv;
   else if (up && !down && cv < INT_MAX) cv += 1;
   else if (down && !up && cv > INT_MIN) cv -= 1;
-  return { QU: cv >= pv, QD: cv <= 0, CV: cv, lastCU: inputs.CU, lastCD: inputs.CD };
+  const qu = cv >= pv;
+  const qd = cv <= 0;
+  const same = qu === state.QU && qd === state.QD && cv === state.CV && inputs.CU === state.lastCU && inputs.CD === state.lastCD;
+  return same ? state : { QU: qu, QD: qd, CV: cv, lastCU: inputs.CU, lastCD: inputs.CD };
 }

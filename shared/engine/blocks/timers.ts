@@ -5,7 +5,8 @@
  * period `dtMs` it belongs to, so ET equals the virtual time elapsed since the edge that started it,
  * counted to the end of the current scan (ET = runtime.timeMs − the time IN changed). A second call
  * of the same instance within one scan is given `dtMs = 0` by the compiler, so time is never counted
- * twice. All times are whole milliseconds; a negative preset counts as 0.
+ * twice. All times are whole milliseconds; a negative preset counts as 0. A step returns the very
+ * same state object when nothing changed, so an idle timer allocates nothing.
  */
 
 /** State of a TON or TOF instance. Q and ET are the standard's outputs. */
@@ -44,7 +45,8 @@ export function stepTON(state: DelayTimerState, inputs: TimerInputs, dtMs: numbe
   if (!inputs.IN) return state.Q || state.ET !== 0 ? DELAY_TIMER_INITIAL : state;
   const pt = preset(inputs.PT);
   const et = Math.min(state.ET + dtMs, pt);
-  return { Q: et >= pt, ET: et };
+  const q = et >= pt;
+  return et === state.ET && q === state.Q ? state : { Q: q, ET: et };
 }
 
 /**
@@ -57,7 +59,8 @@ export function stepTOF(state: DelayTimerState, inputs: TimerInputs, dtMs: numbe
   if (!state.Q) return state;
   const pt = preset(inputs.PT);
   const et = Math.min(state.ET + dtMs, pt);
-  return { Q: et < pt, ET: et };
+  const q = et < pt;
+  return et === state.ET && q === state.Q ? state : { Q: q, ET: et };
 }
 
 /**
@@ -77,5 +80,6 @@ export function stepTP(state: PulseTimerState, inputs: TimerInputs, dtMs: number
     const et = Math.min(state.ET + dtMs, pt);
     return et >= pt ? { Q: false, ET: pt, lastIN: inputs.IN } : { Q: true, ET: et, lastIN: inputs.IN };
   }
-  return { Q: false, ET: inputs.IN ? state.ET : 0, lastIN: inputs.IN };
+  const et = inputs.IN ? state.ET : 0;
+  return et === state.ET && inputs.IN === state.lastIN ? state : { Q: false, ET: et, lastIN: inputs.IN };
 }
