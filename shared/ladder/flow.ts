@@ -33,18 +33,21 @@ export function or(items: Expr[]): Expr {
   return { kind: 'or', items: items.flatMap((e) => (e.kind === 'or' ? e.items : [e])) };
 }
 
-/** Print with the usual precedence (NOT > AND > OR): an OR inside an AND gets parentheses. */
-export function printExpr(expr: Expr, insideAnd = false): string {
+/**
+ * Print with the usual precedence (NOT > AND > OR): an OR inside an AND gets parentheses. With
+ * `groupOr`, every OR does, so a parallel branch always reads as one group (the text form).
+ */
+export function printExpr(expr: Expr, groupOr = false, insideAnd = false): string {
   switch (expr.kind) {
     case 'true':
       return 'TRUE';
     case 'term':
       return expr.text;
     case 'and':
-      return expr.items.map((e) => printExpr(e, true)).join(' AND ');
+      return expr.items.map((e) => printExpr(e, groupOr, true)).join(' AND ');
     case 'or': {
-      const text = expr.items.map((e) => printExpr(e, false)).join(' OR ');
-      return insideAnd ? `(${text})` : text;
+      const text = expr.items.map((e) => printExpr(e, groupOr, false)).join(' OR ');
+      return insideAnd || groupOr ? `(${text})` : text;
     }
   }
 }

@@ -18,7 +18,6 @@ import {
   type NetworkNode,
   type Program,
 } from './schema';
-import { visitNodes } from './walk';
 import type { z } from 'zod';
 
 export { freshId };
@@ -113,22 +112,26 @@ function joinProblems(problems: readonly string[]): string {
   return more > 0 ? `${shown} (and ${more} more)` : shown;
 }
 
-/** The first repeated id, with where both uses are, or null. */
+/** The first repeated id, with where both uses are (`rungs[1].network.items[0]`), or null. */
 function findDuplicateId(program: Program): string | null {
   const seen = new Map<string, string>();
-  for (const [rungIndex, rung] of program.rungs.entries()) {
-    const rungWhere = `rungs[${rungIndex}]`;
-    const entries: Array<[string, string]> = [[rung.id, rungWhere]];
-    visitNodes(rung.network, (node, path) => {
-      entries.push([node.id, `${rungWhere}.network${path.map((i) => `[${i}]`).join('')}`]);
-    });
-    for (const [id, where] of entries) {
-      const first = seen.get(id);
-      if (first !== undefined) return `${where}: duplicate id "${id}" (first used at ${first})`;
-      seen.set(id, where);
-    }
-  }
-  return null;
+  let duplicate: string | null = null;
+  const note = (id: string, where: string): void => {
+    if (duplicate !== null) return;
+    const first = seen.get(id);
+    if (first !== undefined) duplicate = `${where}: duplicate id "${id}" (first used at ${first})`;
+    else seen.set(id, where);
+  };
+  const walk = (node: NetworkNode, where: string): void => {
+    note(node.id, where);
+    if (node.kind === 'series') node.items.forEach((child, i) => walk(child, `${where}.items[${i}]`));
+    if (node.kind === 'parallel') node.branches.forEach((child, i) => walk(child, `${where}.branches[${i}]`));
+  };
+  program.rungs.forEach((rung, index) => {
+    note(rung.id, `rungs[${index}]`);
+    walk(rung.network, `rungs[${index}].network`);
+  });
+  return duplicate;
 }
 
 /** Parse and normalise a program document from JSON data (not text: `JSON.parse` first). */

@@ -30,6 +30,7 @@ function commentText(text: string): string {
 export function programName(title: string): string {
   const name = title
     .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
     .replace(/[^A-Za-z0-9]+/g, '_')
     .replace(/^_+|_+$/g, '')
     .slice(0, 32)

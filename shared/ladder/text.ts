@@ -41,15 +41,15 @@ function seriesText(items: readonly NetworkNode[], names: NameView): string {
   const style: FlowStyle = {
     contact: (contact) => term(`${CONTACT_PREFIX[contact.variant]}${names.display(contact.operand)}`),
     block: (block, input) =>
-      term(blockCallText(block, input.kind === 'true' ? null : printExpr(input), (t) => names.display(t))),
-    midCoil: (coil, input) => sideWrites.push(`${printExpr(input)} -> ${coilText(coil, names)}`),
+      term(blockCallText(block, input.kind === 'true' ? null : printExpr(input, true), (t) => names.display(t))),
+    midCoil: (coil, input) => sideWrites.push(`${printExpr(input, true)} -> ${coilText(coil, names)}`),
   };
   const series: Series = { kind: 'series', id: '', items: [...items] };
   const { body, outputs } = splitOutputs(series);
   const flow = flowThroughItems(body, TRUE_EXPR, style);
   let main: string;
-  if (outputs.length === 0) main = printExpr(flow);
-  else main = `${printExpr(flow)} -> ${outputs.flatMap((o) => outputTexts(o, names)).join(', ')}`;
+  if (outputs.length === 0) main = printExpr(flow, true);
+  else main = `${printExpr(flow, true)} -> ${outputs.flatMap((o) => outputTexts(o, names)).join(', ')}`;
   return [...sideWrites, main].join('; ');
 }
 
