@@ -3,40 +3,35 @@
  * document before it is stored, diffing two versions, PLCopen XML in and out.
  */
 import { ProgramSchema, type Program } from '@shared/ladder/schema';
+import { diffPrograms, parseProgram } from '@shared/ladder';
+import { exportPlcopen, importPlcopen } from '@shared/ladder/plcopen';
 import type { RungDiffView } from '@shared/api';
-import { importPlcopen } from '@shared/ladder/plcopen/importProject';
-import { exportPlcopen } from '@shared/ladder/plcopen/exportProject';
 import { fieldsFromZod, failure, success, type Outcome } from '../http/failure';
 
 /**
- * Parses a document with the shared schema. A document that fails is refused with the problems,
- * located by path; nothing is stored.
+ * Parses and normalises a document with `parseProgram` (the shared schema plus unique ids). A
+ * document that fails is refused with the problem located by path; nothing is stored. Semantic
+ * diagnostics (`validateProgram`) do not refuse a save: a half-drawn rung can be saved.
  */
 export function checkProgramDocument(json: unknown): Outcome<Program> {
-  const parsed = ProgramSchema.safeParse(json);
-  if (!parsed.success) {
-    const fields = fieldsFromZod(parsed.error, 'document');
-    return failure('invalid_document', `The program document has ${parsed.error.issues.length} problem(s); nothing was saved`, {
-      fields,
-      details: { diagnostics: Object.entries(fields).map(([path, message]) => ({ path, message })) },
-    });
-  }
-  return success(parsed.data);
+  const parsed = parseProgram(json);
+  if (parsed.ok) return success(parsed.value);
+  const schema = ProgramSchema.safeParse(json);
+  const fields = schema.success ? { document: parsed.error } : fieldsFromZod(schema.error, 'document');
+  return failure('invalid_document', `The program document cannot be stored: ${parsed.error}`, {
+    fields,
+    details: { diagnostics: Object.entries(fields).map(([path, message]) => ({ path, message })) },
+  });
 }
 
-/** Rung by rung, matched by rung id. */
+/** Rung by rung, matched by rung id, with each rung's one-line text form. */
 export function diffProgramDocuments(before: Program, after: Program): RungDiffView[] {
-  const text = (rung: Program['rungs'][number]) => JSON.stringify(rung.network);
-  const old = new Map(before.rungs.map((r) => [r.id, r]));
-  const result: RungDiffView[] = [];
-  for (const rung of after.rungs) {
-    const prev = old.get(rung.id);
-    if (!prev) result.push({ kind: 'added', rungId: rung.id, after: text(rung) });
-    else result.push({ kind: text(prev) === text(rung) && prev.comment === rung.comment ? 'same' : 'changed', rungId: rung.id, before: text(prev), after: text(rung) });
-    old.delete(rung.id);
-  }
-  for (const [rungId, rung] of old) result.push({ kind: 'removed', rungId, before: text(rung) });
-  return result;
+  return diffPrograms(before, after).map((d) => ({
+    kind: d.kind,
+    rungId: d.rungId,
+    ...(d.before !== undefined ? { before: d.before } : {}),
+    ...(d.after !== undefined ? { after: d.after } : {}),
+  }));
 }
 
 /** A DOCTYPE or an entity declaration is refused before any parser sees the text (XML bomb defence). */

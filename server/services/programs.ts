@@ -5,7 +5,7 @@
  */
 import type { CreateProgramRequest, DiffResponse, ProgramDetail, ProgramSummary, RestoreVersionRequest, SaveVersionRequest, VersionDetail, VersionSummary } from '@shared/api';
 import type { Program as ProgramDocument } from '@shared/ladder/schema';
-import { PROGRAM_FORMAT, PROGRAM_VERSION } from '@shared/ladder/schema';
+import { createEmptyProgram } from '@shared/ladder';
 import type { AppContext } from '../context';
 import type { User } from '../db/users';
 import * as db from '../db/programs';
@@ -14,18 +14,6 @@ import { programAccess, type ProgramAction } from '../policies/programPolicy';
 import { refusal } from '../policies/access';
 import { checkProgramDocument, diffProgramDocuments } from './ladderDocuments';
 import { programView, versionDetailView, versionView } from './views';
-
-/** A new program's first document when none is given: one empty rung. */
-export function emptyDocument(title: string): ProgramDocument {
-  return {
-    format: PROGRAM_FORMAT,
-    version: PROGRAM_VERSION,
-    title,
-    description: '',
-    tags: [],
-    rungs: [{ id: 'r1', comment: '', network: { kind: 'series', id: 's1', items: [] } }],
-  };
-}
 
 /** Loads a program the actor may act on, or the failure to answer (404 hides, 403 refuses). */
 async function authorised(ctx: AppContext, actor: User, programId: string, action: ProgramAction): Promise<Outcome<db.Program>> {
@@ -42,7 +30,7 @@ export async function listPrograms(ctx: AppContext, actor: User, ownerId: string
 }
 
 export async function createProgram(ctx: AppContext, actor: User, req: CreateProgramRequest, demo = false): Promise<Outcome<ProgramDetail>> {
-  const checked = checkProgramDocument(req.document ?? emptyDocument(req.title));
+  const checked = checkProgramDocument(req.document ?? createEmptyProgram(req.title));
   if (!checked.ok) return checked;
   const { program, version } = await db.insertProgram(ctx.orm, {
     ownerId: actor.id,

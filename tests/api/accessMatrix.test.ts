@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Test } from 'supertest';
-import { exportPlcopen } from '@shared/ladder/plcopen/exportProject';
+import { exportPlcopen } from '@shared/ladder/plcopen';
 import { THREE_WIRE_DEMO } from '../../server/db/demoPrograms';
 import { enrol } from '../../server/db/classes';
 import { createTestApp, type TestApp } from './helpers/testApp';

@@ -115,6 +115,8 @@ describe('diff, restore, rename, delete, export', () => {
     expect(res.status).toBe(200);
     const kinds = Object.fromEntries(res.body.rungs.map((r: { rungId: string; kind: string }) => [r.rungId, r.kind]));
     expect(kinds).toEqual({ r1: 'changed', r2: 'removed', r3: 'added' });
+    // The rungs' one-line text form from shared/ladder, not raw JSON.
+    expect(res.body.rungs[0]).toMatchObject({ rungId: 'r1', before: '%IX1 -> %MX1', after: 'NOT %IX2 -> %MX1' });
   });
 
   it('refuses a diff without version numbers, naming the field', async () => {

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { RosterReportSchema } from '@shared/api';
-import { exportPlcopen } from '@shared/ladder/plcopen/exportProject';
+import { exportPlcopen } from '@shared/ladder/plcopen';
 import { REVERSING_DEMO } from '../../server/db/demoPrograms';
 import { createTestApp, type TestApp } from './helpers/testApp';
 import { call, createCast, person, type Cast } from './helpers/fixtures';

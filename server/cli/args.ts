@@ -1,0 +1,86 @@
+/**
+ * Command-line arguments → a command, with `node:util` parseArgs. A usage mistake comes back as
+ * a message (exit 2), never as an exception.
+ */
+import { parseArgs } from 'node:util';
+
+export type Command =
+  | { name: 'check'; program: string; script: string; panel?: string; trace?: string; redact: boolean }
+  | { name: 'validate'; program: string; panel?: string; json: boolean }
+  | { name: 'st'; program: string }
+  | { name: 'help' };
+
+export type ParsedArgs = { ok: true; command: Command } | { ok: false; error: string };
+
+export const USAGE = `Rungwright command line
+
+Usage:
+  npm run cli -- check --program P --script S [--panel L] [--trace out.csv] [--redact]
+  npm run cli -- validate --program P [--panel L] [--json]
+  npm run cli -- st --program P
+  npm run cli -- --help
+
+check     Grade a program with a check script; prints the grade report as JSON.
+          Exit 0 when every check passes, 1 when one fails, 2 on bad input.
+validate  Print the program's diagnostics; exit 2 when it has errors.
+st        Print the program as IEC 61131-3 Structured Text.
+
+--program P   the program: a Rungwright JSON document or a PLCopen TC6 XML 2.01 file (LD body)
+--script S    a check script (JSON)
+--panel L     a panel layout (JSON); the built-in panel named by the script if omitted
+--trace F     also write the trace of inputs and outputs to F as CSV
+--redact      print the student view of the report (hidden checks as pass/fail only)
+--json        validate: print the diagnostics as JSON
+`;
+
+const OPTIONS = {
+  program: { type: 'string' },
+  script: { type: 'string' },
+  panel: { type: 'string' },
+  trace: { type: 'string' },
+  redact: { type: 'boolean', default: false },
+  json: { type: 'boolean', default: false },
+  help: { type: 'boolean', short: 'h', default: false },
+} as const;
+
+/** Which options each command accepts (besides --help). */
+const ACCEPTS = {
+  check: ['program', 'script', 'panel', 'trace', 'redact'],
+  validate: ['program', 'panel', 'json'],
+  st: ['program'],
+} as const;
+
+type CommandName = keyof typeof ACCEPTS;
+
+const isCommandName = (name: string): name is CommandName => Object.hasOwn(ACCEPTS, name);
+
+/** Parse argv (without `node` and the script path). */
+export function parseCliArgs(argv: readonly string[]): ParsedArgs {
+  let parsed;
+  try {
+    parsed = parseArgs({ args: [...argv], options: OPTIONS, allowPositionals: true, strict: true });
+  } catch (error) {
+    // parseArgs reports unknown options and missing values by throwing; turn that into a message.
+    const message = error instanceof Error ? error.message : String(error);
+    return { ok: false, error: `${message.split('\n')[0]}\nRun with --help for usage.` };
+  }
+  const { values, positionals } = parsed;
+  if (values.help || positionals.length === 0) return { ok: true, command: { name: 'help' } };
+  const [name, ...extra] = positionals;
+  if (!isCommandName(name!)) return { ok: false, error: `unknown command "${name}"; use check, validate or st (--help for usage)` };
+  if (extra.length > 0) return { ok: false, error: `unexpected argument "${extra[0]}" after "${name}"` };
+  const given = Object.keys(values).filter((k) => k !== 'help' && values[k as keyof typeof values] !== undefined && values[k as keyof typeof values] !== false);
+  const accepted: readonly string[] = ACCEPTS[name];
+  const stray = given.find((k) => !accepted.includes(k));
+  if (stray) return { ok: false, error: `"${name}" does not take --${stray}` };
+  if (!values.program) return { ok: false, error: `"${name}" needs --program P` };
+  if (name === 'check') {
+    if (!values.script) return { ok: false, error: '"check" needs --script S' };
+    return {
+      ok: true,
+      command: { name, program: values.program, script: values.script, panel: values.panel, trace: values.trace, redact: values.redact === true },
+    };
+  }
+  if (name === 'validate') return { ok: true, command: { name, program: values.program, panel: values.panel, json: values.json === true } };
+  return { ok: true, command: { name, program: values.program } };
+}

@@ -1,0 +1,96 @@
+/**
+ * The commands themselves. Each returns the exit code: 0 all good, 1 a check failed, 2 bad input
+ * (with a message on stderr that names the file and what is wrong).
+ */
+import { parseCheckScript, redactReport, runChecks, traceToCSV } from '@shared/checks';
+import { builtInPanel, type PanelLayout } from '@shared/field';
+import { DEFAULT_ADDRESS_SPACE, programToStructuredText, validateProgram, type Diagnostic } from '@shared/ladder';
+import type { Command } from './args';
+import { USAGE } from './args';
+import type { CliIO, FileResult } from './io';
+import { loadJson, loadPanel, loadProgram } from './load';
+
+export const EXIT_OK = 0;
+export const EXIT_CHECK_FAILED = 1;
+export const EXIT_BAD_INPUT = 2;
+
+function badInput(io: CliIO, message: string): number {
+  io.stderr(`${message}\n`);
+  return EXIT_BAD_INPUT;
+}
+
+function panelFor(io: CliIO, panelPath: string | undefined, wanted: string, scriptPath: string): FileResult<PanelLayout> {
+  if (panelPath !== undefined) return loadPanel(io, panelPath);
+  const panel = builtInPanel(wanted);
+  if (panel) return { ok: true, value: panel };
+  return { ok: false, error: `${scriptPath}: panel "${wanted}" is not built in; give its layout with --panel L` };
+}
+
+function check(io: CliIO, command: Extract<Command, { name: 'check' }>): number {
+  const loaded = loadProgram(io, command.program);
+  if (!loaded.ok) return badInput(io, loaded.error);
+  for (const warning of loaded.value.warnings) io.stderr(`${warning}\n`);
+  const json = loadJson(io, command.script);
+  if (!json.ok) return badInput(io, json.error);
+  const script = parseCheckScript(json.value);
+  if (!script.ok) return badInput(io, `${command.script}: not a valid check script:\n  ${script.errors.join('\n  ')}`);
+  const panel = panelFor(io, command.panel, script.value.panel, command.script);
+  if (!panel.ok) return badInput(io, panel.error);
+  const result = runChecks({ program: loaded.value.program, panel: panel.value, script: script.value });
+  if (!result.ok) return badInput(io, `${command.script}: does not fit the panel:\n  ${result.errors.join('\n  ')}`);
+  const report = result.report;
+  if (command.trace !== undefined) {
+    const written = io.writeFile(command.trace, traceToCSV(report.trace));
+    if (!written.ok) return badInput(io, written.error);
+  }
+  io.stdout(`${JSON.stringify(command.redact ? redactReport(report) : report, null, 2)}\n`);
+  return report.passed ? EXIT_OK : EXIT_CHECK_FAILED;
+}
+
+/** "prog.json: rung r2, element e3: message" */
+function describeDiagnostic(path: string, d: Diagnostic): string {
+  const where = [d.rungId ? `rung ${d.rungId}` : 'program', d.elementId ? `element ${d.elementId}` : null].filter(Boolean).join(', ');
+  return `${path}: ${d.severity} (${where}): ${d.message}`;
+}
+
+function validate(io: CliIO, command: Extract<Command, { name: 'validate' }>): number {
+  const loaded = loadProgram(io, command.program);
+  if (!loaded.ok) return badInput(io, loaded.error);
+  for (const warning of loaded.value.warnings) io.stderr(`${warning}\n`);
+  let space = DEFAULT_ADDRESS_SPACE;
+  if (command.panel !== undefined) {
+    const panel = loadPanel(io, command.panel);
+    if (!panel.ok) return badInput(io, panel.error);
+    space = { inputs: panel.value.inputs, outputs: panel.value.outputs, memory: DEFAULT_ADDRESS_SPACE.memory };
+  }
+  const diagnostics = validateProgram(loaded.value.program, space);
+  const errors = diagnostics.filter((d) => d.severity === 'error').length;
+  if (command.json) io.stdout(`${JSON.stringify({ ok: errors === 0, diagnostics }, null, 2)}\n`);
+  else if (diagnostics.length === 0) io.stdout(`${command.program}: no problems found\n`);
+  else io.stdout(`${diagnostics.map((d) => describeDiagnostic(command.program, d)).join('\n')}\n`);
+  return errors > 0 ? EXIT_BAD_INPUT : EXIT_OK;
+}
+
+function structuredText(io: CliIO, command: Extract<Command, { name: 'st' }>): number {
+  const loaded = loadProgram(io, command.program);
+  if (!loaded.ok) return badInput(io, loaded.error);
+  for (const warning of loaded.value.warnings) io.stderr(`${warning}\n`);
+  const text = programToStructuredText(loaded.value.program);
+  io.stdout(text.endsWith('\n') ? text : `${text}\n`);
+  return EXIT_OK;
+}
+
+/** Run a parsed command. */
+export function runCommand(io: CliIO, command: Command): number {
+  switch (command.name) {
+    case 'help':
+      io.stdout(USAGE);
+      return EXIT_OK;
+    case 'check':
+      return check(io, command);
+    case 'validate':
+      return validate(io, command);
+    case 'st':
+      return structuredText(io, command);
+  }
+}
