@@ -67,6 +67,13 @@ export interface SimulatorSession {
   /** Recompile an edited program, keeping memory where the document still has the same variables. */
   setProgram(program: Program): void;
   act(deviceId: string, action: DeviceAction, args?: ActionArgs): ActionResult;
+  /**
+   * Press a momentary device (pushbutton, limit switch) by hand; `release` lets it go. A press is
+   * seen by at least one scan: a release before any scan has run is applied after the next one,
+   * so a quick tap (or a press while stepping) is never lost between two scans.
+   */
+  press(deviceId: string): ActionResult;
+  release(deviceId: string): ActionResult;
   force(operand: string, value: boolean): { ok: true } | { ok: false; error: string };
   unforce(operand: string): void;
   clearForces(): void;
@@ -96,6 +103,10 @@ export function createSimulatorSession(options: SessionOptions): SimulatorSessio
   let nextId = 1;
   let seenSeq = 0;
   let extras: string[] = [];
+  /** Momentary devices pressed by hand: the scan count at the press. */
+  const pressedAt = new Map<string, number>();
+  /** Releases waiting for the first scan after their press. */
+  const pendingReleases = new Set<string>();
   const trace = createTraceBuffer();
   trace.setSignals(ioSignals(panel));
 
@@ -183,6 +194,13 @@ export function createSimulatorSession(options: SessionOptions): SimulatorSessio
     return true;
   };
 
+  const actOn = (deviceId: string, action: DeviceAction, args?: ActionArgs): ActionResult => {
+    if (simulation === null) return { ok: false, error: 'the program does not compile yet, so the panel is not powered' };
+    const result = simulation.act(deviceId, action, args);
+    pullEvents();
+    return result;
+  };
+
   start();
 
   return {
@@ -215,10 +233,16 @@ export function createSimulatorSession(options: SessionOptions): SimulatorSessio
       for (let i = 0; i < count; i += 1) {
         sim.scan();
         record();
+        if (i === 0 && pendingReleases.size > 0) {
+          for (const id of pendingReleases) sim.release(id);
+          pendingReleases.clear();
+        }
       }
       pullEvents();
     },
     reset() {
+      pressedAt.clear();
+      pendingReleases.clear();
       const forced = simulation?.runtime.forces().size ?? 0;
       start();
       trace.clear();
@@ -244,11 +268,21 @@ export function createSimulatorSession(options: SessionOptions): SimulatorSessio
       }
       rebuild(next, scanMs, 'edit');
     },
-    act(deviceId, action, args) {
-      if (simulation === null) return { ok: false, error: 'the program does not compile yet, so the panel is not powered' };
-      const result = simulation.act(deviceId, action, args);
-      pullEvents();
-      return result;
+    act: actOn,
+    press(deviceId) {
+      if (simulation === null) return actOn(deviceId, 'press');
+      pendingReleases.delete(deviceId);
+      pressedAt.set(deviceId, simulation.scanCount);
+      return actOn(deviceId, 'press');
+    },
+    release(deviceId) {
+      const at = pressedAt.get(deviceId);
+      pressedAt.delete(deviceId);
+      if (simulation !== null && at !== undefined && at === simulation.scanCount) {
+        pendingReleases.add(deviceId);
+        return { ok: true };
+      }
+      return actOn(deviceId, 'release');
     },
     force(operand, value) {
       if (simulation === null) return { ok: false, error: 'nothing is running' };

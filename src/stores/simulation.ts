@@ -157,6 +157,19 @@ export const useSimulationStore = defineStore('simulation', () => {
     return result;
   }
 
+  /** Hold a momentary device by hand (see the session: a press is seen by at least one scan). */
+  function press(deviceId: string): ActionResult {
+    const result = session.value?.press(deviceId) ?? { ok: false as const, error: 'nothing is loaded' };
+    changed();
+    return result;
+  }
+
+  function release(deviceId: string): ActionResult {
+    const result = session.value?.release(deviceId) ?? { ok: false as const, error: 'nothing is loaded' };
+    changed();
+    return result;
+  }
+
   function force(operand: string, value: boolean): { ok: true } | { ok: false; error: string } {
     const result = session.value?.force(operand, value) ?? { ok: false as const, error: 'nothing is loaded' };
     changed();
@@ -220,6 +233,8 @@ export const useSimulationStore = defineStore('simulation', () => {
     setScanMs,
     setProgram,
     act,
+    press,
+    release,
     force,
     unforce,
     clearForces,

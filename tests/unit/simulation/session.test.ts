@@ -136,3 +136,26 @@ describe('a simulator session', () => {
     expect(result.ok === false && result.error).toMatch(/only bits/);
   });
 });
+
+describe('pressing a momentary button by hand', () => {
+  it('lets at least one scan see a tap released before any scan ran', () => {
+    const session = createSimulatorSession({ program: threeWireProgram(), panel, scanMs: 10 });
+    session.act('S4', 'set', { to: 'RUN' });
+    session.press('S2');
+    session.release('S2');
+    expect(session.simulation!.word('S2')).toBe('pressed');
+    session.advance(1);
+    expect(session.simulation!.word('S2')).toBe('released');
+    expect(session.simulation!.runtime.read('%QX1')).toBe(true);
+    session.advance(10);
+    expect(session.simulation!.word('K1')).toBe('closed');
+  });
+
+  it('releases at once when a scan has already seen the press', () => {
+    const session = createSimulatorSession({ program: threeWireProgram(), panel, scanMs: 10 });
+    session.press('S2');
+    session.advance(1);
+    session.release('S2');
+    expect(session.simulation!.word('S2')).toBe('released');
+  });
+});
