@@ -41,17 +41,14 @@ export function createApi(http: Http) {
     createProgram: (body: CreateProgramRequest) => http.json(ENDPOINTS.programs, ProgramDetailSchema, { method: 'POST', body }),
     getProgram: (id: string) => http.json(ENDPOINTS.program(id), ProgramDetailSchema),
     renameProgram: (id: string, title: string) =>
-      http.json(ENDPOINTS.program(id), z.union([ProgramSummarySchema, z.object({ program: ProgramSummarySchema })]), {
-        method: 'PATCH',
-        body: { title },
-      }),
+      http.json(ENDPOINTS.program(id), z.object({ program: ProgramSummarySchema }), { method: 'PATCH', body: { title } }).then((r) => r.program),
     deleteProgram: (id: string) => http.raw(ENDPOINTS.program(id), { method: 'DELETE' }).then(() => undefined),
     saveVersion: (id: string, body: SaveVersionRequest) => http.json(ENDPOINTS.versions(id), VersionDetailSchema, { method: 'POST', body }),
     listVersions: (id: string) => http.json(ENDPOINTS.versions(id), VersionListSchema).then((r) => r.versions),
     getVersion: (id: string, n: number) => http.json(ENDPOINTS.version(id, n), VersionDetailSchema),
     diffVersions: (id: string, from: number, to: number) => http.json(ENDPOINTS.diff(id, from, to), DiffResponseSchema),
     restoreVersion: (id: string, body: RestoreVersionRequest) => http.json(ENDPOINTS.restore(id), VersionDetailSchema, { method: 'POST', body }),
-    exportProgram: (id: string, format: 'json' | 'plcopen') => http.raw(ENDPOINTS.exportProgram(id, format)),
+    exportVersion: (id: string, n: number, format: 'json' | 'plcopen') => http.raw(ENDPOINTS.exportVersion(id, n, format)),
     importProgram: (file: File) => {
       const form = new FormData();
       form.append('file', file);

@@ -18,7 +18,7 @@ export const ENDPOINTS = {
   version: (id: string, n: number) => `/api/programs/${enc(id)}/versions/${n}`,
   diff: (id: string, from: number, to: number) => `/api/programs/${enc(id)}/diff?from=${from}&to=${to}`,
   restore: (id: string) => `/api/programs/${enc(id)}/restore`,
-  exportProgram: (id: string, format: 'json' | 'plcopen') => `/api/programs/${enc(id)}/export?format=${format}`,
+  exportVersion: (id: string, n: number, format: 'json' | 'plcopen') => `/api/programs/${enc(id)}/versions/${n}/export?format=${format}`,
   classes: '/api/classes',
   joinClass: '/api/classes/join',
   users: '/api/admin/users',

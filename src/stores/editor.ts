@@ -52,7 +52,7 @@ export const useEditorStore = defineStore('editor', () => {
   const readOnly = ref(false);
   const showTextForm = ref(false);
   /** The document as last saved or loaded: the editor is dirty while the present differs. */
-  const savedDoc = shallowRef<Program>(history.value.present.doc);
+  const savedDoc = shallowRef<Program | null>(history.value.present.doc);
 
   const doc = computed(() => history.value.present.doc);
   const selection = computed(() => history.value.present.selection);
@@ -75,6 +75,11 @@ export const useEditorStore = defineStore('editor', () => {
   /** The document was saved as it is now. */
   function markSaved(program: Program = doc.value): void {
     savedDoc.value = program;
+  }
+
+  /** The document differs from what the server holds (a working copy brought back after viewing a version). */
+  function markUnsaved(): void {
+    savedDoc.value = null;
   }
 
   function state(): EditorState {
@@ -154,6 +159,7 @@ export const useEditorStore = defineStore('editor', () => {
     redoable,
     load,
     markSaved,
+    markUnsaved,
     apply,
     dispatch,
     enabled,
