@@ -1,0 +1,80 @@
+/**
+ * The check-script format (DESIGN.md "Check scripts"): JSON that presses buttons, waits in virtual
+ * time and asserts what the panel and the program show. The zod schemas are the contract and give
+ * the TypeScript types; `parseCheckScript` reads a script step by step so that every error names
+ * the step, the field and what was expected (`step 4: "wait" needs a whole number of ms …`).
+ * Steps are counted from 1, as people count them.
+ */
+import { z } from 'zod';
+
+/** Each action a step can take; a step has exactly one of these keys. */
+export type StepAction = 'press' | 'release' | 'set' | 'trip' | 'reset' | 'load' | 'block' | 'unblock' | 'wait' | 'expect';
+
+export const STEP_ACTIONS: readonly StepAction[] = ['press', 'release', 'set', 'trip', 'reset', 'load', 'block', 'unblock', 'wait', 'expect'];
+
+/** The longest single wait, in ms of virtual time (10 min). */
+export const MAX_WAIT_MS = 600_000;
+/** The largest load factor, as a multiple of FLA. */
+export const MAX_LOAD_FACTOR = 20;
+
+/** An expected value range for a number such as `T1.ET` (ms) or `C1.CV`: both ends included. */
+export const RangeSchema = z.strictObject({ min: z.number().optional(), max: z.number().optional() });
+
+/** `true`/`false` for a bit, a number for a block value, a state word for a device, or a range. */
+export const ExpectationSchema = z.union([z.boolean(), z.number(), z.string().min(1), RangeSchema]);
+export type Expectation = z.infer<typeof ExpectationSchema>;
+
+const deviceId = z.string().min(1);
+
+export const PressStepSchema = z.strictObject({ press: deviceId });
+export const ReleaseStepSchema = z.strictObject({ release: deviceId });
+export const SetStepSchema = z.strictObject({ set: deviceId, to: z.string().min(1) });
+export const TripStepSchema = z.strictObject({ trip: deviceId });
+export const ResetStepSchema = z.strictObject({ reset: deviceId });
+export const LoadStepSchema = z.strictObject({ load: deviceId, factor: z.number().min(0).max(MAX_LOAD_FACTOR) });
+export const BlockStepSchema = z.strictObject({ block: deviceId });
+export const UnblockStepSchema = z.strictObject({ unblock: deviceId });
+export const WaitStepSchema = z.strictObject({ wait: z.number().int().min(0).max(MAX_WAIT_MS) });
+export const ExpectStepSchema = z.strictObject({
+  expect: z.record(z.string().min(1), ExpectationSchema),
+  label: z.string().max(200).optional(),
+  /** Points the check is worth; 1 if omitted. */
+  points: z.number().int().min(0).max(100).optional(),
+  /** A hidden check counts toward the grade but a student sees only pass/fail. */
+  hidden: z.boolean().optional(),
+});
+
+export const StepSchema = z.union([
+  PressStepSchema,
+  ReleaseStepSchema,
+  SetStepSchema,
+  TripStepSchema,
+  ResetStepSchema,
+  LoadStepSchema,
+  BlockStepSchema,
+  UnblockStepSchema,
+  WaitStepSchema,
+  ExpectStepSchema,
+]);
+export type Step = z.infer<typeof StepSchema>;
+export type ExpectStep = z.infer<typeof ExpectStepSchema>;
+
+export const CheckScriptSchema = z.strictObject({
+  /** The panel layout id the script is written for. */
+  panel: z.string().min(1).default('reversing-conveyor'),
+  /** Scan period in ms. */
+  scanMs: z.number().int().min(1).max(1000).default(10),
+  /** Virtual time run before the first step, in ms, so the panel is at rest when the steps start. */
+  settleMs: z.number().int().min(0).max(60_000).default(100),
+  title: z.string().max(200).optional(),
+  steps: z.array(StepSchema).min(1).max(2000),
+});
+export type CheckScript = z.infer<typeof CheckScriptSchema>;
+export type CheckScriptInput = z.input<typeof CheckScriptSchema>;
+
+/** The action key of a parsed step. */
+export function stepAction(step: Step): StepAction {
+  for (const action of STEP_ACTIONS) if (action in step) return action;
+  // The schema admits no other step; reaching here means the type and the list disagree.
+  throw new Error('step without an action');
+}
