@@ -110,7 +110,7 @@ export function parseTimeLiteral(text: string): Result<number> {
     rest = rest.slice(whole.length);
     if (rest === '' && whole.endsWith('_')) return fail(`${source}: a duration cannot end with "_"`);
   }
-  return ok(sign * total);
+  return ok(sign * total || 0); // never -0 (T#-0s)
 }
 
 /**

@@ -7,8 +7,8 @@ import { allIds, visitNodes } from '@shared/ladder/walk';
 import { threeWireForward } from './fixtures';
 
 /** A small id pool so that edits keep colliding with ids already in the document. */
-const idArb = fc.constantFrom('c1', 'c2', 'k1', 'p1', 'r1', 'x', 'con1', 'ser1', 'blk1');
-const operandArb = fc.constantFrom('S1', 'S2', 'K1', '%IX3', '%QX2', 'T1.Q', '', 'T#2s', '3');
+const idArb = fc.constantFrom<string>('c1', 'c2', 'k1', 'p1', 'r1', 'x', 'con1', 'ser1', 'blk1');
+const operandArb = fc.constantFrom<string>('S1', 'S2', 'K1', '%IX3', '%QX2', 'T1.Q', '', 'T#2s', '3');
 const elementArb: fc.Arbitrary<Element> = fc.oneof(
   fc.record({ kind: fc.constant('contact' as const), id: idArb, variant: fc.constantFrom('no', 'nc', 'rising', 'falling'), operand: operandArb }),
   fc.record({ kind: fc.constant('coil' as const), id: idArb, variant: fc.constantFrom('coil', 'negated', 'set', 'reset'), operand: operandArb }),
@@ -17,7 +17,7 @@ const elementArb: fc.Arbitrary<Element> = fc.oneof(
     id: idArb,
     type: fc.constantFrom('TON', 'CTU', 'SR'),
     instance: fc.constantFrom('T1', 'C1', ''),
-    inputs: fc.constantFrom({}, { PT: 'T#1s' }, { PV: '2' }),
+    inputs: fc.constantFrom<Record<string, string>>({}, { PT: 'T#1s' }, { PV: '2' }),
   }),
 );
 

@@ -39,6 +39,7 @@ describe('parseTimeLiteral', () => {
   it('reads a negative literal as a negative number of ms', () => {
     expect(ms('T#-2s')).toBe(-2000);
     expect(ms('T#-1m30s')).toBe(-90_000);
+    expect(ms('T#-0s')).toBe(0);
   });
 
   it('says which unit it does not know', () => {
