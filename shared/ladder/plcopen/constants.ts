@@ -17,9 +17,10 @@ export const RUNGWRIGHT_NAMESPACE = 'urn:rungwright';
  * (`handleUnknown="discard"`); Rungwright reads them back so a round trip keeps its ids.
  */
 export const ADD_DATA = {
-  /** On a contact, coil or block: the Rungwright element id and its rung id. */
-  element: 'urn:rungwright:element',
-  /** On a left rail and a rung comment: the rung id. */
+  /**
+   * On a left rail: the rung id, and `elements="3=con1 4=coil2"` mapping each element's localId to
+   * its Rungwright id. On a rung comment: the rung id.
+   */
   rung: 'urn:rungwright:rung',
   /** On a variable the exporter declared for a memory bit used without a tag. */
   untagged: 'urn:rungwright:untagged',

@@ -28,6 +28,8 @@ interface IdCounter {
 /** Where a rung sits on the page. */
 interface RungFrame {
   rung: Rung;
+  /** `localId=elementId` of each element written, for the rung's `addData`. */
+  written: string[];
   grid: RungGrid;
   /** Top of the rung's grid (below its comment). */
   top: number;
@@ -54,7 +56,7 @@ export function exportLdBody(rungs: readonly Rung[]): XmlElement[] {
       body.push(commentElement(ids.next(), rung, y, rightRailX));
       y += GRID.commentBand;
     }
-    const frame: RungFrame = { rung, grid, top: y, rightRailX };
+    const frame: RungFrame = { rung, written: [], grid, top: y, rightRailX };
     body.push(...rungElements(frame, ids));
     y += grid.rows * GRID.cellHeight + GRID.rungGap;
   });
@@ -69,28 +71,29 @@ function commentElement(localId: number, rung: Rung, top: number, width: number)
   ]);
 }
 
+/**
+ * One rung between its own pair of rails. The left rail's `addData` names the rung and maps each
+ * element's localId to its Rungwright id: one record per rung keeps the file small.
+ */
 function rungElements(frame: RungFrame, ids: IdCounter): XmlElement[] {
   const height = frame.grid.rows * GRID.cellHeight;
   const leftId = ids.next();
-  const out: XmlElement[] = [
-    el('leftPowerRail', { localId: leftId, height, width: GRID.railWidth }, [
-      position(0, frame.top),
-      el('connectionPointOut', { formalParameter: '' }, [relPosition(GRID.railWidth, GRID.cellHeight / 2)]),
-      rungwrightAddData('rung', { rung: frame.rung.id }),
-    ]),
-  ];
+  const out: XmlElement[] = [];
   const start: Source = { refLocalId: leftId, y: rowCentre(frame, 0) };
   const ends = emitNode(frame.rung.network, [start], frame, ids, out);
   const rightPins = ends.map((source) =>
     el('connectionPointIn', {}, [relPosition(0, source.y - frame.top), connection(source)]),
   );
-  out.push(
-    el('rightPowerRail', { localId: ids.next(), height, width: GRID.railWidth }, [
-      position(frame.rightRailX, frame.top),
-      ...rightPins,
-    ]),
-  );
-  return out;
+  const leftRail = el('leftPowerRail', { localId: leftId, height, width: GRID.railWidth }, [
+    position(0, frame.top),
+    el('connectionPointOut', { formalParameter: '' }, [relPosition(GRID.railWidth, GRID.cellHeight / 2)]),
+    rungwrightAddData('rung', { rung: frame.rung.id, elements: frame.written.join(' ') }),
+  ]);
+  const rightRail = el('rightPowerRail', { localId: ids.next(), height, width: GRID.railWidth }, [
+    position(frame.rightRailX, frame.top),
+    ...rightPins,
+  ]);
+  return [leftRail, ...out, rightRail];
 }
 
 /** Write a node fed by `inputs`; return what feeds the node after it. */
@@ -134,10 +137,10 @@ function emitElement(element: Element, inputs: Source[], frame: RungFrame, ids: 
       el('connectionPointIn', {}, [relPosition(0, half), ...inputs.map(connection)]),
       el('connectionPointOut', {}, [relPosition(GRID.elementWidth, half)]),
       el('variable', {}, [text(element.operand)]),
-      elementAddData(element, frame),
       ...documentation(element.comment),
     ]),
   );
+  frame.written.push(`${localId}=${element.id}`);
   return { refLocalId: localId, y: pinY };
 }
 
@@ -189,10 +192,10 @@ function emitBlock(block: Block, inputs: Source[], frame: RungFrame, col: number
       el('inputVariables', {}, inputPins),
       el('inOutVariables'),
       el('outputVariables', {}, outputPins),
-      elementAddData(block, frame),
       ...documentation(block.comment),
     ]),
   );
+  frame.written.push(`${localId}=${block.id}`);
   return { refLocalId: localId, formalParameter: spec.powerOut, y: top + pinOffset(0) };
 }
 
@@ -212,10 +215,6 @@ function emitInVariable(operand: string, cellX: number, pinY: number, ids: IdCou
 
 function blockPin(point: 'connectionPointIn' | 'connectionPointOut', formalParameter: string, x: number, y: number, connections: XmlElement[]): XmlElement {
   return el('variable', { formalParameter }, [el(point, {}, [relPosition(x, y), ...connections])]);
-}
-
-function elementAddData(element: Element, frame: RungFrame): XmlElement {
-  return rungwrightAddData('element', { rung: frame.rung.id, id: element.id });
 }
 
 function documentation(comment: string | undefined): XmlElement[] {

@@ -6,7 +6,10 @@
 import { XMLValidator } from 'fast-xml-parser';
 import { fail, ok, type Result } from '../result';
 
-/** 1 MB: a generous ceiling for a classroom program (a 1,000-rung export is about 0.5 MB). */
+/**
+ * 1 MB. Our exports take about 6 KB a rung of ten elements (positions, pins, indentation), so this
+ * holds some 150 such rungs: far more than a lab program; raise it per call for bigger files.
+ */
 export const DEFAULT_MAX_IMPORT_BYTES = 1_048_576;
 
 /** The five entities XML predefines (XML 1.0, 4.6); any other needs a DTD, which we refuse. */

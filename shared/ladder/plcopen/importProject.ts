@@ -14,7 +14,7 @@ import { DEFAULT_MAX_IMPORT_BYTES, checkXmlInput } from './guard';
 import { readLdBody, type BlockRecord, type BodyRecord, type CommentRecord, type InVariableRecord, type PowerElement } from './readBody';
 import { recoverRungs, type RecoveredRung, type Tree } from './topology';
 import { clip, createOperandResolver, readDeclarations, type OperandResolver } from './variables';
-import { child, childrenNamed, elementChildren, localName, parseXmlRoots, textContent, type XmlElement } from './xmlTree';
+import { MAX_XML_DEPTH, child, childrenNamed, elementChildren, localName, parseXmlRoots, textContent, type XmlElement } from './xmlTree';
 
 /** Options of `importPlcopen`. */
 export interface ImportPlcopenOptions {
@@ -43,8 +43,10 @@ export function importPlcopen(xml: string, options: ImportPlcopenOptions = {}): 
   try {
     roots = parseXmlRoots(xml);
   } catch (error) {
-    // The validator passed it, so this is the parser giving up (e.g. nesting too deep for the stack).
-    const reason = error instanceof RangeError ? 'its elements nest too deeply' : 'the XML parser could not read it';
+    // The validator passed it, so this is the parser's own limit (nesting) or a stack overflow.
+    const message = error instanceof Error ? error.message : String(error);
+    const tooDeep = error instanceof RangeError || /nested/i.test(message);
+    const reason = tooDeep ? `its elements nest more than ${MAX_XML_DEPTH} levels deep` : `the XML parser stopped: ${message}`;
     return fail(`the file could not be read: ${reason}`);
   }
   if (roots.length !== 1) return fail(`the file is not well-formed XML: it has ${roots.length} root elements, XML allows exactly one`);
@@ -79,7 +81,7 @@ function readProject(project: XmlElement): Result<ImportedProgram> {
   const resolver = createOperandResolver(readDeclarations(pou, project), operandTexts, instances);
   if (!resolver.ok) return resolver;
 
-  const built = buildRungs(rungs.value, blockInputs.value, resolver.value, warnings);
+  const built = buildRungs(rungs.value, records.value, blockInputs.value, resolver.value, warnings);
   const withComments = attachComments(built, records.value.filter((r): r is CommentRecord => r.kind === 'comment'), warnings);
 
   const header = child(project, 'contentHeader');
@@ -167,26 +169,47 @@ function readBlockOperands(records: readonly BodyRecord[], warnings: string[]): 
   return ok(operands);
 }
 
+/**
+ * Hands out `prefix + n` ids unused in `source`. Remembers where each prefix got to, so a file of
+ * thousands of rungs does not search from 1 every time (ids the file keeps are claimed first).
+ */
+function createFreshIds(source: IdSource): (prefix: string) => string {
+  const last = new Map<string, number>();
+  return (prefix) => {
+    let n = last.get(prefix) ?? 0;
+    let id: string;
+    do {
+      n += 1;
+      id = `${prefix}${n}`;
+    } while (!source.claim(id));
+    last.set(prefix, n);
+    return id;
+  };
+}
+
 /** Rungs with ids: the file's own (from our `addData`) where valid and unique, fresh ones otherwise. */
 function buildRungs(
   recovered: readonly RecoveredRung[],
+  records: readonly BodyRecord[],
   blockOperands: ReadonlyMap<number, Array<{ param: string; text: string }>>,
   resolver: OperandResolver,
   warnings: string[],
 ): Array<Rung & { y: number }> {
-  const ids = createIdSource([]);
+  const source = createIdSource([]);
+  const fresh = createFreshIds(source);
   const claim = (candidate: string | undefined): string | undefined =>
-    candidate !== undefined && IdSchema.safeParse(candidate).success && ids.claim(candidate) ? candidate : undefined;
-  const rungIds = recovered.map((rung) => {
-    const fromMembers = rung.members.map((m) => m.ids?.rung);
-    const fromRails = rung.rails.map((r) => r.rungId);
-    return claim([...fromMembers, ...fromRails].find((id) => id !== undefined));
-  });
+    candidate !== undefined && IdSchema.safeParse(candidate).success && source.claim(candidate) ? candidate : undefined;
+
+  const written = new Map<number, string>();
+  for (const record of records) {
+    if (record.kind === 'leftRail') for (const [localId, id] of record.elementIds) written.set(localId, id);
+  }
+  const rungIds = recovered.map((rung) => claim(rung.rails.map((r) => r.rungId).find((id) => id !== undefined)));
   const elementIds = new Map<number, string | undefined>();
-  for (const rung of recovered) for (const member of rung.members) elementIds.set(member.localId, claim(member.ids?.id));
+  for (const rung of recovered) for (const member of rung.members) elementIds.set(member.localId, claim(written.get(member.localId)));
 
   const toElement = (record: PowerElement): Element => {
-    const id = elementIds.get(record.localId) ?? ids.next(ID_PREFIX[record.kind]);
+    const id = elementIds.get(record.localId) ?? fresh(ID_PREFIX[record.kind]);
     const comment = record.comment === undefined ? {} : { comment: clip(record.comment, 500, `the documentation of ${record.label}`, warnings) };
     if (record.kind === 'block') {
       const inputs: Record<string, string> = {};
@@ -198,25 +221,23 @@ function buildRungs(
     const operand = resolver.bit(record.operand, record.label);
     return { kind: record.kind, id, variant: record.variant, operand, ...comment } as Element;
   };
-  const toNode = (tree: Tree, ids: IdSource): NetworkNode => {
+  const toNode = (tree: Tree): NetworkNode => {
     if (tree.kind === 'element') return toElement(tree.element);
-    if (tree.kind === 'wire') return { kind: 'series', id: ids.next(ID_PREFIX.series), items: [] };
-    if (tree.kind === 'series') return { kind: 'series', id: ids.next(ID_PREFIX.series), items: tree.items.map((t) => toNode(t, ids)) };
-    return { kind: 'parallel', id: ids.next(ID_PREFIX.parallel), branches: tree.branches.map((t) => toNode(t, ids)) };
+    if (tree.kind === 'wire') return { kind: 'series', id: fresh(ID_PREFIX.series), items: [] };
+    if (tree.kind === 'series') return { kind: 'series', id: fresh(ID_PREFIX.series), items: tree.items.map(toNode) };
+    return { kind: 'parallel', id: fresh(ID_PREFIX.parallel), branches: tree.branches.map(toNode) };
+  };
+  /** A rung's network is always a series at the root. */
+  const rootSeries = (tree: Tree): Series => {
+    const id = fresh(ID_PREFIX.series);
+    if (tree.kind === 'wire') return { kind: 'series', id, items: [] };
+    if (tree.kind === 'series') return { kind: 'series', id, items: tree.items.map(toNode) };
+    return { kind: 'series', id, items: [toNode(tree)] };
   };
   return recovered.map((rung, index) => {
-    const id = rungIds[index] ?? ids.next(ID_PREFIX.rung);
-    const root = rootSeries(rung.network, ids, toNode);
-    return { id, comment: '', network: root, y: rung.y };
+    const id = rungIds[index] ?? fresh(ID_PREFIX.rung);
+    return { id, comment: '', network: rootSeries(rung.network), y: rung.y };
   });
-}
-
-/** A rung's network is always a series at the root. */
-function rootSeries(tree: Tree, ids: IdSource, toNode: (tree: Tree, ids: IdSource) => NetworkNode): Series {
-  const id = ids.next(ID_PREFIX.series);
-  if (tree.kind === 'wire') return { kind: 'series', id, items: [] };
-  if (tree.kind === 'series') return { kind: 'series', id, items: tree.items.map((t) => toNode(t, ids)) };
-  return { kind: 'series', id, items: [toNode(tree, ids)] };
 }
 
 /**

@@ -32,7 +32,6 @@ export interface ContactRecord extends Placed {
   variant: ContactVariant;
   operand: string;
   inputs: Wire[];
-  ids: Record<string, string> | undefined;
   comment: string | undefined;
 }
 
@@ -41,7 +40,6 @@ export interface CoilRecord extends Placed {
   variant: CoilVariant;
   operand: string;
   inputs: Wire[];
-  ids: Record<string, string> | undefined;
   comment: string | undefined;
 }
 
@@ -53,7 +51,6 @@ export interface BlockRecord extends Placed {
   inputs: Wire[];
   /** Wires into every other input, by formal parameter, in the order of the standard. */
   operandInputs: Array<{ param: string; wires: Wire[] }>;
-  ids: Record<string, string> | undefined;
   comment: string | undefined;
 }
 
@@ -66,7 +63,9 @@ export interface RailRecord extends Placed {
   kind: 'leftRail' | 'rightRail';
   /** Right rail only: what reaches it. */
   inputs: Wire[];
+  /** Left rail written by Rungwright: the rung id, and the Rungwright id of each element by localId. */
   rungId: string | undefined;
+  elementIds: ReadonlyMap<number, string>;
 }
 
 export interface CommentRecord extends Placed {
@@ -124,18 +123,31 @@ function readRecord(name: string, element: XmlElement, placed: Placed): Result<B
       return readBlock(element, placed);
     case 'inVariable':
       return readInVariable(element, placed);
-    case 'leftPowerRail':
-      return ok({ ...placed, kind: 'leftRail', inputs: [], rungId: readRungwrightAddData(element, 'rung')?.rung });
+    case 'leftPowerRail': {
+      const data = readRungwrightAddData(element, 'rung');
+      return ok({ ...placed, kind: 'leftRail', inputs: [], rungId: data?.rung, elementIds: readElementIds(data?.elements) });
+    }
     case 'rightPowerRail': {
       const broken = badConnection(element, placed.label);
       if (broken) return fail(broken);
-      return ok({ ...placed, kind: 'rightRail', inputs: childrenNamed(element, 'connectionPointIn').flatMap(readWires), rungId: undefined });
+      const inputs = childrenNamed(element, 'connectionPointIn').flatMap(readWires);
+      return ok({ ...placed, kind: 'rightRail', inputs, rungId: undefined, elementIds: new Map() });
     }
     case 'comment':
       return ok({ ...placed, kind: 'comment', text: readFormattedText(child(element, 'content')), rungId: readRungwrightAddData(element, 'rung')?.rung });
     default:
       return fail(`${placed.label} is not supported: it is not an element of an IEC 61131-3 ladder diagram that Rungwright knows`);
   }
+}
+
+/** `3=con1 4=coil2` → localId → id; malformed pairs are skipped (the ids are only a courtesy). */
+function readElementIds(text: string | undefined): Map<number, string> {
+  const ids = new Map<number, string>();
+  for (const pair of (text ?? '').split(/\s+/)) {
+    const match = /^(\d{1,15})=(.+)$/.exec(pair);
+    if (match) ids.set(Number(match[1]), match[2] as string);
+  }
+  return ids;
 }
 
 function readLocalId(element: XmlElement, index: number): Result<number> {
@@ -226,7 +238,6 @@ function readContact(element: XmlElement, placed: Placed): Result<ContactRecord>
     variant,
     operand: variableText(element),
     inputs: readWires(child(element, 'connectionPointIn')),
-    ids: readRungwrightAddData(element, 'element'),
     comment: documentationOf(element),
   });
 }
@@ -253,7 +264,6 @@ function readCoil(element: XmlElement, placed: Placed): Result<CoilRecord> {
     variant,
     operand: variableText(element),
     inputs: readWires(child(element, 'connectionPointIn')),
-    ids: readRungwrightAddData(element, 'element'),
     comment: documentationOf(element),
   });
 }
@@ -308,7 +318,6 @@ function readBlock(element: XmlElement, placed: Placed): Result<BlockRecord> {
     instance,
     inputs: wiresByParam.get(spec.powerIn) ?? [],
     operandInputs,
-    ids: readRungwrightAddData(element, 'element'),
     comment: documentationOf(element),
   });
 }

@@ -57,22 +57,35 @@ export function recoverRungs(records: readonly BodyRecord[]): Result<RecoveredRu
     feedsOf.set(element.localId, feeds.value);
   }
   const toRightRail = new Set<number>();
-  const emptyRungs: RecoveredRung[] = [];
+  const railToRail: RailRecord[] = [];
   for (const rail of records.filter((r): r is RailRecord => r.kind === 'rightRail')) {
     const feeds = resolveFeeds(rail.inputs, rail.label, byId);
     if (!feeds.ok) return feeds;
     for (const feed of feeds.value) {
       if (feed.kind === 'element') toRightRail.add(feed.element.localId);
-      else emptyRungs.push({ network: { kind: 'wire' }, members: [], rails: [feed.rail], y: feed.rail.y, firstLocalId: feed.rail.localId });
+      else if (!railToRail.includes(feed.rail)) railToRail.push(feed.rail);
     }
   }
 
   const loop = findLoop(power, feedsOf);
   if (loop !== null) return fail(`the connections form a loop through ${loop.label}: power in a rung flows left to right only`);
 
-  const rungs: RecoveredRung[] = [...emptyRungs];
-  for (const members of connectedGroups(power, feedsOf)) {
-    const rung = reduceGroup(members, feedsOf, toRightRail);
+  const groups = connectedGroups(power, feedsOf);
+  // A left rail wired straight to the right rail is an empty branch of the one rung that rail
+  // feeds (our exporter gives each rung its own rails), or else an empty rung of its own.
+  const groupsOfRail = (rail: RailRecord): number[] =>
+    groups.flatMap((members, index) =>
+      members.some((m) => (feedsOf.get(m.localId) ?? []).some((f) => f.kind === 'rail' && f.rail === rail)) ? [index] : [],
+    );
+  const bypassed = new Set<number>();
+  const rungs: RecoveredRung[] = [];
+  for (const rail of railToRail) {
+    const fed = groupsOfRail(rail);
+    if (fed.length === 1) bypassed.add(fed[0] as number);
+    else rungs.push({ network: { kind: 'wire' }, members: [], rails: [rail], y: rail.y, firstLocalId: rail.localId });
+  }
+  for (const [index, members] of groups.entries()) {
+    const rung = reduceGroup(members, feedsOf, toRightRail, bypassed.has(index));
     if (!rung.ok) return rung;
     rungs.push(rung.value);
   }
@@ -151,23 +164,35 @@ function findLoop(power: readonly PowerElement[], feedsOf: ReadonlyMap<number, F
   return null;
 }
 
-/** Elements joined by connections (the rails join nothing: one rail may serve every rung). */
+/**
+ * Elements joined by connections. The rails join nothing (one pair of rails may serve every rung),
+ * except where Rungwright's own `addData` names the rung of a left rail: our exporter gives each
+ * rung its own rails, so branches that meet only at the rails stay one rung.
+ */
 function connectedGroups(power: readonly PowerElement[], feedsOf: ReadonlyMap<number, Feed[]>): PowerElement[][] {
-  const parent = new Map<number, number>(power.map((e) => [e.localId, e.localId]));
-  const root = (id: number): number => {
-    let r = id;
-    while (parent.get(r) !== r) r = parent.get(r) as number;
-    parent.set(id, r);
+  const parent = new Map<string, string>();
+  const root = (key: string): string => {
+    let r = key;
+    while (parent.has(r) && parent.get(r) !== r) r = parent.get(r) as string;
+    parent.set(key, r);
     return r;
   };
+  const join = (a: string, b: string): void => {
+    const ra = root(a);
+    const rb = root(b);
+    if (ra !== rb) parent.set(ra, rb);
+  };
   for (const element of power) {
+    const key = `e${element.localId}`;
+    root(key);
     for (const feed of feedsOf.get(element.localId) ?? []) {
-      if (feed.kind === 'element') parent.set(root(element.localId), root(feed.element.localId));
+      if (feed.kind === 'element') join(key, `e${feed.element.localId}`);
+      else if (feed.rail.rungId) join(key, `rung:${feed.rail.rungId}`);
     }
   }
-  const groups = new Map<number, PowerElement[]>();
+  const groups = new Map<string, PowerElement[]>();
   for (const element of [...power].sort((a, b) => a.localId - b.localId)) {
-    const key = root(element.localId);
+    const key = root(`e${element.localId}`);
     groups.set(key, [...(groups.get(key) ?? []), element]);
   }
   return [...groups.values()];
@@ -184,6 +209,7 @@ function reduceGroup(
   members: PowerElement[],
   feedsOf: ReadonlyMap<number, Feed[]>,
   toRightRail: ReadonlySet<number>,
+  bypassed: boolean,
 ): Result<RecoveredRung> {
   const edges = new Map<number, Edge>();
   let nextEdge = 0;
@@ -213,6 +239,7 @@ function reduceGroup(
     const out = `o${element.localId}`;
     if (toRightRail.has(element.localId) || !consumed.has(out)) addEdge({ from: out, to: SINK, tree: { kind: 'wire' } });
   }
+  if (bypassed) addEdge({ from: SOURCE, to: SINK, tree: { kind: 'wire' } });
 
   const reduced = reduceEdges(edges);
   const first = members[0] as PowerElement;

@@ -92,7 +92,11 @@ export function descendants(root: XmlElement): XmlElement[] {
 
 type OrderedEntry = Record<string, unknown> & { ':@'?: Record<string, string> };
 
+/** Deeper nesting than any PLCopen file needs (about 12 levels) is refused by the parser. */
+export const MAX_XML_DEPTH = 100;
+
 const PARSER_OPTIONS = {
+  maxNestedTags: MAX_XML_DEPTH,
   preserveOrder: true,
   ignoreAttributes: false,
   attributeNamePrefix: '',
