@@ -1,0 +1,93 @@
+/**
+ * HTTP benchmark: autocannon against the real server process on loopback (PGlite on a temporary
+ * DATA_DIR), 50 connections × 10 s per case. Cases: load a program (GET with its head document) and
+ * save a version (each connection saves on its own program, so no save meets a 409).
+ * Targets (issue 5): zero errors, p99 < 50 ms for loads, < 100 ms for saves.
+ */
+import { rmSync } from 'node:fs';
+import autocannon from 'autocannon';
+import type { BenchCase } from './run';
+import { round } from './stats';
+import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
+import { makeTempDataDir, startServerProcess } from '../api/helpers/serverProcess';
+import { documentWithRungs } from '../api/helpers/fixtures';
+
+const CONNECTIONS = 50;
+const DURATION_S = Number(process.env.BENCH_HTTP_SECONDS ?? 10);
+
+async function post(url: string, path: string, body: unknown, cookie = ''): Promise<{ status: number; body: any; cookie: string }> {
+  const res = await fetch(`${url}${path}`, { method: 'POST', headers: { 'content-type': 'application/json', origin: url, cookie }, body: JSON.stringify(body) });
+  return { status: res.status, body: await res.json(), cookie: (res.headers.get('set-cookie') ?? '').split(';')[0] };
+}
+
+function figures(name: string, r: autocannon.Result, target: number): BenchCase {
+  const errors = r.errors + r.timeouts + r.non2xx;
+  const statuses = Object.entries(r.statusCodeStats ?? {})
+    .map(([code, s]) => `${code}:${(s as { count: number }).count}`)
+    .join(',');
+  return {
+    statuses,
+    timeouts: r.timeouts,
+    case: name,
+    connections: CONNECTIONS,
+    durationS: DURATION_S,
+    requests: r.requests.total,
+    requestsPerS: round(r.requests.average, 1),
+    p50Ms: r.latency.p50,
+    p99Ms: r.latency.p99,
+    maxMs: r.latency.max,
+    errors,
+    targetP99Ms: target,
+    meetsTarget: errors === 0 && r.latency.p99 < target,
+  };
+}
+
+export default async function (): Promise<BenchCase[]> {
+  const dataDir = makeTempDataDir();
+  // LOG_LEVEL=warn: request lines at info would measure the terminal, not the server.
+  const server = await startServerProcess(dataDir, { LOG_LEVEL: 'warn' });
+  try {
+    const student = DEMO_STUDENTS[0];
+    const { cookie } = await post(server.url, '/api/auth/sign-in', { email: student.email, password: student.password });
+    const document = documentWithRungs(12, 'Bench conveyor');
+    const programIds: string[] = [];
+    for (let i = 0; i < CONNECTIONS; i += 1) {
+      const created = await post(server.url, '/api/programs', { title: `Bench ${i}`, document }, cookie);
+      if (created.status !== 201) throw new Error(`setup failed: ${created.status} ${JSON.stringify(created.body)}`);
+      programIds.push(created.body.program.id);
+    }
+    const headers = { cookie, origin: server.url, 'content-type': 'application/json' };
+
+    const load = await autocannon({ url: `${server.url}/api/programs/${programIds[0]}`, connections: CONNECTIONS, duration: DURATION_S, headers });
+
+    // autocannon resets a connection's context after each request cycle, so the heads live here:
+    // a request takes an idle program, and its response puts it back with the new head.
+    const heads = new Map(programIds.map((id) => [id, 1]));
+    const idle = [...programIds];
+    const save = await autocannon({
+      url: server.url,
+      connections: CONNECTIONS,
+      duration: DURATION_S,
+      headers,
+      requests: [
+        {
+          method: 'POST',
+          setupRequest: (req, context: Record<string, any>) => {
+            const programId = idle.pop() ?? programIds[0];
+            context.programId = programId;
+            return { ...req, path: `/api/programs/${programId}/versions`, body: JSON.stringify({ baseVersion: heads.get(programId), document, message: 'bench' }) };
+          },
+          onResponse: (status, body, context: Record<string, any>) => {
+            if (status === 201) heads.set(context.programId, JSON.parse(body).version.number);
+            idle.push(context.programId);
+          },
+        },
+      ],
+    });
+    return [figures('http: load a program (GET /api/programs/:id)', load, 50), figures('http: save a version (POST /api/programs/:id/versions)', save, 100)];
+  } finally {
+    server.child.kill('SIGTERM');
+    await server.exited;
+    rmSync(dataDir, { recursive: true, force: true });
+  }
+}
