@@ -99,7 +99,8 @@ function checkStep(raw: unknown, number: number): string[] {
   const allowed = new Set<string>([action, ...EXTRA_FIELDS[action]]);
   const unknown = Object.keys(step).filter((k) => !allowed.has(k));
   const errors = unknown.map((k) => {
-    const takes = EXTRA_FIELDS[action].length > 0 ? ` (a "${action}" step also takes ${EXTRA_FIELDS[action].join(', ')})` : '';
+    const article = /^[aeiou]/.test(action) ? 'an' : 'a';
+    const takes = EXTRA_FIELDS[action].length > 0 ? ` (${article} "${action}" step also takes ${EXTRA_FIELDS[action].join(', ')})` : '';
     return `${at}: unknown field "${k}"${takes}`;
   });
   return [...errors, ...STEP_CHECKS[action](step, at)];

@@ -1,0 +1,125 @@
+import { describe, expect, it } from 'vitest';
+import { redactReport, runChecks, traceToCSV, type GradeReport, type RunChecksOptions } from '@shared/checks';
+import { REVERSING_CONVEYOR } from '@shared/field';
+import { THREE_WIRE } from '@shared/labs';
+import { buildProgram, coil, no, rung } from '@shared/labs/build';
+import { conveyorTags } from '@shared/labs/conveyorTags';
+
+function report(options: Partial<RunChecksOptions> = {}): GradeReport {
+  const result = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: THREE_WIRE.script, ...options });
+  if (!result.ok) throw new Error(result.errors.join('\n'));
+  return result.report;
+}
+
+const tiny = {
+  panel: 'reversing-conveyor',
+  steps: [
+    { expect: { P2: 'lit' }, label: 'red at rest' },
+    { press: 'S2' }, { wait: 100 }, { release: 'S2' }, { wait: 600 },
+    { expect: { K1: 'closed', 'K1_Aux': true, '%QX1': true }, points: 3 },
+    { trip: 'F1' }, { wait: 50 },
+    { expect: { K1: 'open' }, label: 'secret', hidden: true, points: 2 },
+    { reset: 'F1' }, { wait: 50 },
+    { expect: { '%QX1': false }, label: 'visible again' },
+  ],
+};
+
+describe('runChecks', () => {
+  it('grades each check with expected, actual, points, time and the steps that led to it', () => {
+    const r = report({ script: tiny });
+    expect(r.checks.map((c) => [c.index, c.passed, c.points, c.atMs])).toEqual([
+      [1, true, 1, 100],
+      [6, true, 3, 800],
+      [9, true, 2, 850],
+      [12, true, 1, 900],
+    ]);
+    expect(r.checks[1]).toMatchObject({
+      label: 'K1 closed, K1_Aux true, %QX1 true',
+      expected: { K1: 'closed', 'K1_Aux': true, '%QX1': true },
+      actual: { K1: 'closed', 'K1_Aux': true, '%QX1': true },
+      steps: ['press S2', 'wait 100 ms', 'release S2', 'wait 600 ms'],
+    });
+    expect(r).toMatchObject({ passed: true, score: 7, maxScore: 7, stoppedBy: null, panel: 'reversing-conveyor', format: 'rungwright.grade-report' });
+  });
+  it('scores only the checks that pass', () => {
+    const r = report({ program: THREE_WIRE.starter, script: tiny });
+    expect(r.passed).toBe(false);
+    expect(r.checks.filter((c) => !c.passed).map((c) => c.index)).toEqual([1, 6]);
+    expect(r.checks[1]!.actual).toEqual({ K1: 'open', 'K1_Aux': false, '%QX1': false });
+    expect(r.score).toBe(3);
+    expect(r.maxScore).toBe(7);
+  });
+  it('checks block values by number and by range, and fails a name the program does not have', () => {
+    const program = buildProgram('t', '', conveyorTags(), [rung('', no('Stop_PB'), { kind: 'block', id: '', type: 'TON', instance: 'T1', inputs: { PT: 'T#5s' } })]);
+    const r = report({
+      program,
+      script: { steps: [{ wait: 2000 }, { expect: { 'T1.ET': 2100, 'T1.Q': false } }, { expect: { 'T1.ET': { min: 2000, max: 2200 } } }, { expect: { 'T9.ET': 1 } }, { expect: { Nothing: true } }] },
+    });
+    expect(r.checks.map((c) => c.passed)).toEqual([true, true, false, false]);
+    expect(r.checks[2]!.actual).toEqual({ 'T9.ET': null });
+  });
+  it('returns script and panel problems as errors, not as a report', () => {
+    const bad = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: { steps: [{ trip: 'K1' }] } });
+    expect(bad).toEqual({ ok: false, errors: ['step 1: "trip" needs the id of an overload relay, got "K1" (a contactor)'] });
+    expect(runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: 'nope' })).toEqual({ ok: false, errors: ['a check script is a JSON object with "steps"'] });
+  });
+  it('fails every check of a program that does not compile and says why', () => {
+    const broken = buildProgram('t', '', [], [rung('', no('%IX42'), coil('%QX1'))]);
+    const r = report({ program: broken });
+    expect(r.passed).toBe(false);
+    expect(r.score).toBe(0);
+    expect(r.diagnostics.length).toBeGreaterThan(0);
+    expect(r.checks.every((c) => !c.passed && c.note?.startsWith('the program does not compile'))).toBe(true);
+  });
+  it('stops at the virtual-time limit and reports it instead of hanging', () => {
+    const r = report({ script: { steps: [{ expect: { K1: 'open' } }, { wait: 600_000 }, { wait: 600_000 }, { expect: { K1: 'open' } }] }, limits: { maxVirtualMs: 700_000 } });
+    expect(r.stoppedBy).toBe('stopped at 600100 ms: the script would pass the limit of 700000 ms of virtual time');
+    expect(r.checks.map((c) => c.passed)).toEqual([true, false]);
+    expect(r.checks[1]!.note).toMatch(/^not reached: stopped at 600100 ms/);
+  });
+  it('stops at the scan limit too', () => {
+    const r = report({ script: { steps: [{ wait: 5000 }, { expect: { K1: 'open' } }] }, limits: { maxScans: 100 } });
+    expect(r.stoppedBy).toMatch(/limit of 100 scans/);
+    expect(r.passed).toBe(false);
+  });
+  it('is deterministic: the same inputs give the same report byte for byte', () => {
+    expect(JSON.stringify(report())).toBe(JSON.stringify(report()));
+  });
+  it('keeps a change-only trace of every input and output and writes it as CSV', () => {
+    const r = report({ script: tiny });
+    expect(r.trace.signals).toEqual(['%IX1', '%IX2', '%IX3', '%IX4', '%IX5', '%IX6', '%IX7', '%IX8', '%QX1', '%QX2', '%QX3', '%QX4', '%QX5', '%QX6']);
+    const csv = traceToCSV(r.trace).split('\n');
+    expect(csv[0]).toBe('time_ms,scan,%IX1,%IX2,%IX3,%IX4,%IX5,%IX6,%IX7,%IX8,%QX1,%QX2,%QX3,%QX4,%QX5,%QX6');
+    expect(csv[1]).toBe('10,1,1,0,0,0,0,0,0,0,0,0,0,0,1,0');
+    expect(csv[2]).toBe('110,11,1,1,0,0,0,0,0,0,1,0,0,0,1,0');
+    for (let i = 2; i < r.trace.rows.length; i += 1) expect(r.trace.rows[i]!.slice(2)).not.toEqual(r.trace.rows[i - 1]!.slice(2));
+  });
+  it('tags each event with the step it happened in', () => {
+    const r = report({ script: tiny });
+    expect(r.events.find((e) => e.message === 'S2 pressed')).toMatchObject({ step: 2 });
+    expect(r.events.find((e) => e.message === 'K1 dropped out: F1 95-96 opened')).toMatchObject({ step: 8 });
+  });
+});
+
+describe('redactReport', () => {
+  it('reduces hidden checks to pass/fail and removes their events and trace rows', () => {
+    const full = report({ script: tiny });
+    const student = redactReport(full);
+    expect(student.redacted).toBe(true);
+    expect(student.checks[2]).toEqual({ index: 9, passed: true, points: 2, hidden: true });
+    expect(student.checks[3]).toEqual(full.checks[3]);
+    expect(JSON.stringify(student)).not.toContain('secret');
+    const hiddenSteps = (e: { step: number }) => e.step >= 7 && e.step <= 9;
+    expect(full.events.some(hiddenSteps)).toBe(true);
+    expect(student.events.some(hiddenSteps)).toBe(false);
+    expect(student.events.some((e) => e.message === 'F1 tripped by hand (test button)')).toBe(false);
+    expect(student.trace.rows.every((row) => row[0]! <= 800 || row[0]! > 850)).toBe(true);
+    expect(student.score).toBe(full.score);
+  });
+  it('leaves a report without hidden checks as it was, apart from the flag', () => {
+    const full = report({ script: { steps: [{ expect: { K1: 'open' } }] } });
+    const { redacted, ...rest } = redactReport(full);
+    expect(redacted).toBe(true);
+    expect(rest).toEqual(full);
+  });
+});
