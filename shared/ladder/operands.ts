@@ -7,7 +7,7 @@
  * `Start` and `START` are one tag. The symbol table is therefore keyed by `symbolKey(name)`, the
  * upper-case spelling; look names up through it.
  */
-import { BLOCK_SPECS, operandInputs } from './blocks';
+import { BLOCK_SPECS } from './blocks';
 import { formatAddress, parseAddress, type Address } from './addresses';
 import { fail, ok, type Result } from './result';
 import type { BlockType, Program } from './schema';
@@ -226,9 +226,4 @@ export function operandKey(operand: Operand): string {
     case 'bool':
       return operand.value ? 'TRUE' : 'FALSE';
   }
-}
-
-/** The inputs of a block type a student may give as operands, by name (re-exported for validation). */
-export function operandInputNames(type: BlockType): string[] {
-  return operandInputs(type).map((p) => p.name);
 }

@@ -2,8 +2,15 @@
  * Validation: everything wrong with a program, as located diagnostics a student understands.
  * Nothing is thrown; an empty list means the engine can run the program.
  *
- * The rung shape rule is in `shape.ts`; the tag table checks in `validateTags.ts`. Here: operands
- * of contacts, coils and block inputs, block instances, and outputs written from two rungs.
+ * Rung shape rule (checked in `shape.ts`): a rung network is a series; coils (and a final block)
+ * sit at the end, either as the last items of the root series or as a final parallel whose
+ * branches each end in coils ("a rung may drive several outputs in parallel"); blocks may also sit
+ * in the middle of a series, where power flow passes through their Q/QU/Q1. No contact follows a
+ * coil, no branch is empty.
+ *
+ * The tag table checks are in `validateTags.ts`. Here: operands of contacts, coils and block
+ * inputs, block instances, and outputs written by plain coils in two rungs. Diagnostics come tag
+ * table first, then rung by rung (shape, then elements left to right).
  */
 import { addressInRange, DEFAULT_ADDRESS_SPACE, formatAddress, type AddressSpace } from './addresses';
 import { BLOCK_SPECS, blockOutput, type BlockSpec, type ParamType } from './blocks';
