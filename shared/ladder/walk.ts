@@ -52,7 +52,13 @@ export function elementsOf(rung: Rung): LocatedElement[] {
 
 /** Every element of the program with its rung. */
 export function elementsOfProgram(program: Program): Array<LocatedElement & { rung: Rung }> {
-  return program.rungs.flatMap((rung) => elementsOf(rung).map((located) => ({ ...located, rung })));
+  const found: Array<LocatedElement & { rung: Rung }> = [];
+  for (const rung of program.rungs) {
+    visitNodes(rung.network, (node, path) => {
+      if (isElement(node)) found.push({ element: node, path, rung });
+    });
+  }
+  return found;
 }
 
 /** The node at a path, or `undefined` when the path leads nowhere. */
