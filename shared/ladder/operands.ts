@@ -56,7 +56,7 @@ export const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
 export const RESERVED_WORDS: ReadonlySet<string> = new Set([
   'TRUE', 'FALSE', 'AND', 'OR', 'XOR', 'NOT', 'MOD', 'RISING', 'FALLING', 'SET', 'RESET',
   'IF', 'THEN', 'ELSE', 'ELSIF', 'END_IF', 'PROGRAM', 'END_PROGRAM', 'VAR', 'END_VAR', 'AT',
-  'BOOL', 'INT', 'TIME', 'T', 'R_EDGE', 'F_EDGE',
+  'BOOL', 'INT', 'TIME', 'R_EDGE', 'F_EDGE',
   ...Object.keys(BLOCK_SPECS),
 ]);
 

@@ -178,7 +178,7 @@ function checkBlock(block: Block, place: Place, ctx: Context): void {
     const at = { ...place, field: input };
     if (input === spec.powerIn) {
       if (block.inputs[input]!.trim() !== '') ctx.found.push(createDiagnostic('block-input-power-flow', { name: name || block.type, input }, at));
-    } else if (!inputNames.includes(input)) {
+    } else if (!inputNames.includes(input) && block.inputs[input]!.trim() !== '') {
       const inputs = inputNames.filter((n) => n !== spec.powerIn).join(', ');
       ctx.found.push(createDiagnostic('block-input-unknown', { name: name || block.type, type: block.type, input, inputs }, at));
     }

@@ -253,6 +253,8 @@ describe('block messages', () => {
   it('reports inputs the block type does not have', () => {
     const doc = withTags(rung('r1', no('c1', 'S2'), block('b1', 'TON', 'T1', { PT: 'T#1s', PV: '3' })));
     expect(only(doc, 'block-input-unknown').message).toBe('a TON has no input "PV" (T1); its inputs are PT');
+    // An empty leftover (from switching the block type) carries nothing, so it is not reported.
+    expect(check(withTags(rung('r1', no('c1', 'S2'), block('b1', 'TON', 'T1', { PT: 'T#1s', PV: '' }))))).toEqual([]);
   });
 
   it('reports a power-flow input given as an operand', () => {
