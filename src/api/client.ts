@@ -25,6 +25,8 @@ import { ENDPOINTS } from './endpoints';
 import type { Http } from './http';
 
 const Anything = z.unknown();
+/** Version routes answer `{ version }`. */
+const VersionAnswer = z.object({ version: VersionDetailSchema });
 
 export function createApi(http: Http) {
   return {
@@ -43,11 +45,13 @@ export function createApi(http: Http) {
     renameProgram: (id: string, title: string) =>
       http.json(ENDPOINTS.program(id), z.object({ program: ProgramSummarySchema }), { method: 'PATCH', body: { title } }).then((r) => r.program),
     deleteProgram: (id: string) => http.raw(ENDPOINTS.program(id), { method: 'DELETE' }).then(() => undefined),
-    saveVersion: (id: string, body: SaveVersionRequest) => http.json(ENDPOINTS.versions(id), VersionDetailSchema, { method: 'POST', body }),
+    saveVersion: (id: string, body: SaveVersionRequest) =>
+      http.json(ENDPOINTS.versions(id), VersionAnswer, { method: 'POST', body }).then((r) => r.version),
     listVersions: (id: string) => http.json(ENDPOINTS.versions(id), VersionListSchema).then((r) => r.versions),
-    getVersion: (id: string, n: number) => http.json(ENDPOINTS.version(id, n), VersionDetailSchema),
+    getVersion: (id: string, n: number) => http.json(ENDPOINTS.version(id, n), VersionAnswer).then((r) => r.version),
     diffVersions: (id: string, from: number, to: number) => http.json(ENDPOINTS.diff(id, from, to), DiffResponseSchema),
-    restoreVersion: (id: string, body: RestoreVersionRequest) => http.json(ENDPOINTS.restore(id), VersionDetailSchema, { method: 'POST', body }),
+    restoreVersion: (id: string, body: RestoreVersionRequest) =>
+      http.json(ENDPOINTS.restore(id), VersionAnswer, { method: 'POST', body }).then((r) => r.version),
     exportVersion: (id: string, n: number, format: 'json' | 'plcopen') => http.raw(ENDPOINTS.exportVersion(id, n, format)),
     importProgram: (file: File) => {
       const form = new FormData();

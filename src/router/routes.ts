@@ -51,6 +51,13 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['admin'], title: 'Administration' },
   },
   {
+    path: '/simulator/:id?',
+    name: 'simulator',
+    component: () => import('../views/SimulatorView.vue'),
+    props: true,
+    meta: { public: true, title: 'Simulator' },
+  },
+  {
     path: '/:pathMatch(.*)*',
     name: 'not-found',
     component: () => import('../views/NotFoundView.vue'),
