@@ -70,9 +70,10 @@ export const useSimulationStore = defineStore('simulation', () => {
   const devices = computed(() => current()?.devices() ?? []);
   const io = computed(() => current()?.explain() ?? null);
   const forces = computed(() => current()?.runtime.forces() ?? new Map<string, boolean>());
+  // A copy: the session appends to its log in place, and a computed returning the same array would not notify.
   const log = computed(() => {
     void tick.value;
-    return session.value?.log ?? [];
+    return session.value?.log.slice(-500) ?? [];
   });
   const messages = computed(() => {
     void tick.value;

@@ -1,0 +1,118 @@
+/**
+ * The simulator in a real browser (Debian's Chromium, the real server): the demo three-wire program
+ * run against the default panel — start, seal-in, e-stop, e-stop reset, the two-wire restart, and
+ * the overload trip that leaves %QX1 ON with K1 open. A screenshot at each point goes to
+ * tests/e2e/screenshots/ (git-ignored) to be looked at.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import { launchChromium } from './support/chromium';
+import { startServer, type RunningServer } from './support/server';
+
+let server: RunningServer;
+let browser: Browser;
+let page: Page;
+const SHOTS = 'tests/e2e/screenshots';
+
+beforeAll(async () => {
+  mkdirSync(SHOTS, { recursive: true });
+  server = await startServer();
+  browser = await launchChromium();
+  page = await browser.newPage({ viewport: { width: 1280, height: 720 } });
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+const shot = (name: string) => page.screenshot({ path: `${SHOTS}/${name}.png` });
+const deviceLabel = (id: string) => page.locator(`[data-device="${id}"] [role="img"], [data-device="${id}"][role="img"]`).first().getAttribute('aria-label');
+const contactor = (id: string) => page.locator(`[data-device="${id}"]`).getAttribute('aria-label');
+const inputBits = () => page.locator('table.inputs tr[data-address] td.bit').allInnerTexts();
+const outputRow = (address: string) => page.locator(`table.outputs tr[data-address="${address}"] td.bit`).innerText();
+const reason = (address: string) => page.locator(`td[data-reason="${address}"]`).innerText();
+const motorWord = async () => (await deviceLabel('M1'))?.split(': ')[1]?.split(',')[0];
+
+async function openDemo(id: string): Promise<void> {
+  await page.goto(`${server.url}/simulator/${id}`, { waitUntil: 'networkidle' });
+  await page.getByRole('button', { name: '▶ Run' }).waitFor();
+}
+
+async function runAtRun(): Promise<void> {
+  await page.getByRole('button', { name: '▶ Run' }).click();
+  await page.locator('[data-device="S4"]').getByRole('radio', { name: 'RUN' }).click();
+}
+
+/** Hold a pushbutton with the mouse until `until` holds, then let go. */
+async function holdWithMouse(id: string, until: () => Promise<boolean>): Promise<void> {
+  const box = (await page.locator(`[data-device="${id}"] button.cap`).boundingBox())!;
+  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+  await page.mouse.down();
+  await expect.poll(until, { timeout: 5000 }).toBe(true);
+  await page.mouse.up();
+}
+
+describe('the simulator on the default panel in a real browser', () => {
+  it('starts the three-wire demo with S2 and keeps it running, sealed in, after S2 is released', async () => {
+    await openDemo('three-wire');
+    await shot('simulation-1-open');
+    await runAtRun();
+    await holdWithMouse('S2', async () => (await page.locator('[data-device="S2"] button.cap').getAttribute('aria-pressed')) === 'true');
+    await page.waitForTimeout(400);
+    expect(await page.locator('[data-device="S2"] button.cap').getAttribute('aria-pressed')).toBe('false');
+    expect(await contactor('K1')).toMatch(/carrier closed/);
+    await expect.poll(motorWord).toBe('forward');
+    // The seal-in rung: energised at its right end, power through the K1_Coil contact of the seal-in branch.
+    expect(await page.locator('[data-rung="r1"]').getAttribute('data-energised')).toBe('true');
+    expect(await page.locator('[data-element="r1n3"]').getAttribute('data-state')).toBe('open');
+    expect(await page.locator('[data-element="r1n5"]').getAttribute('data-state')).toBe('closed');
+    expect(await page.locator('[data-element="r1n8"]').getAttribute('data-state')).toBe('energised');
+    await shot('simulation-2-sealed-in');
+  });
+
+  it('drops every input and K1 on the e-stop, and stays stopped when the e-stop is reset', async () => {
+    await page.locator('[data-device="S0"] button.mushroom').click();
+    await expect.poll(async () => (await inputBits()).every((b) => b === 'FALSE')).toBe(true);
+    await expect.poll(() => contactor('K1')).toMatch(/carrier open/);
+    expect(await page.locator('.field-panel .commons').innerText()).toMatch(/Input common de-energised \(S0 11-12 open\)/);
+    await shot('simulation-3-estop-pressed');
+    await expect.poll(motorWord, { timeout: 5000 }).toBe('stopped');
+    await page.locator('[data-device="S0"] button.mushroom').click();
+    await page.waitForTimeout(700);
+    expect(await contactor('K1')).toMatch(/carrier open/);
+    expect(await motorWord()).toBe('stopped');
+    expect(await outputRow('%QX1')).toBe('OFF');
+    await shot('simulation-4-estop-reset-stays-stopped');
+  });
+
+  it('restarts a two-wire program by itself when the e-stop is reset', async () => {
+    await page.getByLabel('Demo program').selectOption('two-wire');
+    await page.waitForURL(/\/simulator\/two-wire$/);
+    await runAtRun();
+    await expect.poll(() => contactor('K1')).toMatch(/carrier closed/);
+    await page.locator('[data-device="S0"] button.mushroom').click();
+    await expect.poll(() => contactor('K1')).toMatch(/carrier open/);
+    await page.locator('[data-device="S0"] button.mushroom').click();
+    await expect.poll(() => contactor('K1')).toMatch(/carrier closed/);
+    await expect.poll(motorWord).toBe('forward');
+    await shot('simulation-5-two-wire-restarted');
+  });
+
+  it('trips the overload on a running motor: %QX1 stays ON while K1 is open, and the table says why', async () => {
+    await openDemo('three-wire');
+    await runAtRun();
+    // Hold S2 from the keyboard this time (its key is 2).
+    await page.keyboard.down('2');
+    await expect.poll(() => contactor('K1')).toMatch(/carrier closed/);
+    await page.keyboard.up('2');
+    await expect.poll(motorWord).toBe('forward');
+    await page.getByRole('button', { name: /^F1 trip test/ }).click();
+    await expect.poll(() => contactor('K1')).toMatch(/carrier open/);
+    expect(await outputRow('%QX1')).toBe('ON');
+    expect(await reason('%QX1')).toBe('%QX1 ON, K1 open (F1 95-96 open)');
+    expect(await page.locator('.event-log').innerText()).toContain('K1 dropped out: F1 95-96 opened');
+    await shot('simulation-6-overload-tripped');
+  });
+});
