@@ -15,7 +15,7 @@ import { documentWithRungs } from '../api/helpers/fixtures';
 const CONNECTIONS = 50;
 const DURATION_S = Number(process.env.BENCH_HTTP_SECONDS ?? 10);
 
-async function post(url: string, path: string, body: unknown, cookie = ''): Promise<{ status: number; body: any; cookie: string }> {
+async function post(url: string, path: string, body: unknown, cookie = ''): Promise<{ status: number; body: { program: { id: string } }; cookie: string }> {
   const res = await fetch(`${url}${path}`, { method: 'POST', headers: { 'content-type': 'application/json', origin: url, cookie }, body: JSON.stringify(body) });
   return { status: res.status, body: await res.json(), cookie: (res.headers.get('set-cookie') ?? '').split(';')[0] };
 }
@@ -72,13 +72,15 @@ export default async function (): Promise<BenchCase[]> {
       requests: [
         {
           method: 'POST',
-          setupRequest: (req, context: Record<string, any>) => {
+          setupRequest: (req, ctx) => {
+            const context = ctx as { programId?: string };
             const programId = idle.pop() ?? programIds[0];
             context.programId = programId;
             return { ...req, path: `/api/programs/${programId}/versions`, body: JSON.stringify({ baseVersion: heads.get(programId), document, message: 'bench' }) };
           },
-          onResponse: (status, body, context: Record<string, any>) => {
-            if (status === 201) heads.set(context.programId, JSON.parse(body).version.number);
+          onResponse: (status, body, ctx) => {
+            const context = ctx as { programId: string };
+            if (status === 201) heads.set(context.programId, (JSON.parse(body) as { version: { number: number } }).version.number);
             idle.push(context.programId);
           },
         },
