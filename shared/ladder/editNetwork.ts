@@ -35,30 +35,38 @@ export function insertElement(
   doc: Program,
   args: NodeTarget & { position: 'before' | 'after'; element: unknown },
 ): Program {
+  return insertElements(doc, { rungId: args.rungId, path: args.path, position: args.position, elements: [args.element] });
+}
+
+/**
+ * Insert several elements, in the order given, as one run in series before or after the node at
+ * `path` (a paste). Same placement as `insertElement`; when any of them is not a valid element,
+ * nothing is inserted.
+ */
+export function insertElements(
+  doc: Program,
+  args: NodeTarget & { position: 'before' | 'after'; elements: readonly unknown[] },
+): Program {
   return updateRung(doc, args.rungId, (rung) => {
-    const element = admitElement(args.element, idsOf(doc));
-    if (element === null) return rung;
+    const ids = idsOf(doc);
+    const run = args.elements.map((e) => admitElement(e, ids));
+    if (run.length === 0 || run.some((e) => e === null)) return rung;
+    const elements = run as NetworkNode[];
+    const around = (items: readonly NetworkNode[]) => (args.position === 'before' ? [...elements, ...items] : [...items, ...elements]);
     const root = rung.network;
     const split = splitPath(args.path);
-    if (split === null) {
-      const items = args.position === 'before' ? [element, ...root.items] : [...root.items, element];
-      return { ...rung, network: { ...root, items } };
-    }
+    if (split === null) return { ...rung, network: { ...root, items: around(root.items) } };
     const parent = container(root, split.parentPath);
     const target = parent ? childrenOf(parent)[split.index] : undefined;
     if (!parent || !target) return rung;
     const at = args.position === 'before' ? split.index : split.index + 1;
     if (parent.kind === 'series') {
       const items = parent.items.slice();
-      items.splice(at, 0, element);
+      items.splice(at, 0, ...elements);
       return { ...rung, network: updateNode(root, split.parentPath, () => ({ ...parent, items })) };
     }
-    const ids = idsOf(doc);
-    ids.claim(element.id);
     const branch: Series =
-      target.kind === 'series'
-        ? { ...target, items: args.position === 'before' ? [element, ...target.items] : [...target.items, element] }
-        : { kind: 'series', id: ids.next(ID_PREFIX.series), items: args.position === 'before' ? [element, target] : [target, element] };
+      target.kind === 'series' ? { ...target, items: around(target.items) } : { kind: 'series', id: ids.next(ID_PREFIX.series), items: around([target]) };
     return { ...rung, network: updateNode(root, args.path, () => branch) };
   });
 }
@@ -114,27 +122,29 @@ export function wrapInParallel(doc: Program, args: { rungId: string; paths: read
 /**
  * Add a branch holding `element` below the node at `path`: a new last branch when the node is a
  * parallel, a new branch right under it when it is a branch, else the node and the element become
- * the two branches of a new parallel.
+ * the two branches of a new parallel. Without `element` the new branch is an empty series, for the
+ * editor to draw the alternative path in (as `wrapInParallel` does).
  */
-export function addBranchBelow(doc: Program, args: NodeTarget & { element: unknown }): Program {
+export function addBranchBelow(doc: Program, args: NodeTarget & { element?: unknown }): Program {
   return updateRung(doc, args.rungId, (rung) => {
     const split = splitPath(args.path);
     const node = getNode(rung.network, args.path);
     if (split === null || node === undefined) return rung;
     const ids = idsOf(doc);
-    const element = admitElement(args.element, ids);
-    if (element === null) return rung;
+    const element = args.element === undefined ? null : admitElement(args.element, ids);
+    if (args.element !== undefined && element === null) return rung;
+    const branch: NetworkNode = element ?? { kind: 'series', id: ids.next(ID_PREFIX.series), items: [] };
     if (node.kind === 'parallel') {
-      return { ...rung, network: updateNode(rung.network, args.path, () => ({ ...node, branches: [...node.branches, element] })) };
+      return { ...rung, network: updateNode(rung.network, args.path, () => ({ ...node, branches: [...node.branches, branch] })) };
     }
     const parent = container(rung.network, split.parentPath);
     if (parent === null) return rung;
     if (parent.kind === 'parallel') {
       const branches = parent.branches.slice();
-      branches.splice(split.index + 1, 0, element);
+      branches.splice(split.index + 1, 0, branch);
       return { ...rung, network: updateNode(rung.network, split.parentPath, () => ({ ...parent, branches })) };
     }
-    const parallel: Parallel = { kind: 'parallel', id: ids.next(ID_PREFIX.parallel), branches: [node, element] };
+    const parallel: Parallel = { kind: 'parallel', id: ids.next(ID_PREFIX.parallel), branches: [node, branch] };
     return { ...rung, network: updateNode(rung.network, args.path, () => parallel) };
   });
 }

@@ -3,7 +3,7 @@
  * keeps document snapshots; no edit writes its own undo. An edit that changes nothing returns the
  * same object, and one whose arguments do not fit the document returns it unchanged.
  */
-export { insertElement, appendElement, wrapInParallel, addBranchBelow, deleteNodes, moveElement } from './editNetwork';
+export { insertElement, insertElements, appendElement, wrapInParallel, addBranchBelow, deleteNodes, moveElement } from './editNetwork';
 export type { NodeTarget } from './editNetwork';
 export { setOperand, setVariant, setBlockType, setBlockInput, setBlockInstance, setComment } from './editElement';
 export {

@@ -4,6 +4,7 @@ import {
   appendElement,
   deleteNodes,
   insertElement,
+  insertElements,
   moveElement,
   normalizeNetwork,
   wrapInParallel,
@@ -46,6 +47,38 @@ describe('insertElement', () => {
     expect(insertElement(doc, { rungId: 'r1', path: [7], position: 'after', element: no('x', 'S2') })).toBe(doc);
     expect(insertElement(doc, { rungId: 'r1', path: [0, 0], position: 'after', element: no('x', 'S2') })).toBe(doc);
     expect(insertElement(doc, { rungId: 'r1', path: [0], position: 'after', element: { kind: 'lamp', id: 'x' } })).toBe(doc);
+  });
+});
+
+describe('insertElements', () => {
+  it('puts a run of elements in series after a node, in the order given', () => {
+    const next = insertElements(simple(), { rungId: 'r1', path: [0], position: 'after', elements: [no('c2', 'S2'), no('c3', 'S3')] });
+    expect(text(next)).toBe('S1 AND S2 AND S3 -> K1');
+    expect(next.rungs[0]!.network.items.map((n) => n.id)).toEqual(['c1', 'c2', 'c3', 'k1']);
+  });
+
+  it('turns a lone branch into a series holding the branch and the run', () => {
+    const next = insertElements(threeWireForward(), { rungId: 'r1', path: [1, 0], position: 'before', elements: [no('c8', 'S3'), no('c9', 'S1')] });
+    expect(text(next)).toBe('S1 AND (S3 AND S1 AND S2 OR K1) AND NOT K2 -> K1');
+  });
+
+  it('fills an empty branch series of a parallel', () => {
+    const doc = program([rung('r1', parallel('p1', no('c1', 'S1'), series('s9')), coil('k1', 'K1'))], CONVEYOR_TAGS);
+    const next = insertElements(doc, { rungId: 'r1', path: [0, 1], position: 'before', elements: [no('c2', 'S2')] });
+    expect(text(next)).toBe('(S1 OR S2) -> K1');
+  });
+
+  it('gives taken ids fresh ones, each distinct', () => {
+    const next = insertElements(simple(), { rungId: 'r1', path: [0], position: 'after', elements: [no('c1', 'S2'), no('c1', 'S3')] });
+    const ids = next.rungs[0]!.network.items.map((n) => n.id);
+    expect(new Set(ids).size).toBe(4);
+    expect(ids[0]).toBe('c1');
+  });
+
+  it('inserts nothing when any element is invalid, or the run is empty', () => {
+    const doc = simple();
+    expect(insertElements(doc, { rungId: 'r1', path: [0], position: 'after', elements: [no('c2', 'S2'), { kind: 'lamp' }] })).toBe(doc);
+    expect(insertElements(doc, { rungId: 'r1', path: [0], position: 'after', elements: [] })).toBe(doc);
   });
 });
 
@@ -98,6 +131,20 @@ describe('addBranchBelow', () => {
     const doc = threeWireForward();
     expect(text(addBranchBelow(doc, { rungId: 'r1', path: [1, 0], element: no('c9', 'S3') }))).toBe('S1 AND (S2 OR S3 OR K1) AND NOT K2 -> K1');
     expect(text(addBranchBelow(doc, { rungId: 'r1', path: [1], element: no('c9', 'S3') }))).toBe('S1 AND (S2 OR K1 OR S3) AND NOT K2 -> K1');
+  });
+
+  it('adds an empty branch series when no element is given', () => {
+    const next = addBranchBelow(threeWireForward(), { rungId: 'r1', path: [1, 0] });
+    const par = next.rungs[0]!.network.items[1] as { kind: string; branches: { kind: string; items?: unknown[] }[] };
+    expect(par.branches).toHaveLength(3);
+    expect(par.branches[1]).toMatchObject({ kind: 'series', items: [] });
+    const wrapped = addBranchBelow(simple(), { rungId: 'r1', path: [0] }).rungs[0]!.network.items[0]!;
+    expect(wrapped.kind === 'parallel' && wrapped.branches.map((b) => b.kind)).toEqual(['contact', 'series']);
+  });
+
+  it('refuses an invalid element rather than adding an empty branch', () => {
+    const doc = simple();
+    expect(addBranchBelow(doc, { rungId: 'r1', path: [0], element: { kind: 'lamp' } })).toBe(doc);
   });
 
   it('returns the same document for the root path', () => {
