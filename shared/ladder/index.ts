@@ -20,3 +20,4 @@ export * from './text';
 export * from './st';
 export * from './diff';
 // PLCopen TC6 XML import/export (shared/ladder/plcopen/) is exported below by its own module.
+export * from './plcopen';

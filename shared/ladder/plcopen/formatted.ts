@@ -3,11 +3,11 @@
  * documentation, XHTML inside) and `addData` (tool-specific data a reader may discard).
  */
 import { ADD_DATA, RUNGWRIGHT_NAMESPACE, XHTML_NAMESPACE } from './constants';
-import { child, childrenNamed, el, elementChildren, localName, text, textContent, type XmlElement } from './xmlTree';
+import { child, childrenNamed, el, elementChildren, localName, text, textContent, xmlSafeText, type XmlElement } from './xmlTree';
 
 /** `formattedText`: one XHTML paragraph per line, so another tool shows the line breaks. */
 export function formattedText(name: string, value: string): XmlElement {
-  const paragraphs = value.split('\n').map((line) => el('xhtml:p', { 'xmlns:xhtml': XHTML_NAMESPACE }, line === '' ? [] : [text(line)]));
+  const paragraphs = xmlSafeText(value).split('\n').map((line) => el('xhtml:p', { 'xmlns:xhtml': XHTML_NAMESPACE }, line === '' ? [] : [text(line)]));
   return el(name, {}, paragraphs);
 }
 

@@ -218,28 +218,41 @@ function reduceGroup(
     nextEdge += 1;
   };
   const consumed = new Set<string>();
-  const junctions = new Set<string>();
   const rails = new Map<number, RailRecord>();
+  const junctionSets = new Map<string, string[]>();
   for (const element of members) {
     const feeds = feedsOf.get(element.localId) ?? [];
     const keys = feeds.map(feedKey).sort();
-    const junction = `j[${keys.join(',')}]`;
-    if (!junctions.has(junction)) {
-      junctions.add(junction);
-      for (const key of keys) addEdge({ from: key, to: junction, tree: { kind: 'wire' } });
-    }
     for (const feed of feeds) {
       if (feed.kind === 'rail') rails.set(feed.rail.localId, feed.rail);
       consumed.add(feedKey(feed));
     }
+    // A single feed needs no junction: the element hangs straight off that output.
+    const junction = keys.length === 1 ? (keys[0] as string) : `j[${keys.join(',')}]`;
+    if (keys.length > 1) junctionSets.set(junction, keys);
     addEdge({ from: junction, to: `o${element.localId}`, tree: { kind: 'element', element } });
   }
   // An output that feeds nothing ends at the right rail, drawn or not: a coil needs no wire after it.
-  for (const element of members) {
-    const out = `o${element.localId}`;
-    if (toRightRail.has(element.localId) || !consumed.has(out)) addEdge({ from: out, to: SINK, tree: { kind: 'wire' } });
-  }
-  if (bypassed) addEdge({ from: SOURCE, to: SINK, tree: { kind: 'wire' } });
+  const sinkKeys = members
+    .filter((element) => toRightRail.has(element.localId) || !consumed.has(`o${element.localId}`))
+    .map((element) => `o${element.localId}`);
+  if (bypassed) sinkKeys.push(SOURCE);
+
+  // Wire each junction (and the right rail) from its feeds. Where the feeds of one junction are all
+  // among another's, the bigger one is fed through the smaller (OR is associative, so the logic is
+  // the same): that is how an empty branch shows in TC6, a feed passed on beside the others.
+  const bySize = [...junctionSets].sort((a, b) => b[1].length - a[1].length);
+  const wireUp = (target: string, keys: readonly string[]): void => {
+    const left = new Set(keys);
+    for (const [junction, subset] of bySize) {
+      if (junction === target || subset.length > keys.length || !subset.every((k) => left.has(k))) continue;
+      subset.forEach((k) => left.delete(k));
+      addEdge({ from: junction, to: target, tree: { kind: 'wire' } });
+    }
+    for (const key of left) addEdge({ from: key, to: target, tree: { kind: 'wire' } });
+  };
+  for (const [junction, keys] of junctionSets) wireUp(junction, keys);
+  wireUp(SINK, sinkKeys);
 
   const reduced = reduceEdges(edges);
   const first = members[0] as PowerElement;

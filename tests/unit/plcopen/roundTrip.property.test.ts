@@ -150,4 +150,42 @@ describe('PLCopen round trip on random series-parallel programs', () => {
       { numRuns: 30 },
     );
   }, 60_000);
+
+  it('keeps what every rung computes when empty branches are allowed anywhere', () => {
+    // Empty branches are where TC6's OR join can lose the shape (see export.test.ts); the
+    // function of the inputs must survive all the same.
+    const leaf = fc.constantFrom('%IX1', '%IX2', '%IX3', '%IX4').map((operand): Draft => ({ kind: 'contact', variant: 'no', operand }));
+    const { node } = fc.letrec<{ node: Draft }>((tie) => ({
+      node: fc.oneof(
+        { maxDepth: 4, depthIdentifier: 'wired' },
+        leaf,
+        fc.array(tie('node'), { minLength: 0, maxLength: 3 }).map((items): Draft => ({ kind: 'series', items })),
+        fc.array(tie('node'), { minLength: 2, maxLength: 3 }).map((branches): Draft => ({ kind: 'parallel', branches })),
+      ),
+    }));
+    const wiredProgram = fc.array(node, { minLength: 1, maxLength: 3 }).map((conditions) =>
+      program(materialise(conditions.map((condition) => ({ comment: '', condition, output: [{ kind: 'coil', variant: 'coil', operand: '%QX1' }] })))),
+    );
+    fc.assert(
+      fc.property(wiredProgram, (original) => {
+        const result = importPlcopen(exportPlcopen(original));
+        if (!result.ok) throw new Error(result.error);
+        expect(result.value.program.rungs.map((r) => truthTable(r.network))).toEqual(original.rungs.map((r) => truthTable(r.network)));
+      }),
+      { numRuns: 300 },
+    );
+  }, 60_000);
 });
+
+/** Power at the end of a network of NO contacts on %IX1..%IX4 (coils pass it on), for all 16 input states. */
+function truthTable(network: NetworkNode): boolean[] {
+  const evaluate = (n: NetworkNode, inputs: Record<string, boolean>): boolean => {
+    if (n.kind === 'series') return n.items.every((item) => evaluate(item, inputs));
+    if (n.kind === 'parallel') return n.branches.some((branch) => evaluate(branch, inputs));
+    if (n.kind === 'contact') return inputs[n.operand] ?? false;
+    return true;
+  };
+  return Array.from({ length: 16 }, (_, bits) =>
+    evaluate(network, { '%IX1': (bits & 1) !== 0, '%IX2': (bits & 2) !== 0, '%IX3': (bits & 4) !== 0, '%IX4': (bits & 8) !== 0 }),
+  );
+}
