@@ -5,3 +5,4 @@ export * from './auth';
 export * from './programs';
 export * from './classes';
 export * from './mail';
+export * from './labs';
