@@ -26,6 +26,7 @@ export type XmlNode = XmlElement | XmlText;
  * Characters XML 1.0 (2.2) does not allow at all: C0 controls other than tab, line feed and carriage
  * return, lone surrogates, U+FFFE and U+FFFF. They are dropped so a written file always parses.
  */
+// eslint-disable-next-line no-control-regex -- finding control characters is the point
 const NOT_XML_CHARACTER = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
 
 /** Text as XML can carry it: forbidden characters dropped, line ends as `\n` (XML 1.0, 2.11 would do it on reading). */
