@@ -14,8 +14,8 @@ import { BLOCK_BEHAVIOURS } from './blocks/behaviours';
 import type { Memory } from './memory';
 import type { Plan, PlanNode, PlanOp, PlanRung, PlanSource } from './plan';
 
-/** Solves the rungs of one scan over memory; same contract as `solveRungs`. */
-export type ScanKernel = (memory: Memory, dtMs: number) => void;
+/** Solves the rungs of one scan over the memory it was built for; same contract as `solveRungs`. */
+export type ScanKernel = (dtMs: number) => void;
 
 type RawKernel = (
   bits: Uint8Array,
@@ -92,6 +92,8 @@ function booleanCode(source: PlanSource): string {
 }
 
 interface Emitting {
+  /** With force masks on every coil write; without, for scans while nothing is forced. */
+  readonly forces: boolean;
   readonly lines: string[];
   /** Declarations of the reusable input records, one per block call (see the block emitter). */
   readonly records: string[];
@@ -126,7 +128,8 @@ const EMITTERS = {
   },
   coil: (node, depth, out) => {
     const n = index(node.bit);
-    out.lines.push(`b[${n}] = (${COIL_CODE[node.variant](`r${depth}`, `b[${n}]`)} & k[${n}]) | f[${n}];`);
+    const value = COIL_CODE[node.variant](`r${depth}`, `b[${n}]`);
+    out.lines.push(out.forces ? `b[${n}] = (${value} & k[${n}]) | f[${n}];` : `b[${n}] = ${value};`);
   },
   block: (node, depth, out) => {
     const typeIndex = BLOCK_TYPES.indexOf(node.type);
@@ -180,8 +183,8 @@ function chunkRungs(rungs: readonly PlanRung[]): PlanRung[][] {
   return chunks;
 }
 
-function chunkSource(rungs: readonly PlanRung[], name: string, records: string[]): string {
-  const out: Emitting = { lines: [], records, maxDepth: 0 };
+function chunkSource(rungs: readonly PlanRung[], name: string, records: string[], forces: boolean): string {
+  const out: Emitting = { forces, lines: [], records, maxDepth: 0 };
   for (const rung of rungs) {
     out.lines.push('r0 = 1;');
     emit(rung.network, 0, out);
@@ -198,33 +201,39 @@ function chunkSource(rungs: readonly PlanRung[], name: string, records: string[]
 
 /**
  * The kernel's source: a factory body taking the step functions (in `BLOCK_TYPES` order) and
- * returning the kernel. Exposed so tests can inspect what is generated.
+ * returning the kernel. `forces: false` leaves out the force masks, for scans while nothing is
+ * forced. Exposed so tests can inspect what is generated.
  */
-export function kernelSource(plan: Plan): string {
+export function kernelSource(plan: Plan, options: { forces?: boolean } = {}): string {
+  const forces = options.forces ?? true;
   const chunks = chunkRungs(plan.rungs);
   const header = BLOCK_TYPES.map((_, i) => `const step${i} = steps[${i}];`);
   const records: string[] = [];
-  const bodies = chunks.map((rungs, i) => chunkSource(rungs, `chunk${i}`, records));
+  const bodies = chunks.map((rungs, i) => chunkSource(rungs, `chunk${i}`, records, forces));
   const calls = chunks.map((_, i) => `  chunk${i}(b, e, s, k, f, dt);`);
-  return [
-    "'use strict';",
-    ...header,
-    ...records,
-    ...bodies,
-    'return function kernel(b, e, s, k, f, dt) {',
-    ...calls,
-    '};',
-  ].join('\n');
+  // One chunk is the kernel itself: no call in between.
+  const kernel = chunks.length === 1 ? ['return chunk0;'] : ['return function kernel(b, e, s, k, f, dt) {', ...calls, '};'];
+  return ["'use strict';", ...header, ...records, ...bodies, ...kernel].join('\n');
+}
+
+/** The two kernels of a plan over one memory: for scans with forces in effect, and without. */
+export interface ScanKernels {
+  readonly forced: ScanKernel;
+  readonly unforced: ScanKernel;
 }
 
 /**
- * Build the generated kernel. Throws when the host forbids code generation (a Content Security
- * Policy without 'unsafe-eval' makes `new Function` throw an EvalError); the runtime then uses the
- * interpreter.
+ * Build the generated kernels over `memory`. Throws when the host forbids code generation (a
+ * Content Security Policy without 'unsafe-eval' makes `new Function` throw an EvalError); the
+ * runtime then uses the interpreter.
  */
-export function generateKernel(plan: Plan): ScanKernel {
-  const steps = BLOCK_TYPES.map((type) => BLOCK_BEHAVIOURS[type].step);
-  const factory = new Function('steps', kernelSource(plan)) as (steps: unknown[]) => RawKernel;
-  const raw = factory(steps);
-  return (memory, dtMs) => raw(memory.bits, memory.edges, memory.states, memory.keep, memory.forced, dtMs);
+export function generateKernels(plan: Plan, memory: Memory): ScanKernels {
+  const { bits, edges, states, keep, forced } = memory;
+  const build = (forces: boolean): ScanKernel => {
+    const steps = BLOCK_TYPES.map((type) => BLOCK_BEHAVIOURS[type].step);
+    const factory = new Function('steps', kernelSource(plan, { forces })) as (steps: unknown[]) => RawKernel;
+    const raw = factory(steps);
+    return (dtMs) => raw(bits, edges, states, keep, forced, dtMs);
+  };
+  return { forced: build(true), unforced: build(false) };
 }

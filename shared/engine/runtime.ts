@@ -10,7 +10,7 @@
 import { formatAddress } from '../ladder/addresses';
 import { fail, ok, type Result } from '../ladder/result';
 import type { BlockState } from './blocks/behaviours';
-import { generateKernel, type ScanKernel } from './codegen';
+import { generateKernels, type ScanKernel, type ScanKernels } from './codegen';
 import { solveRungs } from './interpreter';
 import { createMemory, wordsOf, type Memory } from './memory';
 import { resolveBit, resolveReader, type Reader } from './operandAccess';
@@ -110,173 +110,224 @@ export function createRuntime(plan: Plan, options: RuntimeOptions = {}): Runtime
   const scanMs = options.scanMs ?? DEFAULT_SCAN_MS;
   const checked = checkScanMs(scanMs);
   if (!checked.ok) throw new RangeError(checked.error);
-  const { kernel, kind } = chooseKernel(plan, options.evaluator ?? 'auto');
-  const core: RuntimeCore = {
-    plan,
-    scanMs,
-    memory: createMemory(plan),
-    field: new Uint8Array(plan.space.inputs),
-    outputImage: new Uint8Array(plan.space.outputs),
-    forces: new Map(),
-    scanCount: 0,
-    timeMs: 0,
-    epoch: 0,
-  };
-  const { layout } = plan;
-  // The state at the start of the last scan's rung solving, kept so the power flow can be replayed
-  // on demand instead of being recorded on every scan.
-  const before = createMemory(plan);
-  const bitWords = wordsOf(core.memory.bits);
-  const beforeBitWords = wordsOf(before.bits);
-  const edgeWords = wordsOf(core.memory.edges);
-  const beforeEdgeWords = wordsOf(before.edges);
-  const states = core.memory.states;
-  const beforeStates = before.states;
-  // Power flow is replayed from a copy of memory taken before the rungs are solved; the copy is
-  // taken from the first `powerFlow()` call on (or from the start with `recordPowerFlow`), so a
-  // runtime that nobody watches (grading, the command line) pays nothing for it.
-  let recordFlow = options.recordPowerFlow === true;
-  let replayable = false;
-  // keep/forced change only through force calls; they are copied for the replay only then.
-  let forcesChanged = true;
-  let flowCache: { scanCount: number; epoch: number; view: PowerFlowView } | null = null;
-  const readers = new Map<string, Reader | null>();
+  return new ScanRuntime(plan, scanMs, options);
+}
 
-  const forceBit = (bit: number, value: boolean): void => {
-    const { bits, keep, forced } = core.memory;
-    forcesChanged = true;
+/**
+ * The runtime as a class, so that every instance shares one set of methods: a grading server runs
+ * many runtimes side by side, and shared methods stay fast there.
+ */
+class ScanRuntime implements Runtime {
+  readonly plan: Plan;
+  readonly scanMs: number;
+  readonly evaluator: EvaluatorKind;
+  private readonly core: RuntimeCore;
+  private readonly kernels: ScanKernels;
+  /**
+   * The state at the start of the last scan's rung solving. Power flow is replayed from it on
+   * demand instead of being recorded on every scan; the copy is taken from the first
+   * `powerFlow()` call on (or from the start with `recordPowerFlow`), so a runtime nobody watches
+   * (grading, the command line) pays nothing for it.
+   */
+  private readonly before: Memory;
+  private readonly bitWords: Int32Array;
+  private readonly beforeBitWords: Int32Array;
+  private readonly edgeWords: Int32Array;
+  private readonly beforeEdgeWords: Int32Array;
+  private recordFlow: boolean;
+  private replayable = false;
+  /** keep/forced change only through force calls; they are copied for the replay only then. */
+  private forcesChanged = true;
+  private flowCache: { scanCount: number; epoch: number; view: PowerFlowView } | null = null;
+  private readonly readers = new Map<string, Reader | null>();
+
+  constructor(plan: Plan, scanMs: number, options: RuntimeOptions) {
+    this.plan = plan;
+    this.scanMs = scanMs;
+    this.core = {
+      plan,
+      scanMs,
+      memory: createMemory(plan),
+      field: new Uint8Array(plan.space.inputs),
+      outputImage: new Uint8Array(plan.space.outputs),
+      forces: new Map(),
+      scanCount: 0,
+      timeMs: 0,
+      epoch: 0,
+    };
+    const chosen = chooseKernels(plan, this.core.memory, options.evaluator ?? 'auto');
+    this.kernels = chosen.kernels;
+    this.evaluator = chosen.kind;
+    this.before = createMemory(plan);
+    this.bitWords = wordsOf(this.core.memory.bits);
+    this.beforeBitWords = wordsOf(this.before.bits);
+    this.edgeWords = wordsOf(this.core.memory.edges);
+    this.beforeEdgeWords = wordsOf(this.before.edges);
+    this.recordFlow = options.recordPowerFlow === true;
+  }
+
+  get scanCount(): number {
+    return this.core.scanCount;
+  }
+
+  get timeMs(): number {
+    return this.core.timeMs;
+  }
+
+  setInput(index: number, value: boolean): void {
+    const field = this.core.field;
+    if (!(index >= 1 && index <= field.length && Number.isInteger(index))) checkIndex(index, field.length, 'setInput', '%IX');
+    field[index - 1] = value ? 1 : 0;
+  }
+
+  setInputs(values: ArrayLike<boolean>): void {
+    const field = this.core.field;
+    const n = values.length < field.length ? values.length : field.length;
+    for (let i = 0; i < n; i += 1) field[i] = values[i] ? 1 : 0;
+  }
+
+  getOutput(index: number): boolean {
+    const image = this.core.outputImage;
+    if (!(index >= 1 && index <= image.length && Number.isInteger(index))) checkIndex(index, image.length, 'getOutput', '%QX');
+    return image[index - 1] === 1;
+  }
+
+  read(operand: string): boolean | number | undefined {
+    let reader = this.readers.get(operand);
+    if (reader === undefined) {
+      if (this.readers.size > 1000) this.readers.clear();
+      reader = resolveReader(this.plan, operand);
+      this.readers.set(operand, reader);
+    }
+    return reader === null ? undefined : reader(this.core.memory);
+  }
+
+  scan(): void {
+    const core = this.core;
+    const { bits, keep, forced, states } = core.memory;
+    const field = core.field;
+    const layout = this.plan.layout;
+    const anyForces = core.forces.size !== 0;
+    if (anyForces) {
+      for (let i = 0; i < field.length; i += 1) {
+        const bit = layout.inputs + i;
+        bits[bit] = (field[i]! & keep[bit]!) | forced[bit]!;
+      }
+    } else {
+      for (let i = 0; i < field.length; i += 1) bits[layout.inputs + i] = field[i]!;
+    }
+    if (this.recordFlow) this.keepForReplay(states, keep, forced);
+    this.replayable = this.recordFlow;
+    if (anyForces) this.kernels.forced(this.scanMs);
+    else this.kernels.unforced(this.scanMs);
+    const image = core.outputImage;
+    for (let i = 0; i < image.length; i += 1) image[i] = bits[layout.outputs + i]!;
+    core.scanCount += 1;
+    core.timeMs += this.scanMs;
+  }
+
+  run(ms: number): void {
+    if (!Number.isFinite(ms) || ms < 0) throw new RangeError(`run: the time must be a number of ms ≥ 0, not ${String(ms)}`);
+    const scans = Math.ceil(ms / this.scanMs);
+    for (let i = 0; i < scans; i += 1) this.scan();
+  }
+
+  force(operand: string, value: boolean): Result<void> {
+    const bit = resolveBit(this.plan, operand);
+    if (!bit.ok) return bit;
+    this.core.forces.set(formatAddress(bit.value.address), { bit: bit.value.bit, value });
+    this.forceBit(bit.value.bit, value);
+    return ok(undefined);
+  }
+
+  unforce(operand: string): void {
+    const bit = resolveBit(this.plan, operand);
+    if (!bit.ok) return;
+    const key = formatAddress(bit.value.address);
+    if (!this.core.forces.has(key)) return;
+    this.core.forces.delete(key);
+    this.releaseBit(bit.value.bit);
+  }
+
+  clearForces(): void {
+    for (const { bit } of this.core.forces.values()) this.releaseBit(bit);
+    this.core.forces.clear();
+  }
+
+  forces(): ReadonlyMap<string, boolean> {
+    return new Map([...this.core.forces].map(([key, { value }]) => [key, value]));
+  }
+
+  powerFlow(): PowerFlowView {
+    const core = this.core;
+    this.recordFlow = true;
+    const cached = this.flowCache;
+    if (cached !== null && cached.scanCount === core.scanCount && cached.epoch === core.epoch) return cached.view;
+    const record = createFlowRecord(this.plan);
+    if (this.replayable) {
+      const replay = createMemory(this.plan);
+      copyMemory(this.before, replay);
+      solveRungs(this.plan, replay, this.scanMs, record);
+    }
+    const view = createPowerFlowView(this.plan, record, core.scanCount, this.replayable);
+    this.flowCache = { scanCount: core.scanCount, epoch: core.epoch, view };
+    return view;
+  }
+
+  snapshot(): RuntimeSnapshot {
+    return takeSnapshot(this.core);
+  }
+
+  restore(snapshot: RuntimeSnapshot): RestoreReport {
+    const report = applySnapshot(this.core, snapshot, (bit, value) => this.forceBit(bit, value));
+    this.core.epoch += 1;
+    this.replayable = false;
+    this.forcesChanged = true;
+    this.readers.clear();
+    return report;
+  }
+
+  private keepForReplay(states: readonly BlockState[], keep: Uint8Array, forced: Uint8Array): void {
+    const { bitWords, beforeBitWords, edgeWords, beforeEdgeWords, before } = this;
+    for (let i = 0; i < bitWords.length; i += 1) beforeBitWords[i] = bitWords[i]!;
+    for (let i = 0; i < edgeWords.length; i += 1) beforeEdgeWords[i] = edgeWords[i]!;
+    const beforeStates = before.states;
+    for (let i = 0; i < states.length; i += 1) beforeStates[i] = states[i]!;
+    if (this.forcesChanged) {
+      before.keep.set(keep);
+      before.forced.set(forced);
+      this.forcesChanged = false;
+    }
+  }
+
+  private forceBit(bit: number, value: boolean): void {
+    const { bits, keep, forced } = this.core.memory;
+    const layout = this.plan.layout;
+    this.forcesChanged = true;
     const v = value ? 1 : 0;
     keep[bit] = 0;
     forced[bit] = v;
     bits[bit] = v;
-    if (bit >= layout.outputs && bit < layout.memory) core.outputImage[bit - layout.outputs] = v;
-  };
+    if (bit >= layout.outputs && bit < layout.memory) this.core.outputImage[bit - layout.outputs] = v;
+  }
 
-  const releaseBit = (bit: number): void => {
-    forcesChanged = true;
-    core.memory.keep[bit] = 1;
-    core.memory.forced[bit] = 0;
-  };
-
-  const scan = (): void => {
-    const { bits, keep, forced } = core.memory;
-    for (let i = 0; i < core.field.length; i += 1) {
-      const bit = layout.inputs + i;
-      bits[bit] = (core.field[i]! & keep[bit]!) | forced[bit]!;
-    }
-    if (recordFlow) {
-      for (let i = 0; i < bitWords.length; i += 1) beforeBitWords[i] = bitWords[i]!;
-      for (let i = 0; i < edgeWords.length; i += 1) beforeEdgeWords[i] = edgeWords[i]!;
-      for (let i = 0; i < states.length; i += 1) beforeStates[i] = states[i]!;
-      if (forcesChanged) {
-        before.keep.set(keep);
-        before.forced.set(forced);
-        forcesChanged = false;
-      }
-    }
-    replayable = recordFlow;
-    kernel(core.memory, scanMs);
-    const image = core.outputImage;
-    for (let i = 0; i < image.length; i += 1) image[i] = bits[layout.outputs + i]!;
-    core.scanCount += 1;
-    core.timeMs += scanMs;
-  };
-
-  const runtime: Runtime = {
-    plan,
-    scanMs,
-    evaluator: kind,
-    get scanCount() {
-      return core.scanCount;
-    },
-    get timeMs() {
-      return core.timeMs;
-    },
-    setInput(index, value) {
-      if (!(index >= 1 && index <= core.field.length && Number.isInteger(index))) checkIndex(index, plan.space.inputs, 'setInput', '%IX');
-      core.field[index - 1] = value ? 1 : 0;
-    },
-    setInputs(values) {
-      const n = Math.min(values.length, core.field.length);
-      for (let i = 0; i < n; i += 1) core.field[i] = values[i] ? 1 : 0;
-    },
-    getOutput(index) {
-      checkIndex(index, plan.space.outputs, 'getOutput', '%QX');
-      return core.outputImage[index - 1] === 1;
-    },
-    read(operand) {
-      let reader = readers.get(operand);
-      if (reader === undefined) {
-        if (readers.size > 1000) readers.clear();
-        reader = resolveReader(plan, operand);
-        readers.set(operand, reader);
-      }
-      return reader === null ? undefined : reader(core.memory);
-    },
-    scan,
-    run(ms) {
-      if (!Number.isFinite(ms) || ms < 0) throw new RangeError(`run: the time must be a number of ms ≥ 0, not ${String(ms)}`);
-      const scans = Math.ceil(ms / scanMs);
-      for (let i = 0; i < scans; i += 1) scan();
-    },
-    force(operand, value) {
-      const bit = resolveBit(plan, operand);
-      if (!bit.ok) return bit;
-      core.forces.set(formatAddress(bit.value.address), { bit: bit.value.bit, value });
-      forceBit(bit.value.bit, value);
-      return ok(undefined);
-    },
-    unforce(operand) {
-      const bit = resolveBit(plan, operand);
-      if (!bit.ok) return;
-      const key = formatAddress(bit.value.address);
-      if (!core.forces.has(key)) return;
-      core.forces.delete(key);
-      releaseBit(bit.value.bit);
-    },
-    clearForces() {
-      for (const { bit } of core.forces.values()) releaseBit(bit);
-      core.forces.clear();
-    },
-    forces() {
-      return new Map([...core.forces].map(([key, { value }]) => [key, value]));
-    },
-    powerFlow() {
-      recordFlow = true;
-      if (flowCache !== null && flowCache.scanCount === core.scanCount && flowCache.epoch === core.epoch) {
-        return flowCache.view;
-      }
-      const record = createFlowRecord(plan);
-      if (replayable) {
-        const replay = createMemory(plan);
-        copyMemory(before, replay);
-        solveRungs(plan, replay, scanMs, record);
-      }
-      const view = createPowerFlowView(plan, record, core.scanCount, replayable);
-      flowCache = { scanCount: core.scanCount, epoch: core.epoch, view };
-      return view;
-    },
-    snapshot: () => takeSnapshot(core),
-    restore(snapshot) {
-      const report = applySnapshot(core, snapshot, forceBit);
-      core.epoch += 1;
-      replayable = false;
-      forcesChanged = true;
-      readers.clear();
-      return report;
-    },
-  };
-  return runtime;
+  private releaseBit(bit: number): void {
+    this.forcesChanged = true;
+    this.core.memory.keep[bit] = 1;
+    this.core.memory.forced[bit] = 0;
+  }
 }
 
-function chooseKernel(plan: Plan, choice: 'auto' | EvaluatorKind): { kernel: ScanKernel; kind: EvaluatorKind } {
-  const interpreter: ScanKernel = (memory, dtMs) => solveRungs(plan, memory, dtMs);
-  if (choice === 'interpreter') return { kernel: interpreter, kind: 'interpreter' };
+function chooseKernels(plan: Plan, memory: Memory, choice: 'auto' | EvaluatorKind): { kernels: ScanKernels; kind: EvaluatorKind } {
+  // The interpreter always applies the force masks; with nothing forced they change nothing.
+  const interpreter: ScanKernel = (dtMs) => solveRungs(plan, memory, dtMs);
+  const interpreted = { kernels: { forced: interpreter, unforced: interpreter }, kind: 'interpreter' as const };
+  if (choice === 'interpreter') return interpreted;
   try {
-    return { kernel: generateKernel(plan), kind: 'generated' };
+    return { kernels: generateKernels(plan, memory), kind: 'generated' };
   } catch {
     // A Content Security Policy without 'unsafe-eval' makes `new Function` throw: same results, slower.
-    return { kernel: interpreter, kind: 'interpreter' };
+    return interpreted;
   }
 }
 

@@ -63,7 +63,10 @@ export const UP_DOWN_COUNTER_INITIAL: UpDownCounterState = Object.freeze({
   lastCD: false,
 });
 
-/** A preset is an INT: whole and within range. */
+/**
+ * A loaded value is an INT: whole and within range. (PV itself is always an INT here — a validated
+ * constant or another counter's CV — so comparisons use it as given.)
+ */
 const intValue = (value: number): number => Math.max(INT_MIN, Math.min(INT_MAX, Math.trunc(value)));
 
 /** Up counter: R has priority (CV := 0); each rising edge of CU adds 1 up to PVmax; Q := CV >= PV. */
@@ -72,7 +75,7 @@ export function stepCTU(state: UpCounterState, inputs: UpCounterInputs): UpCount
   let cv = state.CV;
   if (inputs.R) cv = 0;
   else if (edge && cv < INT_MAX) cv += 1;
-  const q = cv >= intValue(inputs.PV);
+  const q = cv >= inputs.PV;
   if (q === state.Q && cv === state.CV && inputs.CU === state.lastCU) return state;
   return { Q: q, CV: cv, lastCU: inputs.CU };
 }
@@ -95,10 +98,10 @@ export function stepCTD(state: DownCounterState, inputs: DownCounterInputs): Dow
 export function stepCTUD(state: UpDownCounterState, inputs: UpDownCounterInputs): UpDownCounterState {
   const up = inputs.CU && !state.lastCU;
   const down = inputs.CD && !state.lastCD;
-  const pv = intValue(inputs.PV);
+  const pv = inputs.PV;
   let cv = state.CV;
   if (inputs.R) cv = 0;
-  else if (inputs.LD) cv = pv;
+  else if (inputs.LD) cv = intValue(pv);
   else if (up && !down && cv < INT_MAX) cv += 1;
   else if (down && !up && cv > INT_MIN) cv -= 1;
   const qu = cv >= pv;
