@@ -9,6 +9,8 @@ import { sql } from 'drizzle-orm';
 import {
   boolean,
   check,
+  customType,
+  doublePrecision,
   index,
   integer,
   jsonb,
@@ -84,7 +86,18 @@ export const panelLayouts = pgTable('panel_layouts', {
   createdAt: createdAt(),
 });
 
-/** A lab an instructor publishes to a class (the flow comes with the labs issue). */
+/** Raw bytes (PostgreSQL `bytea`), read and written as a Node Buffer. */
+const bytea = customType<{ data: Buffer; driverData: Uint8Array }>({
+  dataType: () => 'bytea',
+  toDriver: (value) => value,
+  fromDriver: (value) => Buffer.from(value),
+});
+
+/**
+ * A lab an instructor publishes to a class. `panel` is `{ kind: 'builtIn', id }` or
+ * `{ kind: 'custom', layout }` (shared/api/labs.ts); `checkScript` is the whole script, hidden
+ * checks included, and never leaves the server for a student.
+ */
 export const labs = pgTable(
   'labs',
   {
@@ -96,14 +109,42 @@ export const labs = pgTable(
       .notNull()
       .references(() => users.id),
     title: text('title').notNull(),
+    summary: text('summary').notNull().default(''),
     brief: text('brief').notNull().default(''),
     panelLayoutId: uuid('panel_layout_id').references(() => panelLayouts.id),
+    panel: jsonb('panel').notNull().default({ kind: 'builtIn', id: 'reversing-conveyor' }),
+    starterKind: text('starter_kind', { enum: ['empty', 'program', 'template'] }).notNull().default('empty'),
+    starterProgramId: uuid('starter_program_id'),
+    starterVersion: integer('starter_version'),
     starterDocument: jsonb('starter_document'),
     checkScript: jsonb('check_script'),
+    totalPoints: integer('total_points').notNull().default(100),
+    dueAt: timestamp('due_at', { withTimezone: true, mode: 'date' }),
+    latePolicy: jsonb('late_policy').notNull().default({ kind: 'accept' }),
+    templateId: text('template_id'),
+    demo: boolean('demo').notNull().default(false),
     publishedAt: timestamp('published_at', { withTimezone: true, mode: 'date' }),
     createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }),
   },
   (t) => [index('labs_class_idx').on(t.classId)],
+);
+
+/** A file attached to a lab (wiring diagram): PNG, JPEG or PDF, its type read from its first bytes. */
+export const labAttachments = pgTable(
+  'lab_attachments',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    labId: uuid('lab_id')
+      .notNull()
+      .references(() => labs.id, { onDelete: 'cascade' }),
+    filename: text('filename').notNull(),
+    contentType: text('content_type', { enum: ['image/png', 'image/jpeg', 'application/pdf'] }).notNull(),
+    size: integer('size').notNull(),
+    data: bytea('data').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('lab_attachments_lab_idx').on(t.labId)],
 );
 
 /** A ladder program a user owns; its content lives in immutable versions. */
@@ -143,7 +184,12 @@ export const programVersions = pgTable(
   (t) => [primaryKey({ columns: [t.programId, t.number] })],
 );
 
-/** A student's submission of a program version to a lab (graded in the labs issue). */
+/**
+ * A student's submission of one saved program version to a lab. The version's document is copied
+ * in, so the graded program stays readable even if the student deletes the program later.
+ * `autoScore` is the report's score scaled to the lab's points, after a late penalty; `score` is
+ * the final score (the override when there is one, else the auto score).
+ */
 export const submissions = pgTable(
   'submissions',
   {
@@ -154,16 +200,59 @@ export const submissions = pgTable(
     studentId: uuid('student_id')
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
+    programId: uuid('program_id').references(() => programs.id, { onDelete: 'set null' }),
+    versionNumber: integer('version_number').notNull(),
+    document: jsonb('document'),
+    status: text('status', { enum: ['submitted', 'graded', 'returned'] }).notNull(),
+    late: boolean('late').notNull().default(false),
+    penaltyPercent: doublePrecision('penalty_percent').notNull().default(0),
+    report: jsonb('report'),
+    gradingNote: text('grading_note'),
+    autoScore: doublePrecision('auto_score'),
+    overrideScore: doublePrecision('override_score'),
+    overrideReason: text('override_reason'),
+    score: doublePrecision('score'),
+    feedback: text('feedback'),
+    submittedAt: timestamp('submitted_at', { withTimezone: true, mode: 'date' }).notNull(),
+    gradedAt: timestamp('graded_at', { withTimezone: true, mode: 'date' }),
+    returnedAt: timestamp('returned_at', { withTimezone: true, mode: 'date' }),
+  },
+  (t) => [index('submissions_lab_idx').on(t.labId), index('submissions_student_idx').on(t.studentId)],
+);
+
+/** A report a regrade replaced, kept so the instructor can see what changed. */
+export const gradeHistory = pgTable(
+  'grade_history',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    submissionId: uuid('submission_id')
+      .notNull()
+      .references(() => submissions.id, { onDelete: 'cascade' }),
+    report: jsonb('report'),
+    gradingNote: text('grading_note'),
+    autoScore: doublePrecision('auto_score'),
+    gradedAt: timestamp('graded_at', { withTimezone: true, mode: 'date' }).notNull(),
+    replacedAt: timestamp('replaced_at', { withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [index('grade_history_submission_idx').on(t.submissionId)],
+);
+
+/** A student's own copy of a lab's starter, made on first open (one per student and lab). */
+export const labCopies = pgTable(
+  'lab_copies',
+  {
+    labId: uuid('lab_id')
+      .notNull()
+      .references(() => labs.id, { onDelete: 'cascade' }),
+    studentId: uuid('student_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
     programId: uuid('program_id')
       .notNull()
-      .references(() => programs.id),
-    versionNumber: integer('version_number').notNull(),
-    status: text('status', { enum: ['submitted', 'graded', 'returned'] }).notNull(),
-    report: jsonb('report'),
-    score: integer('score'),
-    submittedAt: timestamp('submitted_at', { withTimezone: true, mode: 'date' }).notNull(),
+      .references(() => programs.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
   },
-  (t) => [index('submissions_lab_idx').on(t.labId)],
+  (t) => [primaryKey({ columns: [t.labId, t.studentId] })],
 );
 
 /**
@@ -208,3 +297,7 @@ export type ProgramRow = typeof programs.$inferSelect;
 export type ProgramVersionRow = typeof programVersions.$inferSelect;
 export type OneTimeTokenRow = typeof oneTimeTokens.$inferSelect;
 export type SentMailRow = typeof sentMail.$inferSelect;
+export type LabRow = typeof labs.$inferSelect;
+export type LabAttachmentRow = typeof labAttachments.$inferSelect;
+export type SubmissionRowDb = typeof submissions.$inferSelect;
+export type GradeHistoryRow = typeof gradeHistory.$inferSelect;

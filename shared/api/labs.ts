@@ -224,8 +224,11 @@ export const StudentReportSchema = GradeReportSchema.extend({
   redacted: z.literal(true),
 });
 
-/** `POST /api/labs/:id/try`: the full report (hidden checks included) on the instructor's program. */
-export const TryLabResponseSchema = z.object({ report: GradeReportSchema });
+/**
+ * `POST /api/labs/:id/try`: the full report (hidden checks included) on the instructor's program;
+ * `report` is null and `note` says why when grading hit the wall-clock limit.
+ */
+export const TryLabResponseSchema = z.object({ report: GradeReportSchema.nullable(), note: z.string().nullable() });
 
 // ── Templates ─────────────────────────────────────────────────────────────────────────────────
 
@@ -279,7 +282,8 @@ const submissionScores = {
 export const StudentSubmissionSchema = z.object({
   id: z.string(),
   labId: z.string(),
-  programId: z.string(),
+  /** Null once the student deleted the program; the submitted document is kept with the submission. */
+  programId: z.string().nullable(),
   version: z.number().int(),
   submittedAt: z.string(),
   late: z.boolean(),
@@ -344,7 +348,7 @@ export const GradeHistoryEntrySchema = z.object({
 /** `GET /api/submissions/:id` (instructor, admin): the full report, the exact version's document, history. */
 export const SubmissionDetailSchema = SubmissionRowSchema.extend({
   labId: z.string(),
-  programId: z.string(),
+  programId: z.string().nullable(),
   report: GradeReportSchema.nullable(),
   program: VersionDetailSchema,
   overrideScore: z.number().nullable(),
