@@ -3,12 +3,12 @@
  *
  * IEC 61131-3 LD (8.2, links [memory for the sub-clause]) lets power flow left to right only, and
  * where links join, the state on the right is the OR of the links on the left. TC6 writes that as
- * several `connection`s on one `connectionPointIn`. So each distinct set of feeds is one junction;
- * each contact, coil or block is an edge from the junction of its feeds to its own output; each
- * feed of a junction is an empty wire. A rung is a connected group of elements between the rails,
- * and it is series-parallel exactly when that two-terminal graph reduces, by merging edges in
- * series (a junction with one way in and one way out) and in parallel (edges with the same ends),
- * to one edge from the left rail to the right rail.
+ * several `connection`s on one `connectionPointIn`. So each distinct set of feeds is one junction
+ * (a single feed is no junction: the element hangs straight off it); each contact, coil or block is
+ * an edge from the junction of its feeds to its own output; each feed of a junction is an empty
+ * wire, and a junction whose feeds include all of a smaller junction's is fed through that one.
+ * A rung is a connected group of elements between the rails, and it is series-parallel exactly
+ * when that two-terminal graph reduces (`seriesParallel.ts`) to one edge from rail to rail.
  */
 import { BLOCK_SPECS } from '../blocks';
 import { fail, ok, type Result } from '../result';
@@ -31,7 +31,6 @@ export interface RecoveredRung {
 
 /** Branches deeper than this are refused (the document's schema nests as deep; a reader's stack does not). */
 export const MAX_NESTING = 64;
-
 
 /** Where a power-flow input is fed from: the left rail or another element's output. */
 type Feed = { kind: 'rail'; rail: RailRecord } | { kind: 'element'; element: PowerElement };
