@@ -1,12 +1,13 @@
 /**
  * Where an insertion goes when no drop slot is selected: right after the focused element, or, for a
- * selected rung, before its coils (a contact) or at its end (a coil or block). Pure, over the
- * document.
+ * selected rung, before its coils (a contact) or at its end (a coil or block); and how a slot
+ * maps onto the node target of the shared `insertElements` edit. Pure, over the document.
  */
+import type { NodeTarget } from '@shared/ladder/edits';
 import type { Program } from '@shared/ladder/schema';
-import { findPath, getNode } from '@shared/ladder/walk';
+import { outputTailStart } from '@shared/ladder/shape';
+import { findPath, getNode, isElement } from '@shared/ladder/walk';
 import type { SlotTarget } from './layoutTypes';
-import { outputTailStart } from './layoutNetwork';
 import type { PaletteItem } from './palette';
 import { focusElementId, type Selection } from './selection';
 
@@ -52,4 +53,23 @@ export function selectionRungId(program: Program, selection: Selection): string 
   const focus = focusElementId(selection);
   if (focus === undefined) return undefined;
   return program.rungs.find((r) => findPath(r.network, focus) !== null)?.id;
+}
+
+/**
+ * The shared `insertElements` target for a drop slot. A slot is a gap in a series (`path` names
+ * the series, `index` the gap: 0 before the first item) or the wire beside an element standing
+ * alone as a branch of a parallel (`path` names the element, `index` 0 before it, else after).
+ * An empty series is filled from its start. `undefined` when the slot leads nowhere.
+ */
+export function slotInsertTarget(program: Program, slot: SlotTarget): (NodeTarget & { position: 'before' | 'after' }) | undefined {
+  const rung = program.rungs.find((r) => r.id === slot.rungId);
+  const node = rung ? getNode(rung.network, slot.path) : undefined;
+  if (!node) return undefined;
+  if (isElement(node)) return { rungId: slot.rungId, path: slot.path, position: slot.index === 0 ? 'before' : 'after' };
+  if (node.kind !== 'series') return undefined;
+  if (node.items.length === 0) return { rungId: slot.rungId, path: slot.path, position: 'before' };
+  const gap = Math.max(0, Math.min(slot.index, node.items.length));
+  return gap === 0
+    ? { rungId: slot.rungId, path: [...slot.path, 0], position: 'before' }
+    : { rungId: slot.rungId, path: [...slot.path, gap - 1], position: 'after' };
 }

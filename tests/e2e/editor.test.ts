@@ -105,7 +105,7 @@ describe('the rung editor in a real browser', () => {
     await setOperand(page, '%QX1');
     await clickCanvas(page, await elementPoint(page, shape([[c('a'), c('b'), q('k')]]), 'b'));
     await page.getByRole('button', { name: /^Add branch below/ }).click();
-    const branched = shape([[c('a'), { kind: 'parallel', id: 'p', branches: [{ kind: 'series', id: 't', items: [c('b')] }, { kind: 'series', id: 'u', items: [] }] }, q('k')]]);
+    const branched = shape([[c('a'), { kind: 'parallel', id: 'p', branches: [c('b'), { kind: 'series', id: 'u', items: [] }] }, q('k')]]);
     await dragFromPalette(page, 'contact:no', await slotPoint(page, branched, 0, [1, 1], 0));
     await setOperand(page, '%QX1');
 

@@ -1,13 +1,23 @@
 /**
  * Commands on elements: insert from the palette, delete, branch, move along the rung, copy, cut
- * and paste. Each `perform` is pure over the editor state.
+ * and paste. Each `perform` is pure over the editor state; the document changes are the shared
+ * edits, reached through `../gestures`.
  */
-import type { NetworkNode, Program } from '@shared/ladder/schema';
-import { ID_PREFIX } from '@shared/ladder/ids';
+import type { Element } from '@shared/ladder/schema';
 import { elementsOfProgram, findElement } from '@shared/ladder/walk';
-import { addBranchBelow, insertAtSlot, moveAlong, removeNodes, wrapInParallel } from '../networkOps';
+import { createElement } from '../elementFactory';
+import {
+  addBranchUnder,
+  deleteElements,
+  deleteRungs,
+  freshCopies,
+  freshElementId,
+  insertAtSlot,
+  moveElementBy,
+  pasteRungs,
+  wrapElements,
+} from '../gestures';
 import { paletteItem } from '../palette';
-import { cloneRung, cloneWithFreshIds, createElement, idSource, insertRungs, removeRungs } from '../programOps';
 import { NO_SELECTION, focusElementId, selectElements, selectRungs, selectedElementIds, selectedRungIds } from '../selection';
 import { insertionSlot, selectionRungId, slotAfter } from '../slots';
 import type { Command, CommandName, EditorState } from './types';
@@ -16,16 +26,11 @@ const hasElements = (s: EditorState) => selectedElementIds(s.selection).length >
 const hasFocus = (s: EditorState) => focusElementId(s.selection) !== undefined;
 
 /** The selected elements in document order (the order they are copied and pasted in). */
-function selectedNodes(state: EditorState): NetworkNode[] {
+function selectedNodes(state: EditorState): Element[] {
   const ids = new Set(selectedElementIds(state.selection));
   return elementsOfProgram(state.doc)
     .filter((located) => ids.has(located.element.id))
     .map((located) => located.element);
-}
-
-function newBranchIds(doc: Program) {
-  const next = idSource(doc);
-  return { parallel: next(ID_PREFIX.parallel), top: next(ID_PREFIX.series), below: next(ID_PREFIX.series) };
 }
 
 export const ELEMENT_COMMANDS = {
@@ -44,9 +49,9 @@ export const ELEMENT_COMMANDS = {
       if (!item) return;
       const slot = insertionSlot(s.doc, s.selection, item);
       if (!slot) return;
-      const next = idSource(s.doc);
-      const element = createElement(item, next(ID_PREFIX[item.kind]), s.doc);
-      return { doc: insertAtSlot(s.doc, slot, [element], next(ID_PREFIX.series)), selection: selectElements([element.id]) };
+      const element = createElement(item, freshElementId(s.doc, item.kind), s.doc);
+      const doc = insertAtSlot(s.doc, slot, [element]);
+      return doc === s.doc ? undefined : { doc, selection: selectElements([element.id]) };
     },
   },
   'delete-selection': {
@@ -58,10 +63,10 @@ export const ELEMENT_COMMANDS = {
     enabled: (s) => hasElements(s) || selectedRungIds(s.selection).length > 0,
     perform: (s) => {
       const rungIds = selectedRungIds(s.selection);
-      if (rungIds.length > 0) return { doc: removeRungs(s.doc, new Set(rungIds)), selection: NO_SELECTION };
+      if (rungIds.length > 0) return { doc: deleteRungs(s.doc, rungIds), selection: NO_SELECTION };
       const ids = selectedElementIds(s.selection);
       const after = slotAfterDeletion(s, ids);
-      return { doc: removeNodes(s.doc, new Set(ids)), selection: after };
+      return { doc: deleteElements(s.doc, ids), selection: after };
     },
   },
   'wrap-in-parallel': {
@@ -70,8 +75,8 @@ export const ELEMENT_COMMANDS = {
     group: 'element',
     shortcuts: ['Shift+B'],
     edits: true,
-    enabled: (s) => hasElements(s) && wrapInParallel(s.doc, selectedElementIds(s.selection), newBranchIds(s.doc)) !== s.doc,
-    perform: (s) => ({ doc: wrapInParallel(s.doc, selectedElementIds(s.selection), newBranchIds(s.doc)) }),
+    enabled: (s) => hasElements(s) && wrapElements(s.doc, selectedElementIds(s.selection)) !== s.doc,
+    perform: (s) => ({ doc: wrapElements(s.doc, selectedElementIds(s.selection)) }),
   },
   'add-branch-below': {
     name: 'add-branch-below',
@@ -83,7 +88,7 @@ export const ELEMENT_COMMANDS = {
     perform: (s) => {
       const focus = focusElementId(s.selection);
       if (focus === undefined) return;
-      return { doc: addBranchBelow(s.doc, focus, newBranchIds(s.doc)) };
+      return { doc: addBranchUnder(s.doc, focus) };
     },
   },
   'move-element-left': {
@@ -92,8 +97,8 @@ export const ELEMENT_COMMANDS = {
     group: 'element',
     shortcuts: ['Alt+ArrowLeft'],
     edits: true,
-    enabled: (s) => hasFocus(s) && moveAlong(s.doc, focusElementId(s.selection) as string, -1) !== s.doc,
-    perform: (s) => ({ doc: moveAlong(s.doc, focusElementId(s.selection) as string, -1) }),
+    enabled: (s) => hasFocus(s) && moveElementBy(s.doc, focusElementId(s.selection) as string, -1) !== s.doc,
+    perform: (s) => ({ doc: moveElementBy(s.doc, focusElementId(s.selection) as string, -1) }),
   },
   'move-element-right': {
     name: 'move-element-right',
@@ -101,8 +106,8 @@ export const ELEMENT_COMMANDS = {
     group: 'element',
     shortcuts: ['Alt+ArrowRight'],
     edits: true,
-    enabled: (s) => hasFocus(s) && moveAlong(s.doc, focusElementId(s.selection) as string, 1) !== s.doc,
-    perform: (s) => ({ doc: moveAlong(s.doc, focusElementId(s.selection) as string, 1) }),
+    enabled: (s) => hasFocus(s) && moveElementBy(s.doc, focusElementId(s.selection) as string, 1) !== s.doc,
+    perform: (s) => ({ doc: moveElementBy(s.doc, focusElementId(s.selection) as string, 1) }),
   },
   copy: {
     name: 'copy',
@@ -123,7 +128,7 @@ export const ELEMENT_COMMANDS = {
     perform: (s) => {
       const clipboard = copyOf(s);
       const rungIds = selectedRungIds(s.selection);
-      const doc = rungIds.length > 0 ? removeRungs(s.doc, new Set(rungIds)) : removeNodes(s.doc, new Set(selectedElementIds(s.selection)));
+      const doc = rungIds.length > 0 ? deleteRungs(s.doc, rungIds) : deleteElements(s.doc, selectedElementIds(s.selection));
       return { doc, clipboard, selection: NO_SELECTION };
     },
   },
@@ -137,17 +142,17 @@ export const ELEMENT_COMMANDS = {
     perform: (s) => {
       const clip = s.clipboard;
       if (!clip) return;
-      const next = idSource(s.doc);
       if (clip.kind === 'rungs') {
-        const rungs = clip.rungs.map((r) => cloneRung(r, next));
         const anchor = selectionRungId(s.doc, s.selection);
         const at = anchor === undefined ? s.doc.rungs.length : s.doc.rungs.findIndex((r) => r.id === anchor) + 1;
-        return { doc: insertRungs(s.doc, at, rungs), selection: selectRungs(rungs.map((r) => r.id)) };
+        const pasted = pasteRungs(s.doc, at, clip.rungs);
+        return { doc: pasted.doc, selection: selectRungs(pasted.rungIds) };
       }
       const slot = pasteSlot(s);
       if (!slot) return;
-      const nodes = clip.nodes.map((n) => cloneWithFreshIds(n, next));
-      return { doc: insertAtSlot(s.doc, slot, nodes, next(ID_PREFIX.series)), selection: selectElements(nodes.map((n) => n.id)) };
+      const copies = freshCopies(s.doc, clip.elements);
+      const doc = insertAtSlot(s.doc, slot, copies);
+      return doc === s.doc ? undefined : { doc, selection: selectElements(copies.map((n) => n.id)) };
     },
   },
 } as const satisfies Partial<Record<CommandName, Command>>;
@@ -155,7 +160,7 @@ export const ELEMENT_COMMANDS = {
 function copyOf(s: EditorState): EditorState['clipboard'] {
   const rungIds = new Set(selectedRungIds(s.selection));
   if (rungIds.size > 0) return { kind: 'rungs', rungs: s.doc.rungs.filter((r) => rungIds.has(r.id)) };
-  return { kind: 'elements', nodes: selectedNodes(s) };
+  return { kind: 'elements', elements: selectedNodes(s) };
 }
 
 function pasteSlot(s: EditorState) {

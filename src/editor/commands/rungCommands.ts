@@ -1,7 +1,11 @@
-/** Commands on whole rungs and on the selection itself (arrow keys, select all). */
+/**
+ * Commands on whole rungs and on the selection itself (arrow keys, select all). Rung changes are
+ * the shared edits (`shared/ladder/edits.ts`), some through `../gestures`.
+ */
+import { duplicateRung, moveRung } from '@shared/ladder/edits';
 import { elementsOfProgram } from '@shared/ladder/walk';
+import { addEmptyRung, deleteRungs } from '../gestures';
 import { moveSelection } from '../navigation';
-import { cloneRung, emptyRung, idSource, insertRungs, moveRung, removeRungs } from '../programOps';
 import { NO_SELECTION, selectElements, selectRungs, selectedRungIds, selectSlot } from '../selection';
 import { selectionRungId } from '../slots';
 import type { Command, CommandName, EditorState } from './types';
@@ -14,8 +18,9 @@ const rungIndex = (s: EditorState) => {
 
 /** A new empty rung at `at`, with its one slot selected so the next key press fills it. */
 function newRungAt(s: EditorState, at: number) {
-  const rung = emptyRung(idSource(s.doc));
-  return { doc: insertRungs(s.doc, at, [rung]), selection: selectSlot({ rungId: rung.id, path: [], index: 0 }) };
+  const added = addEmptyRung(s.doc, at);
+  if (added.rungId === null) return;
+  return { doc: added.doc, selection: selectSlot({ rungId: added.rungId, path: [], index: 0 }) };
 }
 
 const select = (name: CommandName, label: string, key: string, direction: 'left' | 'right' | 'up' | 'down'): Command => ({
@@ -85,8 +90,9 @@ export const RUNG_COMMANDS = {
       const index = rungIndex(s);
       const rung = s.doc.rungs[index];
       if (!rung) return;
-      const copy = cloneRung(rung, idSource(s.doc));
-      return { doc: insertRungs(s.doc, index + 1, [copy]), selection: selectRungs([copy.id]) };
+      const doc = duplicateRung(s.doc, { rungId: rung.id });
+      const copy = doc.rungs[index + 1];
+      return doc === s.doc || !copy ? undefined : { doc, selection: selectRungs([copy.id]) };
     },
   },
   'move-rung-up': {
@@ -96,7 +102,7 @@ export const RUNG_COMMANDS = {
     shortcuts: ['Alt+ArrowUp'],
     edits: true,
     enabled: (s) => rungIndex(s) > 0,
-    perform: (s) => ({ doc: moveRung(s.doc, rungOf(s) as string, -1) }),
+    perform: (s) => ({ doc: moveRung(s.doc, { rungId: rungOf(s) as string, offset: -1 }) }),
   },
   'move-rung-down': {
     name: 'move-rung-down',
@@ -105,7 +111,7 @@ export const RUNG_COMMANDS = {
     shortcuts: ['Alt+ArrowDown'],
     edits: true,
     enabled: (s) => rungIndex(s) >= 0 && rungIndex(s) < s.doc.rungs.length - 1,
-    perform: (s) => ({ doc: moveRung(s.doc, rungOf(s) as string, 1) }),
+    perform: (s) => ({ doc: moveRung(s.doc, { rungId: rungOf(s) as string, offset: 1 }) }),
   },
   'delete-rung': {
     name: 'delete-rung',
@@ -116,8 +122,7 @@ export const RUNG_COMMANDS = {
     enabled: (s) => rungIndex(s) >= 0,
     perform: (s) => {
       const ids = selectedRungIds(s.selection);
-      const doomed = new Set(ids.length > 0 ? ids : [rungOf(s) as string]);
-      return { doc: removeRungs(s.doc, doomed), selection: NO_SELECTION };
+      return { doc: deleteRungs(s.doc, ids.length > 0 ? ids : [rungOf(s) as string]), selection: NO_SELECTION };
     },
   },
   'edit-rung-comment': {

@@ -5,12 +5,12 @@
  * document and selection, and the editor store commits it to the history in one place. Commands
  * that act on the view (zoom, save, export) call the `effects` they are given.
  */
-import type { NetworkNode, Program, Rung } from '@shared/ladder/schema';
+import type { Element, Program, Rung } from '@shared/ladder/schema';
 import type { ProgramLayout } from '../layoutTypes';
 import type { Selection } from '../selection';
 
 /** What copy and cut keep: elements (pasted in series at a slot) or whole rungs. */
-export type Clipboard = { kind: 'elements'; nodes: readonly NetworkNode[] } | { kind: 'rungs'; rungs: readonly Rung[] };
+export type Clipboard = { kind: 'elements'; elements: readonly Element[] } | { kind: 'rungs'; rungs: readonly Rung[] };
 
 /** What a command reads. */
 export interface EditorState {
