@@ -57,6 +57,20 @@ export const StepSchema = z.union([
   ExpectStepSchema,
 ]);
 export type Step = z.infer<typeof StepSchema>;
+
+/** Each action's own step schema, for parsing a step whose action is known. */
+export const STEP_SCHEMAS = {
+  press: PressStepSchema,
+  release: ReleaseStepSchema,
+  set: SetStepSchema,
+  trip: TripStepSchema,
+  reset: ResetStepSchema,
+  load: LoadStepSchema,
+  block: BlockStepSchema,
+  unblock: UnblockStepSchema,
+  wait: WaitStepSchema,
+  expect: ExpectStepSchema,
+} as const satisfies Record<StepAction, z.ZodType<Step>>;
 export type ExpectStep = z.infer<typeof ExpectStepSchema>;
 
 export const CheckScriptSchema = z.strictObject({

@@ -16,7 +16,7 @@ import { interlockRule } from './devices/interlock';
 import { createEventLog, type EventLog, type FieldEvent, type FieldEventKind } from './events';
 import type { PanelLayout } from './layout';
 import type { Program } from '../ladder/schema';
-import { describeChange, describeCommons, ACTION_WORDS } from './messages';
+import { describeChange, describeCommons, ACTION_WORDS, type ChangeContext } from './messages';
 import { deviceView, type DeviceView } from './views';
 import { wirePanel, type LoadCircuit, type WiredContact, type Wiring } from './wiring';
 import { explainIO, type IoExplanation } from './explain';
@@ -122,7 +122,20 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
   const dtMs = runtime.scanMs;
   let shortCircuit = false;
 
-  const closed = (c: WiredContact): boolean => models[c.device]!.isClosed(states[c.device], params[c.device], c.contact);
+  // Each wired contact's state, refreshed when its device changes: the scan reads bits, not models.
+  const closedBits = new Uint8Array(wiring.contacts.length);
+  const refresh = (i: number): void => {
+    const slots = wiring.slotsOf[i]!;
+    for (let n = 0; n < slots.length; n += 1) {
+      const c = wiring.contacts[slots[n]!]!;
+      closedBits[c.slot] = models[i]!.isClosed(states[i], params[i], c.contact) ? 1 : 0;
+    }
+  };
+  devices.forEach((_, i) => refresh(i));
+  const closed = (c: WiredContact): boolean => closedBits[c.slot] === 1;
+  /** What the layout asks each steppable device to gather before its step. */
+  const isMotor = devices.map((d) => d.kind === 'motor');
+  const isOverload = devices.map((d) => d.kind === 'overload');
   const allClosed = (list: readonly WiredContact[]): boolean => {
     for (let i = 0; i < list.length; i += 1) if (!closed(list[i]!)) return false;
     return true;
@@ -145,12 +158,15 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
 
   const readInputs = (): void => {
     const live = allClosed(wiring.inputCommon);
-    for (const wire of wiring.inputs) runtime.setInput(wire.index, live && closed(wire));
+    const wires = wiring.inputs;
+    for (let n = 0; n < wires.length; n += 1) runtime.setInput(wires[n]!.index, live && closed(wires[n]!));
   };
 
   const writeOutputs = (): void => {
     const live = allClosed(wiring.outputCommon);
-    for (const load of wiring.loads) {
+    const loads = wiring.loads;
+    for (let n = 0; n < loads.length; n += 1) {
+      const load = loads[n]!;
       inputs[load.device]!.energised = live && runtime.getOutput(load.output) && allClosed(load.through);
     }
   };
@@ -159,10 +175,7 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     for (const link of wiring.interlocks) {
       const a = states[link.a] as ContactorState;
       const b = states[link.b] as ContactorState;
-      const verdict = interlockRule(
-        { coil: inputs[link.a]!.energised, engaged: isEngaged(a) },
-        { coil: inputs[link.b]!.energised, engaged: isEngaged(b) },
-      );
+      const verdict = interlockRule(inputs[link.a]!.energised, isEngaged(a), inputs[link.b]!.energised, isEngaged(b));
       inputs[link.a]!.blocked = verdict.blockA;
       inputs[link.b]!.blocked = verdict.blockB;
       inputs[link.device]!.conflict = verdict.conflict;
@@ -191,12 +204,27 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     inputs[i]!.supply = forward && !reverse ? 'forward' : reverse && !forward ? 'reverse' : 'none';
   };
 
+  /**
+   * One reusable change context per device, built once: creating closures in the scan loop would
+   * cost more than the whole engine scan.
+   */
+  const changes: ChangeContext[] = devices.map((device, i) => ({
+    device,
+    before: null,
+    after: null,
+    wordBefore: '',
+    word: '',
+    cutReason: () => (wiring.loadOf[i]! >= 0 ? cutReason(wiring.loads[wiring.loadOf[i]!]!) : ''),
+    holder: () => holderOf(i),
+  }));
+
   const advanceField = (): void => {
     applyInterlocks();
-    for (const i of wiring.stepOrder) {
-      const device = devices[i]!;
-      if (device.kind === 'motor') gatherSupply(i);
-      else if (device.kind === 'overload') {
+    const order = wiring.stepOrder;
+    for (let n = 0; n < order.length; n += 1) {
+      const i = order[n]!;
+      if (isMotor[i]) gatherSupply(i);
+      else if (isOverload[i]) {
         const m = wiring.measures[i]!;
         inputs[i]!.currentA = m >= 0 ? (states[m] as { currentA: number }).currentA : 0;
       }
@@ -204,16 +232,15 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
       const after = models[i]!.step!(before, params[i], inputs[i]!, dtMs);
       if (after === before) continue;
       states[i] = after;
+      refresh(i);
+      const device = devices[i]!;
       const word = models[i]!.word(after, params[i]);
-      const message = describeChange({
-        device,
-        before,
-        after,
-        wordBefore: words[i]!,
-        word,
-        cutReason: () => (wiring.loadOf[i]! >= 0 ? cutReason(wiring.loads[wiring.loadOf[i]!]!) : ''),
-        holder: () => holderOf(i),
-      });
+      const ctx = changes[i]!;
+      ctx.before = before;
+      ctx.after = after;
+      ctx.wordBefore = words[i]!;
+      ctx.word = word;
+      const message = describeChange(ctx);
       words[i] = word;
       if (message) emit(device.id, message.kind, message.text);
     }
@@ -247,6 +274,7 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     if (outcome.state === states[i]) return { ok: true };
     const commonsBefore = [allClosed(wiring.inputCommon), allClosed(wiring.outputCommon)] as const;
     states[i] = outcome.state;
+    refresh(i);
     words[i] = model.word(outcome.state, params[i]);
     const commonsAfter = [allClosed(wiring.inputCommon), allClosed(wiring.outputCommon)] as const;
     const what = ACTION_WORDS[action](args, words[i]!);

@@ -16,6 +16,8 @@ export interface WiredContact {
   readonly contact: string;
   /** `F1 95-96`, for messages. */
   readonly label: string;
+  /** Index of this contact in `Wiring.contacts`: the simulation keeps each one's state in a bit array. */
+  readonly slot: number;
 }
 
 /** A device contact wired to a PLC input. */
@@ -63,6 +65,10 @@ export interface Wiring {
   readonly measures: readonly number[];
   /** Device indices in the order the field advances (see `STEP_ORDER`). */
   readonly stepOrder: readonly number[];
+  /** Every wired contact, by slot. */
+  readonly contacts: readonly WiredContact[];
+  /** For each device, the slots of its wired contacts (to refresh when its state changes). */
+  readonly slotsOf: readonly (readonly number[])[];
 }
 
 function indexOfAddress(text: string): number {
@@ -76,18 +82,23 @@ export function wirePanel(panel: PanelLayout): Wiring {
   const devices = panel.devices;
   const models = devices.map((d) => modelOf(d.kind));
   const indexOf = new Map(devices.map((d, i) => [d.id, i] as const));
-  const wire = (ref: ContactRef): WiredContact => ({
-    device: indexOf.get(ref.device) ?? -1,
-    contact: ref.contact,
-    label: `${ref.device} ${ref.contact}`,
-  });
+  const contacts: WiredContact[] = [];
+  const slotsOf: number[][] = devices.map(() => []);
+  const register = <C extends WiredContact>(contact: Omit<C, 'slot'>): C => {
+    const wired = { ...contact, slot: contacts.length } as C;
+    contacts.push(wired);
+    slotsOf[wired.device]?.push(wired.slot);
+    return wired;
+  };
+  const wire = (ref: ContactRef): WiredContact =>
+    register({ device: indexOf.get(ref.device) ?? -1, contact: ref.contact, label: `${ref.device} ${ref.contact}` });
   const inputs: InputWire[] = [];
   const loads: LoadCircuit[] = [];
   const loadOf = devices.map(() => -1);
   devices.forEach((device, i) => {
     if (device.feeds !== undefined) {
       const contact = feedingContact(device) ?? '';
-      inputs.push({ device: i, contact, label: `${device.id} ${contact}`, index: indexOfAddress(device.feeds), address: device.feeds.toUpperCase() });
+      inputs.push(register<InputWire>({ device: i, contact, label: `${device.id} ${contact}`, index: indexOfAddress(device.feeds), address: device.feeds.toUpperCase() }));
     }
     if (device.drivenBy !== undefined) {
       loadOf[i] = loads.length;
@@ -110,6 +121,8 @@ export function wirePanel(panel: PanelLayout): Wiring {
       measures[i] = indexOf.get(device.params.motor) ?? -1;
     }
   });
+  const inputCommon = panel.inputCommon.map(wire);
+  const outputCommon = panel.outputCommon.map(wire);
   const stepOrder = devices
     .map((d, i) => ({ i, order: STEP_ORDER[d.kind as DeviceKind] }))
     .filter(({ i }) => models[i]!.step !== undefined)
@@ -123,11 +136,13 @@ export function wirePanel(panel: PanelLayout): Wiring {
     inputs,
     loads,
     loadOf,
-    inputCommon: panel.inputCommon.map(wire),
-    outputCommon: panel.outputCommon.map(wire),
+    inputCommon,
+    outputCommon,
     interlocks,
     motorFeeds,
     measures,
     stepOrder,
+    contacts,
+    slotsOf,
   };
 }

@@ -59,7 +59,7 @@ export * from './model';
 export * from './colours';
 export * from './thermal';
 export { isEngaged, type ContactorParams, type ContactorState } from './contactor';
-export { interlockRule, type InterlockParams, type InterlockSide, type InterlockState, type InterlockVerdict } from './interlock';
+export { interlockRule, type InterlockParams, type InterlockState, type InterlockVerdict } from './interlock';
 export { motorDirection, type MotorFeeder, type MotorParams, type MotorState } from './motor';
 export { resetLevel, thermalLevel, type OverloadParams, type OverloadState } from './overload';
 export type { PushbuttonParams, PushbuttonState } from './pushbutton';

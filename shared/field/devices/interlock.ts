@@ -18,14 +18,6 @@ export interface InterlockState {
   readonly conflict: boolean;
 }
 
-/** One side of the interlock as the rule sees it. */
-export interface InterlockSide {
-  /** The coil has power this step. */
-  coil: boolean;
-  /** The carrier is picking up, closed or dropping out. */
-  engaged: boolean;
-}
-
 /** Which carriers the lever holds open this step, and whether that is a conflict. */
 export interface InterlockVerdict {
   blockA: boolean;
@@ -33,10 +25,22 @@ export interface InterlockVerdict {
   conflict: boolean;
 }
 
-/** The interlock rule, as a pure function of both sides. */
-export function interlockRule(a: InterlockSide, b: InterlockSide): InterlockVerdict {
-  if (!a.engaged && !b.engaged && a.coil && b.coil) return { blockA: true, blockB: true, conflict: true };
-  return { blockA: b.engaged, blockB: a.engaged, conflict: false };
+const CONFLICT_VERDICT: InterlockVerdict = Object.freeze({ blockA: true, blockB: true, conflict: true });
+const VERDICTS: readonly InterlockVerdict[] = [
+  Object.freeze({ blockA: false, blockB: false, conflict: false }),
+  Object.freeze({ blockA: false, blockB: true, conflict: false }),
+  Object.freeze({ blockA: true, blockB: false, conflict: false }),
+  Object.freeze({ blockA: true, blockB: true, conflict: false }),
+];
+
+/**
+ * The interlock rule, as a pure function of both sides: whether each coil has power this step and
+ * whether each carrier is engaged (picking up, closed or dropping out). Returns shared frozen
+ * verdicts, so the scan loop allocates nothing.
+ */
+export function interlockRule(coilA: boolean, engagedA: boolean, coilB: boolean, engagedB: boolean): InterlockVerdict {
+  if (!engagedA && !engagedB && coilA && coilB) return CONFLICT_VERDICT;
+  return VERDICTS[(engagedB ? 2 : 0) + (engagedA ? 1 : 0)]!;
 }
 
 const CLEAR: InterlockState = Object.freeze({ conflict: false });

@@ -35,13 +35,14 @@ export interface OverloadState {
   readonly overMs: number;
   /** The last current seen, in A. */
   readonly currentA: number;
+  /** The thermal time constant in s for this relay's class (fixed; kept here so a step need not recompute it). */
+  readonly tauS: number;
 }
 
 const CONTACTS: readonly ContactSpec[] = [
   { name: '95-96', form: 'NC' },
   { name: '97-98', form: 'NO' },
 ];
-const COLD: OverloadState = Object.freeze({ theta: 0, tripped: false, cause: null, overMs: 0, currentA: 0 });
 
 /** Below this the image counts as fully cold (lets a cooling relay reach a fixed state). */
 const COLD_EPSILON = 1e-9;
@@ -56,7 +57,6 @@ export function resetLevel(params: OverloadParams): number {
   return 1 / (params.tripFactor * params.tripFactor);
 }
 
-/** Time constants are fixed per parameter set; computing them once per step would waste time. */
 function tauOf(params: OverloadParams): number {
   return timeConstantS(params.tripClass, params.tripFactor);
 }
@@ -66,7 +66,7 @@ export const overload: DeviceModel<OverloadParams, OverloadState> = {
   noun: 'an overload relay',
   params: OverloadParamsSchema,
   contacts: () => CONTACTS,
-  initial: () => COLD,
+  initial: (params) => ({ theta: 0, tripped: false, cause: null, overMs: 0, currentA: 0, tauS: tauOf(params) }),
   isClosed: (state, _params, contact) => (contact === '95-96' ? !state.tripped : state.tripped),
   word: (state) => (state.tripped ? 'tripped' : 'ok'),
   words: () => ['ok', 'tripped'],
@@ -74,7 +74,7 @@ export const overload: DeviceModel<OverloadParams, OverloadState> = {
     const current = inputs.currentA;
     if (current === 0 && state.theta === 0 && state.currentA === 0 && state.overMs === 0) return state;
     const perUnit = current / params.settingA;
-    let theta = advanceImage(state.theta, perUnit, dtMs, tauOf(params));
+    let theta = advanceImage(state.theta, perUnit, dtMs, state.tauS);
     if (current === 0 && theta < COLD_EPSILON) theta = 0;
     const overMs = perUnit > 1 ? state.overMs + dtMs : 0;
     const k2 = params.tripFactor * params.tripFactor;
@@ -85,6 +85,7 @@ export const overload: DeviceModel<OverloadParams, OverloadState> = {
       cause: tripsNow ? 'thermal' : state.cause,
       overMs,
       currentA: current,
+      tauS: state.tauS,
     };
   },
   actions: {
@@ -94,7 +95,7 @@ export const overload: DeviceModel<OverloadParams, OverloadState> = {
       const level = thermalLevel(state, params);
       const limit = resetLevel(params);
       if (level > limit) {
-        const tau = tauOf(params);
+        const tau = state.tauS;
         const k2 = params.tripFactor * params.tripFactor;
         // Cooling at no current: θ(t) = θ0·e^(−t/τ); reset allowed at θ = 1.
         const waitS = tau * Math.log((level * k2) / 1);

@@ -130,13 +130,13 @@ describe('contactor', () => {
 
 describe('mechanical interlock rule (DESIGN.md)', () => {
   it('holds the other contactor open once one is engaged', () => {
-    expect(interlockRule({ coil: true, engaged: true }, { coil: true, engaged: false })).toEqual({ blockA: false, blockB: true, conflict: false });
+    expect(interlockRule(true, true, true, false)).toEqual({ blockA: false, blockB: true, conflict: false });
   });
   it('lets neither close when both coils are energised while both are open, and reports a conflict', () => {
-    expect(interlockRule({ coil: true, engaged: false }, { coil: true, engaged: false })).toEqual({ blockA: true, blockB: true, conflict: true });
+    expect(interlockRule(true, false, true, false)).toEqual({ blockA: true, blockB: true, conflict: true });
   });
   it('does nothing when only one coil is energised', () => {
-    expect(interlockRule({ coil: true, engaged: false }, { coil: false, engaged: false })).toEqual({ blockA: false, blockB: false, conflict: false });
+    expect(interlockRule(true, false, false, false)).toEqual({ blockA: false, blockB: false, conflict: false });
   });
 });
 

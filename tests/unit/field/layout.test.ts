@@ -1,8 +1,20 @@
 import { describe, expect, it } from 'vitest';
 import { builtInPanel, CONVEYOR_FLA_A, parsePanelLayout, REVERSING_CONVEYOR, REVERSING_CONVEYOR_INPUT } from '@shared/field';
 
-/** A deep copy of the default layout's JSON to break on purpose. */
-const layout = (): any => JSON.parse(JSON.stringify(REVERSING_CONVEYOR_INPUT));
+/** The default layout as plain JSON, loosely typed so a test can break it on purpose. */
+interface LooseLayout {
+  devices: {
+    id: string;
+    kind: string;
+    feeds?: string;
+    drivenBy?: string;
+    params: { settingA?: unknown; contactors?: string[]; feeders: { contactor: string }[] };
+  }[];
+  outputCommon: { device: string; contact: string }[];
+}
+
+/** A deep copy of the default layout's JSON. */
+const layout = (): LooseLayout => JSON.parse(JSON.stringify(REVERSING_CONVEYOR_INPUT)) as LooseLayout;
 
 function errorsOf(json: unknown): string[] {
   const result = parsePanelLayout(json);
@@ -107,7 +119,7 @@ describe('layout errors are located messages', () => {
   it('names an interlock on something that is not a contactor and a motor fed by a lamp', () => {
     const json = layout();
     json.devices[9].params.contactors = ['K1', 'P1'];
-    json.devices[14].params.feeders[1].contactor = 'H1';
+    json.devices[14].params.feeders[1]!.contactor = 'H1';
     expect(errorsOf(json)).toEqual([
       'devices[9].params.contactors[1]: "P1" is a lamp, not a contactor',
       'devices[14].params.feeders[1].contactor: "H1" is a horn, not a contactor',
