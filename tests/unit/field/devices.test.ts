@@ -31,6 +31,22 @@ describe('the device table', () => {
   });
 });
 
+describe('contacts follow the state word (the simulation relies on it to skip work)', () => {
+  it('gives the same contacts for states that differ only below the word', () => {
+    const k = DEVICE_MODELS.contactor;
+    const kp = k.params.parse({});
+    const picking = k.step!(k.initial(kp), kp, inputs({ energised: true }), 10);
+    expect(k.word(picking, kp)).toBe(k.word(k.initial(kp), kp));
+    expect(k.contacts(kp).map((c) => k.isClosed(picking, kp, c.name))).toEqual(k.contacts(kp).map((c) => k.isClosed(k.initial(kp), kp, c.name)));
+    const f = DEVICE_MODELS.overload;
+    const fp = f.params.parse({ settingA: 2.4 });
+    const warm = f.step!(f.initial(fp), fp, inputs({ currentA: 3 }), 60_000);
+    expect(warm.theta).toBeGreaterThan(0);
+    expect(f.word(warm, fp)).toBe('ok');
+    expect(f.contacts(fp).map((c) => f.isClosed(warm, fp, c.name))).toEqual([true, false]);
+  });
+});
+
 describe('momentary pushbutton', () => {
   const pb = DEVICE_MODELS.pushbutton;
   it('an NO button closes 13-14 only while pressed', () => {
