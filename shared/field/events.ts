@@ -58,7 +58,8 @@ export function createEventLog(capacity = 10_000): EventLog {
       }
     },
     list: () => (events.length > capacity ? events.slice(events.length - capacity) : events.slice()),
-    since: (from) => events.filter((e) => e.seq >= from),
+    // Events are kept in seq order with no gaps, so the first wanted one is found by arithmetic.
+    since: (from) => (events.length === 0 ? [] : events.slice(Math.max(0, from - events[0]!.seq))),
     get total() {
       return total;
     },
