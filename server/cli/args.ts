@@ -22,6 +22,7 @@ Usage:
 
 check     Grade a program with a check script; prints the grade report as JSON.
           Exit 0 when every check passes, 1 when one fails, 2 on bad input.
+          A program that loads but does not compile fails every check (exit 1, with its diagnostics).
 validate  Print the program's diagnostics; exit 2 when it has errors.
 st        Print the program as IEC 61131-3 Structured Text.
 
