@@ -350,6 +350,7 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
         states[i] = snapshot.states[i];
         words[i] = models[i]!.word(states[i], params[i]);
         Object.assign(inputs[i]!, snapshot.inputs[i]);
+        refresh(i);
       });
       return true;
     },

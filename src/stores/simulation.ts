@@ -18,6 +18,9 @@ import { createSimulatorSession, type SimulatorSession } from '@/simulation/sess
 /** Where the simulation is: never run since the last (re)start, running, or paused. */
 export type SimulationMode = 'stopped' | 'running' | 'paused';
 
+/** Views refresh on every VIEW_EVERY-th animation frame while running. */
+export const VIEW_EVERY = 2;
+
 export const useSimulationStore = defineStore('simulation', () => {
   const session = shallowRef<SimulatorSession | null>(null);
   const tick = ref(0);
@@ -29,8 +32,15 @@ export const useSimulationStore = defineStore('simulation', () => {
   const traced = ref<string[]>(['%IX1', '%IX2', '%QX1', '%IX7']);
   let scheduler: FrameScheduler = browserScheduler();
 
+  /** Virtual time and scans, updated on every frame (cheap to show); the other views follow `tick`. */
+  const clock = ref({ timeMs: 0, scanCount: 0 });
+  let framesSinceView = 0;
+
   const changed = (): void => {
     tick.value += 1;
+    framesSinceView = 0;
+    const sim = session.value?.simulation;
+    clock.value = { timeMs: sim?.timeMs ?? 0, scanCount: sim?.scanCount ?? 0 };
   };
 
   const loop = createFrameLoop({
@@ -43,7 +53,14 @@ export const useSimulationStore = defineStore('simulation', () => {
     onFrame(scans, behind) {
       behindMs.value = behind;
       session.value?.advance(scans);
-      changed();
+      // The panel, table and rungs redraw at most every VIEW_EVERY frames (30 Hz at 60 fps): the
+      // scans themselves still run on every frame, and every change is shown within 33 ms.
+      framesSinceView += 1;
+      if (framesSinceView >= VIEW_EVERY) changed();
+      else {
+        const sim = session.value?.simulation;
+        clock.value = { timeMs: sim?.timeMs ?? 0, scanCount: sim?.scanCount ?? 0 };
+      }
     },
   });
 
@@ -65,8 +82,8 @@ export const useSimulationStore = defineStore('simulation', () => {
     void tick.value;
     return session.value?.scanMs ?? DEFAULT_SCAN_MS;
   });
-  const timeMs = computed(() => current()?.timeMs ?? 0);
-  const scanCount = computed(() => current()?.scanCount ?? 0);
+  const timeMs = computed(() => clock.value.timeMs);
+  const scanCount = computed(() => clock.value.scanCount);
   const devices = computed(() => current()?.devices() ?? []);
   const io = computed(() => current()?.explain() ?? null);
   const forces = computed(() => current()?.runtime.forces() ?? new Map<string, boolean>());
@@ -112,6 +129,7 @@ export const useSimulationStore = defineStore('simulation', () => {
     loop.stop();
     if (mode.value === 'running') mode.value = 'paused';
     behindMs.value = 0;
+    changed();
   }
 
   /** One scan, then paused. */

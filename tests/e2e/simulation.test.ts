@@ -114,5 +114,8 @@ describe('the simulator on the default panel in a real browser', () => {
     expect(await reason('%QX1')).toBe('%QX1 ON, K1 open (F1 95-96 open)');
     expect(await page.locator('.event-log').innerText()).toContain('K1 dropped out: F1 95-96 opened');
     await shot('simulation-6-overload-tripped');
+    await page.locator('.dock').screenshot({ path: `${SHOTS}/simulation-7-dock.png` });
+    await page.locator('.dock').evaluate((el) => (el.scrollTop = el.scrollHeight));
+    await page.locator('.dock').screenshot({ path: `${SHOTS}/simulation-8-dock-scrolled.png` });
   });
 });

@@ -57,6 +57,20 @@ export interface PresentedReport {
   failedCount: number;
 }
 
+/**
+ * A report as an API answer parsed it. The routes' schemas check the fields the screens use and let
+ * events, trace and diagnostics pass as the shared runner made them, so the answer is the shared
+ * report type; this is the one place that says so.
+ */
+export function fullReportFromApi(report: object): GradeReport {
+  return report as GradeReport;
+}
+
+/** A student's (redacted) report as an API answer parsed it; see `fullReportFromApi`. */
+export function studentReportFromApi(report: object): StudentReport {
+  return report as StudentReport;
+}
+
 /** An expectation or a found value as a person reads it. */
 export function formatValue(value: Expectation | Actual): string {
   if (value === null) return 'nothing (not on this panel or program)';
