@@ -29,6 +29,8 @@ export interface SimulationOptions {
   scanMs?: number;
   /** How many events the log keeps (the latest ones); 10 000 if omitted. */
   maxEvents?: number;
+  /** Record the engine's power flow from the first scan (a live view wants it; grading does not). */
+  recordPowerFlow?: boolean;
 }
 
 /**
@@ -106,7 +108,7 @@ export function createSimulation(options: SimulationOptions): SimulationResult {
     const more = errors.length > 1 ? ` (and ${errors.length - 1} more)` : '';
     return { ok: false, diagnostics: compiled.diagnostics, error: `the program does not compile: ${first}${more}` };
   }
-  const runtime = createRuntime(compiled.plan, { scanMs: scanMs.value });
+  const runtime = createRuntime(compiled.plan, { scanMs: scanMs.value, recordPowerFlow: options.recordPowerFlow === true });
   return { ok: true, simulation: buildSimulation(wirePanel(panel), runtime, options.maxEvents), warnings: compiled.diagnostics };
 }
 

@@ -149,3 +149,12 @@ describe('determinism', () => {
     expect(once()).toBe(once());
   });
 });
+
+describe('power flow', () => {
+  it('is recorded from the first scan when asked for', () => {
+    const result = createSimulation({ program: threeWire(), panel: REVERSING_CONVEYOR, recordPowerFlow: true });
+    if (!result.ok) throw new Error(result.error);
+    result.simulation.run(20);
+    expect(result.simulation.runtime.powerFlow().recorded).toBe(true);
+  });
+});
