@@ -62,12 +62,12 @@ export interface PresentedReport {
  * events, trace and diagnostics pass as the shared runner made them, so the answer is the shared
  * report type; this is the one place that says so.
  */
-export function fullReportFromApi(report: object): GradeReport {
+export function fullReportFromApi(report: unknown): GradeReport {
   return report as GradeReport;
 }
 
 /** A student's (redacted) report as an API answer parsed it; see `fullReportFromApi`. */
-export function studentReportFromApi(report: object): StudentReport {
+export function studentReportFromApi(report: unknown): StudentReport {
   return report as StudentReport;
 }
 
