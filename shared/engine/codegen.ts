@@ -14,7 +14,7 @@ import { BLOCK_BEHAVIOURS } from './blocks/behaviours';
 import type { Memory } from './memory';
 import type { Plan, PlanNode, PlanOp, PlanRung, PlanSource } from './plan';
 
-/** Solves the rungs of one scan over the memory it was built for; same contract as `solveRungs`. */
+/** Solves the rungs of one scan over the memory it was built for; same contract as the interpreter's `buildRungSolver`. */
 export type ScanKernel = (dtMs: number) => void;
 
 type RawKernel = (

@@ -11,7 +11,7 @@ import { formatAddress } from '../ladder/addresses';
 import { fail, ok, type Result } from '../ladder/result';
 import type { BlockState } from './blocks/behaviours';
 import { generateKernels, type ScanKernel, type ScanKernels } from './codegen';
-import { solveRungs } from './interpreter';
+import { buildRungSolver, type FlowRecord, type RungSolver } from './interpreter';
 import { createMemory, wordsOf, type Memory } from './memory';
 import { resolveBit, resolveReader, type Reader } from './operandAccess';
 import type { Plan } from './plan';
@@ -140,6 +140,8 @@ class ScanRuntime implements Runtime {
   private forcesChanged = true;
   private flowCache: { scanCount: number; epoch: number; view: PowerFlowView } | null = null;
   private readonly readers = new Map<string, Reader | null>();
+  /** Built at the first replay: a recording solver over its own scratch memory. */
+  private replayer: Replayer | null = null;
 
   constructor(plan: Plan, scanMs: number, options: RuntimeOptions) {
     this.plan = plan;
@@ -265,9 +267,11 @@ class ScanRuntime implements Runtime {
     if (cached !== null && cached.scanCount === core.scanCount && cached.epoch === core.epoch) return cached.view;
     const record = createFlowRecord(this.plan);
     if (this.replayable) {
-      const replay = createMemory(this.plan);
-      copyMemory(this.before, replay);
-      solveRungs(this.plan, replay, this.scanMs, record);
+      this.replayer ??= createReplayer(this.plan);
+      copyMemory(this.before, this.replayer.memory);
+      this.replayer.solve(this.scanMs);
+      record.left.set(this.replayer.flow.left);
+      record.right.set(this.replayer.flow.right);
     }
     const view = createPowerFlowView(this.plan, record, core.scanCount, this.replayable);
     this.flowCache = { scanCount: core.scanCount, epoch: core.epoch, view };
@@ -320,7 +324,7 @@ class ScanRuntime implements Runtime {
 
 function chooseKernels(plan: Plan, memory: Memory, choice: 'auto' | EvaluatorKind): { kernels: ScanKernels; kind: EvaluatorKind } {
   // The interpreter always applies the force masks; with nothing forced they change nothing.
-  const interpreter: ScanKernel = (dtMs) => solveRungs(plan, memory, dtMs);
+  const interpreter: ScanKernel = buildRungSolver(plan, memory);
   const interpreted = { kernels: { forced: interpreter, unforced: interpreter }, kind: 'interpreter' as const };
   if (choice === 'interpreter') return interpreted;
   try {
@@ -329,6 +333,19 @@ function chooseKernels(plan: Plan, memory: Memory, choice: 'auto' | EvaluatorKin
     // A Content Security Policy without 'unsafe-eval' makes `new Function` throw: same results, slower.
     return interpreted;
   }
+}
+
+/** A solver that records power flow, over scratch memory a replay copies the saved state into. */
+interface Replayer {
+  readonly memory: Memory;
+  readonly flow: FlowRecord;
+  readonly solve: RungSolver;
+}
+
+function createReplayer(plan: Plan): Replayer {
+  const memory = createMemory(plan);
+  const flow = createFlowRecord(plan);
+  return { memory, flow, solve: buildRungSolver(plan, memory, flow) };
 }
 
 /** Copy memory; block states are immutable, so copying references is enough. */

@@ -11,7 +11,7 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { compile, createRuntime, type Runtime } from '@shared/engine';
+import { compile, createRuntime, type EvaluatorKind, type Runtime } from '@shared/engine';
 import type { AddressSpace } from '@shared/ladder/addresses';
 import type { Program } from '@shared/ladder/schema';
 import type { BenchCase } from './run';
@@ -43,10 +43,15 @@ interface Subject {
   outputs(): boolean[];
 }
 
-function engineSubject(program: Program, space: AddressSpace | undefined, patterns: boolean[][]): { subject: Subject; runtime: Runtime } {
+function engineSubject(
+  program: Program,
+  space: AddressSpace | undefined,
+  patterns: boolean[][],
+  evaluator: EvaluatorKind = 'generated',
+): { subject: Subject; runtime: Runtime } {
   const compiled = compile(program, space ? { space } : {});
   if (!compiled.ok) throw new Error(`bench program does not compile: ${compiled.diagnostics[0]?.message}`);
-  const runtime = createRuntime(compiled.plan, { scanMs: SCAN_MS });
+  const runtime = createRuntime(compiled.plan, { scanMs: SCAN_MS, evaluator });
   const outputs = compiled.plan.space.outputs;
   return {
     runtime,
@@ -144,18 +149,19 @@ function figures(name: string, result: { engineUs: number; baselineUs: number },
   };
 }
 
-async function demoCase(): Promise<BenchCase> {
+async function demoCase(evaluator: EvaluatorKind): Promise<BenchCase> {
   const patterns = inputPatterns(8, 997, 7);
   // The agreement check runs its own pair, so the measured runtime is not the only one in the
   // process (as on a grading server, which runs many side by side).
   checkAgreement('demo', engineSubject(demoProgram(), undefined, patterns).subject, baselineSubject(demoBaselineState(), demoBaselineScan, patterns), 5000);
-  const { subject, runtime } = engineSubject(demoProgram(), undefined, patterns);
+  const { subject, runtime } = engineSubject(demoProgram(), undefined, patterns, evaluator);
   const baseline = baselineSubject(demoBaselineState(), demoBaselineScan, patterns);
   const result = measure(subject, baseline, 101, 50);
-  return figures('engine demo 6 rungs', result, { evaluator: runtime.evaluator, rungs: 6 });
+  const name = evaluator === 'generated' ? 'engine demo 6 rungs' : 'engine demo 6 rungs, interpreter (no code generation)';
+  return figures(name, result, { evaluator: runtime.evaluator, rungs: 6 });
 }
 
-async function generatedCase(): Promise<BenchCase> {
+async function generatedCase(evaluator: EvaluatorKind): Promise<BenchCase> {
   const generated = generateCase(1000);
   const here = path.dirname(fileURLToPath(import.meta.url));
   const dir = path.resolve(here, '../../.tmp/bench');
@@ -169,7 +175,7 @@ async function generatedCase(): Promise<BenchCase> {
   const baselineModule = (await import(pathToFileURL(file).href)) as BaselineModule;
   const patterns = inputPatterns(GENERATED_SPACE.inputs, 1009, 11);
   const fresh = () => ({
-    engine: engineSubject(generated.program, GENERATED_SPACE, patterns),
+    engine: engineSubject(generated.program, GENERATED_SPACE, patterns, evaluator),
     baseline: baselineSubject(baselineModule.createBaselineState(), baselineModule.baselineScan, patterns),
   });
   const check = fresh();
@@ -178,13 +184,19 @@ async function generatedCase(): Promise<BenchCase> {
   const { subject, runtime } = measured.engine;
   const baseline = measured.baseline;
   const result = measure(subject, baseline, 101, 10);
-  return figures('engine generated 1000 rungs', result, {
+  const name = evaluator === 'generated' ? 'engine generated 1000 rungs' : 'engine generated 1000 rungs, interpreter (no code generation)';
+  return figures(name, result, {
     evaluator: runtime.evaluator,
     rungs: 1000,
     elements: runtime.plan.elementCount,
   });
 }
 
+/**
+ * The two cases the targets apply to (generated kernels, the default), then the same two on the
+ * interpreter, the path taken where a Content Security Policy forbids code generation (figures for
+ * information; no target).
+ */
 export default async function (): Promise<BenchCase[]> {
-  return [await demoCase(), await generatedCase()];
+  return [await demoCase('generated'), await generatedCase('generated'), await demoCase('interpreter'), await generatedCase('interpreter')];
 }
