@@ -7,6 +7,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
+import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
+import { threeWireProgram } from '@/simulation/demoPrograms';
 import { launchChromium } from './support/chromium';
 import { startServer, type RunningServer } from './support/server';
 
@@ -117,5 +119,36 @@ describe('the simulator on the default panel in a real browser', () => {
     await page.locator('.dock').screenshot({ path: `${SHOTS}/simulation-7-dock.png` });
     await page.locator('.dock').evaluate((el) => (el.scrollTop = el.scrollHeight));
     await page.locator('.dock').screenshot({ path: `${SHOTS}/simulation-8-dock-scrolled.png` });
+  });
+
+  it('runs the program being edited from the workbench dock and paints its power flow on the canvas', async () => {
+    const student = DEMO_STUDENTS[0]!;
+    await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
+    await page.getByLabel('E-mail').fill(student.email);
+    await page.getByLabel('Password').fill(student.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/programs$/);
+    const doc = threeWireProgram();
+    const id = await page.evaluate(async (program) => {
+      const res = await fetch('/api/programs', { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ title: program.title, document: program }) });
+      return ((await res.json()) as { id: string }).id;
+    }, doc);
+    await page.goto(`${server.url}/programs/${id}`, { waitUntil: 'networkidle' });
+    await page.locator('[data-testid="rung-canvas"]').waitFor();
+    await shot('simulation-9-workbench-stopped');
+    await page.locator('.simulation-dock').getByRole('button', { name: '▶ Run' }).click();
+    await page.locator('[data-device="S4"]').getByRole('radio', { name: 'RUN' }).click();
+    await holdWithMouse('S2', async () => /carrier closed/.test((await contactor('K1')) ?? ''));
+    await expect.poll(motorWord).toBe('forward');
+    // The canvas is pixels: the live paint shows as amber (#d98a1c) somewhere on it.
+    const amber = await page.locator('[data-testid="rung-canvas"] canvas').first().evaluate((canvas: HTMLCanvasElement) => {
+      const ctx = canvas.getContext('2d')!;
+      const { data } = ctx.getImageData(0, 0, canvas.width, canvas.height);
+      let n = 0;
+      for (let i = 0; i < data.length; i += 4) if (Math.abs(data[i]! - 0xd9) < 12 && Math.abs(data[i + 1]! - 0x8a) < 12 && Math.abs(data[i + 2]! - 0x1c) < 12) n += 1;
+      return n;
+    });
+    expect(amber).toBeGreaterThan(200);
+    await shot('simulation-10-workbench-running');
   });
 });

@@ -44,3 +44,27 @@ describe('connected conductors of a drawn rung', () => {
     expect(energised.filter(Boolean).length).toBeGreaterThan(energised.length / 2);
   });
 });
+
+describe('live marks painted over the editor drawing', () => {
+  it('marks the seal-in rung amber where power passes and grey where it does not', async () => {
+    const { liveRungMarks } = await import('@/simulation/livePaint');
+    const session = createSimulatorSession({ program: threeWireProgram(), panel: builtInPanel('reversing-conveyor')!, scanMs: 10 });
+    session.act('S4', 'set', { to: 'RUN' });
+    session.press('S2');
+    session.advance(3);
+    session.release('S2');
+    session.advance(3);
+    const layout = layoutProgram(session.program);
+    const view = createLiveView(session.simulation!.runtime, session.program);
+    const marks = liveRungMarks(layout.rungs[0]!, layout, view);
+    const lines = marks.filter((m) => m.kind === 'line');
+    expect(lines.some((m) => m.kind === 'line' && m.on && m.flow)).toBe(true);
+    expect(lines.some((m) => m.kind === 'line' && !m.on)).toBe(true);
+    // Rung 2 (reverse) is not energised past Stop_PB: its coil arcs are grey.
+    const reverse = liveRungMarks(layout.rungs[1]!, layout, view).filter((m) => m.kind === 'arc');
+    expect(reverse.length).toBe(2);
+    expect(reverse.every((m) => m.kind === 'arc' && !m.on)).toBe(true);
+    const forwardCoil = marks.filter((m) => m.kind === 'arc');
+    expect(forwardCoil.every((m) => m.kind === 'arc' && m.on)).toBe(true);
+  });
+});
