@@ -4,7 +4,8 @@
  *    (compile, simulate, check, report); target under 5 ms;
  *  - one hour of virtual time on the default panel at a 10 ms scan with the belt running forward
  *    (engine + field each scan), in scans per second; target above 1 million.
- * Medians over repeated runs after a warm-up; wall-clock timing lives here, never in tests.
+ * Medians over repeated runs after a warm-up (with the best run beside them, since a shared
+ * machine's load moves the median); wall-clock timing lives here, never in tests.
  */
 import { runChecks } from '@shared/checks';
 import { createSimulation, REVERSING_CONVEYOR } from '@shared/field';
@@ -53,6 +54,7 @@ export default async function fieldBench(): Promise<BenchCase[]> {
     cases.push({
       case: `field: grade lab ${lab.id} (reference solution)`,
       msPerGrading: round(median(samples)),
+      minMs: round(Math.min(...samples)),
       p90Ms: round(percentile(samples, 90)),
       scansPerGrading: scans,
       targetMs: 5,
@@ -66,6 +68,7 @@ export default async function fieldBench(): Promise<BenchCase[]> {
     case: 'field: one hour of virtual time, default panel, 10 ms scan, belt running',
     scans: runs[0]!.scans,
     scansPerSec: Math.round(median(rates)),
+    bestScansPerSec: Math.round(Math.max(...rates)),
     usPerScan: round(1_000_000 / median(rates), 3),
     wallMs: round(median(runs.map((r) => r.ms))),
     target: 1_000_000,
