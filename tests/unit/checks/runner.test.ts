@@ -123,3 +123,27 @@ describe('redactReport', () => {
     expect(rest).toEqual(full);
   });
 });
+
+describe('the example script of DESIGN.md', () => {
+  it('passes on the three-wire reference solution, the hidden overload check included', () => {
+    const example = {
+      panel: 'reversing-conveyor',
+      scanMs: 10,
+      steps: [
+        { expect: { P2: 'lit', '%QX5': true }, label: 'red lamp on at rest', points: 1 },
+        { set: 'S4', to: 'RUN' },
+        { press: 'S2' }, { wait: 100 }, { release: 'S2' }, { wait: 100 },
+        { expect: { K1: 'closed', M1: 'forward' }, label: 'runs forward, sealed in', points: 2 },
+        { trip: 'F1' }, { wait: 50 },
+        { expect: { K1: 'open', '%IX7': false }, label: 'overload drops K1', hidden: true },
+      ],
+    };
+    const r = report({ script: example });
+    expect(r.checks.map((c) => [c.label, c.passed])).toEqual([
+      ['red lamp on at rest', true],
+      ['runs forward, sealed in', true],
+      ['overload drops K1', true],
+    ]);
+    expect([r.score, r.maxScore]).toEqual([4, 4]);
+  });
+});
