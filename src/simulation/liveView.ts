@@ -73,11 +73,10 @@ function blockLive(runtime: Runtime, block: Block): BlockLive {
  * The live view of a runtime after its last scan. Element lookups are computed on first `get` and
  * kept, so a canvas that draws only the visible rungs pays only for those.
  */
-export function createLiveView(runtime: Runtime, program: Program): LiveView {
+export function createLiveView(runtime: Runtime, program: Program | ElementIndex): LiveView {
   const flow = runtime.powerFlow();
   const forces = runtime.forces();
-  const elements = new Map<string, Element>();
-  for (const { element } of elementsOfProgram(program)) elements.set(element.id, element);
+  const elements = 'rungs' in program ? elementIndex(program as Program) : (program as ElementIndex);
   const cache = new Map<string, ElementLive | undefined>();
 
   const forcedOperand = (operand: string): boolean => {
@@ -112,6 +111,15 @@ export function createLiveView(runtime: Runtime, program: Program): LiveView {
       return cache.get(id);
     },
   };
+}
+
+/** Every element of a program by id; build it once per program and pass it to `createLiveView`. */
+export type ElementIndex = ReadonlyMap<string, Element>;
+
+export function elementIndex(program: Program): ElementIndex {
+  const elements = new Map<string, Element>();
+  for (const { element } of elementsOfProgram(program)) elements.set(element.id, element);
+  return elements;
 }
 
 /** The canonical address (`%QX1`) an operand (address or tag) names, or null when it is not a bit. */

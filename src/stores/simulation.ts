@@ -11,7 +11,7 @@ import { DEFAULT_SCAN_MS } from '@shared/engine';
 import { builtInPanel, DEFAULT_PANEL_ID, type ActionArgs, type ActionResult, type DeviceAction, type PanelLayout } from '@shared/field';
 import type { Program } from '@shared/ladder/schema';
 import { browserScheduler, createFrameLoop, type FrameScheduler } from '@/simulation/frameLoop';
-import { createLiveView, type LiveView } from '@/simulation/liveView';
+import { createLiveView, elementIndex, type LiveView } from '@/simulation/liveView';
 import type { SimulationSpeed } from '@/simulation/pacing';
 import { createSimulatorSession, type SimulatorSession } from '@/simulation/session';
 
@@ -100,12 +100,14 @@ export const useSimulationStore = defineStore('simulation', () => {
     void tick.value;
     return session.value?.diagnostics ?? [];
   });
+  /** The running program's elements by id, built once per program (not per frame). */
+  const elements = computed(() => (program.value ? elementIndex(program.value) : null));
   /** Power flow and values per element id for the rung canvas; null before the first scan. */
   const liveView = computed<LiveView | null>(() => {
     const sim = current();
-    const prog = program.value;
-    if (sim === null || prog === null || sim.scanCount === 0) return null;
-    return createLiveView(sim.runtime, prog);
+    const index = elements.value;
+    if (sim === null || index === null || sim.scanCount === 0) return null;
+    return createLiveView(sim.runtime, index);
   });
 
   /** Open a program on a panel (the default panel if none): a fresh, stopped simulation. */
