@@ -23,6 +23,11 @@ import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
+import { createGradingPool, type Grader } from './grading/pool';
+import { labsRouter } from './routes/labs';
+import { labAttachmentsRouter } from './routes/labAttachments';
+import { submissionsRouter } from './routes/submissions';
+import { gradebookRouter } from './routes/gradebook';
 
 /** What `createApp` needs. */
 export interface AppDependencies {
@@ -37,6 +42,8 @@ export interface AppDependencies {
   sessionKey: Uint8Array;
   /** Cost of new password hashes; defaults to `DEFAULT_SCRYPT`. */
   passwordParams?: ScryptParams;
+  /** Grades submissions; defaults to a pool of warm worker threads, started on first use. */
+  grader?: Grader;
 }
 
 /** Builds the app: security headers, logging, the API under `/api`, then the client. */
@@ -52,6 +59,7 @@ export function createApp(deps: AppDependencies): Express {
     version: readVersion(),
     sessionKey: deps.sessionKey,
     passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
+    grader: deps.grader ?? createGradingPool(),
   };
 
   const app = express();
@@ -66,12 +74,16 @@ export function createApp(deps: AppDependencies): Express {
   api.use(healthRouter(ctx));
   // Uploads read multipart bodies, so they come before the JSON-only rule.
   api.use(uploadsRouter(ctx));
+  api.use(labAttachmentsRouter(ctx));
   api.use(requireJsonBody);
   api.use(express.json({ limit: '1mb' }));
   api.use(authRouter(ctx));
   api.use(adminRouter(ctx));
   api.use(programsRouter(ctx));
   api.use(classesRouter(ctx));
+  api.use(labsRouter(ctx));
+  api.use(submissionsRouter(ctx));
+  api.use(gradebookRouter(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -5,6 +5,7 @@ import type { Clock } from './clock';
 import type { Db } from './db/client';
 import type { Mailer } from './mail/mailer';
 import type { ScryptParams } from './auth/passwords';
+import type { Grader } from './grading/pool';
 
 export interface AppContext {
   orm: Db;
@@ -17,4 +18,6 @@ export interface AppContext {
   sessionKey: Uint8Array;
   /** Cost of new password hashes (tests lower it; stored hashes carry their own). */
   passwordParams: ScryptParams;
+  /** Grades submissions off the main thread (the worker pool of `grading/pool.ts`). */
+  grader: Grader;
 }

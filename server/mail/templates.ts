@@ -37,3 +37,18 @@ export function passwordResetMail(a: { to: string; baseUrl: string; token: strin
     { url: `${a.baseUrl}/reset-password#token=${a.token}`, label: 'Choose a new password' },
   );
 }
+
+export function labPublishedMail(a: { to: string; baseUrl: string; className: string; labTitle: string; labId: string; dueAt: Date | null }): OutgoingMail {
+  const due = a.dueAt ? `It is due ${a.dueAt.toISOString()}.` : 'It has no due date.';
+  return compose(a.to, `New lab in ${a.className}: ${a.labTitle}`, [`A new lab, "${a.labTitle}", is open in ${a.className}.`, due], {
+    url: `${a.baseUrl}/labs/${a.labId}`,
+    label: 'Open the lab',
+  });
+}
+
+export function submissionReturnedMail(a: { to: string; baseUrl: string; labTitle: string; labId: string; finalScore: number | null; totalPoints: number; feedback: string | null }): OutgoingMail {
+  const score = a.finalScore === null ? 'It has no score.' : `Your score: ${a.finalScore} of ${a.totalPoints} points.`;
+  const paragraphs = [`Your submission to "${a.labTitle}" was returned.`, score];
+  if (a.feedback) paragraphs.push(`Feedback: ${a.feedback}`);
+  return compose(a.to, `Returned: ${a.labTitle}`, paragraphs, { url: `${a.baseUrl}/labs/${a.labId}`, label: 'See the grade report' });
+}

@@ -1,0 +1,153 @@
+/**
+ * A small pool of warm grading workers (`node:worker_threads`). Starting a worker loads the engine
+ * and the TypeScript loader, which costs far more than one grading (measured in
+ * tests/perf/grading.bench.ts), so workers are started once and reused. Each job has a wall-clock
+ * limit: past it the worker is terminated, the job answers with a note, and a fresh worker takes
+ * its place, so a runaway grading never hangs a request or the pool.
+ */
+import os from 'node:os';
+import { Worker } from 'node:worker_threads';
+import type { GradeJob, GradeOutcome } from './gradeJob';
+
+/** The wall-clock limit of one grading, in ms (issue 8: terminated past 5 s). */
+export const GRADING_TIMEOUT_MS = 5000;
+
+export interface GradingPoolOptions {
+  /** Number of workers; default: one per core but one, at least one, at most four. */
+  size?: number;
+  /** Wall-clock limit per job in ms; default `GRADING_TIMEOUT_MS`. */
+  timeoutMs?: number;
+  /** Tests only: let `grade(job, { spin: true })` make the worker loop forever. */
+  allowSpinForTests?: boolean;
+}
+
+export interface GradeOptions {
+  /** Tests only (needs `allowSpinForTests`): the worker spins instead of grading. */
+  spin?: boolean;
+}
+
+/** Grades jobs off the main thread. */
+export interface Grader {
+  grade(job: GradeJob, options?: GradeOptions): Promise<GradeOutcome>;
+  close(): Promise<void>;
+}
+
+export interface GradingPool extends Grader {
+  /** Workers started so far (replacements included), for tests and the benchmark. */
+  workersStarted(): number;
+  /** Starts every worker now instead of on first use, and waits until they are up. */
+  warm(): Promise<void>;
+}
+
+interface Task {
+  id: number;
+  job: GradeJob;
+  spin: boolean;
+  resolve(outcome: GradeOutcome): void;
+}
+
+interface Slot {
+  worker: Worker;
+  ready: Promise<void>;
+  isReady: boolean;
+  task: Task | null;
+  timer: NodeJS.Timeout | null;
+}
+
+/**
+ * A worker thread does not inherit the TypeScript loader of its parent (tsx, vitest), so from
+ * source the worker starts at a small JavaScript entry that loads `worker.ts` through tsx's API.
+ */
+const WORKER_URL = import.meta.url.endsWith('.ts') ? new URL('./workerEntry.mjs', import.meta.url) : new URL('./worker.js', import.meta.url);
+
+export function defaultPoolSize(): number {
+  return Math.max(1, Math.min(4, os.availableParallelism() - 1));
+}
+
+export function createGradingPool(options: GradingPoolOptions = {}): GradingPool {
+  const size = Math.max(1, options.size ?? defaultPoolSize());
+  const timeoutMs = options.timeoutMs ?? GRADING_TIMEOUT_MS;
+  const slots: (Slot | null)[] = Array.from({ length: size }, () => null);
+  const queue: Task[] = [];
+  let nextId = 1;
+  let started = 0;
+  let closed = false;
+
+  function finish(slot: Slot, outcome: GradeOutcome): void {
+    if (slot.timer) clearTimeout(slot.timer);
+    const task = slot.task;
+    slot.task = null;
+    slot.timer = null;
+    task?.resolve(outcome);
+  }
+
+  /** Drops a worker that timed out or died; the slot gets a fresh one on the next dispatch. */
+  function replace(index: number, slot: Slot, note: string): void {
+    if (slots[index] === slot) slots[index] = null;
+    finish(slot, { report: null, note });
+    void slot.worker.terminate();
+    dispatch();
+  }
+
+  function start(index: number): Slot {
+    started += 1;
+    const worker = new Worker(WORKER_URL);
+    // Idle workers must not keep the process alive (tests, CLI, shutdown).
+    worker.unref();
+    let markReady = (): void => {};
+    const ready = new Promise<void>((resolve) => (markReady = resolve));
+    const slot: Slot = { worker, ready, isReady: false, task: null, timer: null };
+    worker.on('message', (message: { ready?: true; id?: number; outcome?: GradeOutcome }) => {
+      if (message.ready) {
+        slot.isReady = true;
+        markReady();
+      } else if (message.outcome && slot.task?.id === message.id) finish(slot, message.outcome);
+      dispatch();
+    });
+    worker.on('error', (err) => replace(index, slot, `Grading failed in its worker: ${err.message}`));
+    worker.on('exit', () => {
+      if (slots[index] === slot) replace(index, slot, 'The grading worker stopped unexpectedly; submit again');
+    });
+    slots[index] = slot;
+    return slot;
+  }
+
+  function dispatch(): void {
+    if (closed) return;
+    for (let i = 0; i < slots.length && queue.length > 0; i += 1) {
+      const slot = slots[i] ?? start(i);
+      // A starting worker gets its job once loaded, so loading time never counts against the limit.
+      if (slot.task || !slot.isReady) continue;
+      const task = queue.shift()!;
+      slot.task = task;
+      slot.timer = setTimeout(
+        () => replace(i, slot, `Grading stopped after ${timeoutMs / 1000} s of wall-clock time: the program or the checks take too long to run. Simplify the program and submit again.`),
+        timeoutMs,
+      );
+      slot.worker.postMessage({ id: task.id, job: task.job, spin: task.spin });
+    }
+  }
+
+  return {
+    grade(job, gradeOptions = {}) {
+      if (closed) return Promise.resolve({ report: null, note: 'The grading service is shutting down; submit again in a moment' });
+      const spin = gradeOptions.spin === true && options.allowSpinForTests === true;
+      return new Promise<GradeOutcome>((resolve) => {
+        queue.push({ id: nextId++, job, spin, resolve });
+        dispatch();
+      });
+    },
+    workersStarted: () => started,
+    async warm() {
+      await Promise.all(slots.map((slot, i) => (slot ?? start(i)).ready));
+    },
+    async close() {
+      closed = true;
+      const live = slots.filter((s): s is Slot => s !== null);
+      slots.fill(null);
+      for (const slot of live) finish(slot, { report: null, note: 'The grading service is shutting down; submit again in a moment' });
+      for (const task of queue.splice(0)) task.resolve({ report: null, note: 'The grading service is shutting down; submit again in a moment' });
+      await Promise.all(live.map((s) => s.worker.terminate()));
+    },
+  };
+}

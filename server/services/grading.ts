@@ -1,0 +1,47 @@
+/**
+ * Grading a lab's submission: late standing from the due date and policy, the grading job sent to
+ * the worker pool (same shared runner as the browser's self-check), and the scores scaled to the
+ * lab's points. Scores have two decimals at most.
+ */
+import type { LatePolicy, LabPanel } from '@shared/api';
+import type { GradeReport } from '@shared/checks';
+import type { Program } from '@shared/ladder/schema';
+import type { AppContext } from '../context';
+import type { LabRecord } from '../db/labs';
+import type { GradeOutcome } from '../grading/gradeJob';
+import { failure, success, type Outcome } from '../http/failure';
+import { checkLabScript, resolvePanel } from './labChecks';
+
+export const round2 = (n: number): number => Math.round(n * 100) / 100;
+
+/** Where a submission made at `at` stands against the lab's due date. */
+export interface LateStanding {
+  late: boolean;
+  /** The policy refuses it. */
+  refused: boolean;
+  /** Deducted from the auto score, in %. */
+  penaltyPercent: number;
+}
+
+export function lateStanding(lab: LabRecord, at: Date): LateStanding {
+  const late = lab.dueAt !== null && at.getTime() > lab.dueAt.getTime();
+  const policy = lab.latePolicy as LatePolicy;
+  if (!late) return { late, refused: false, penaltyPercent: 0 };
+  return { late, refused: policy.kind === 'refuse', penaltyPercent: policy.kind === 'penalty' ? (policy.penaltyPercent ?? 0) : 0 };
+}
+
+/** The report's score as points of `totalPoints`, after the penalty; 0 without a report. */
+export function autoScoreOf(report: GradeReport | null, totalPoints: number, penaltyPercent: number): number {
+  if (!report) return 0;
+  const fraction = report.maxScore > 0 ? report.score / report.maxScore : report.passed ? 1 : 0;
+  return round2(fraction * totalPoints * (1 - penaltyPercent / 100));
+}
+
+/** Runs the lab's script on `document` in the worker pool. */
+export async function gradeOnLab(ctx: AppContext, lab: LabRecord, document: unknown): Promise<Outcome<GradeOutcome>> {
+  const layout = resolvePanel(lab.panel as LabPanel);
+  if (!layout.ok) return failure('conflict', `The lab's panel is not valid any more: ${layout.failure.message}`);
+  const script = checkLabScript(lab.checkScript, layout.value);
+  if (!script.ok) return failure('conflict', `The lab's check script does not run on its panel: ${script.failure.message}`);
+  return success(await ctx.grader.grade({ program: document as Program, panel: layout.value, script: script.value }));
+}

@@ -1,0 +1,89 @@
+/**
+ * Validation of what a lab runs: its panel (a built-in id or a custom layout, checked by the shared
+ * layout parser) and its check script (the shared step-by-step parser, then against the panel).
+ * Problems come back as `validation` failures with located `fields`: `panel.layout` for the
+ * layout, `script.steps.<n>` (0-based, as JSON paths count) for a step, `script` otherwise.
+ */
+import type { LabPanel } from '@shared/api';
+import { checkScriptAgainstPanel, parseCheckScript, type CheckScript, type ExpectStep } from '@shared/checks';
+import { builtInPanel, BUILT_IN_PANELS } from '@shared/field/panels';
+import { parsePanelLayout } from '@shared/field/parseLayout';
+import type { PanelLayout } from '@shared/field/layout';
+import { failure, success, type Outcome } from '../http/failure';
+
+/** The layout of a lab panel, or a located failure. */
+export function resolvePanel(panel: LabPanel): Outcome<PanelLayout> {
+  if (panel.kind === 'builtIn') {
+    const layout = builtInPanel(panel.id);
+    if (layout) return success(layout);
+    const known = Object.keys(BUILT_IN_PANELS).join(', ');
+    return failure('validation', `panel.id: there is no built-in panel "${panel.id}" (built in: ${known})`, { fields: { 'panel.id': `no built-in panel "${panel.id}"; use one of ${known}` } });
+  }
+  const parsed = parsePanelLayout(panel.layout);
+  if (parsed.ok) return success(parsed.value);
+  return failure('validation', `panel.layout: ${parsed.errors.slice(0, 3).join('; ')}`, { fields: { 'panel.layout': parsed.errors.join('; ') }, details: { errors: parsed.errors } });
+}
+
+/** `step 4: …` → `script.steps.3`; anything else → `script`. */
+function fieldOf(error: string): string {
+  const match = /^step (\d+)/.exec(error);
+  return match ? `script.steps.${Number(match[1]) - 1}` : 'script';
+}
+
+/** The script parsed and checked against `layout`, or a failure naming each step and field. */
+export function checkLabScript(script: unknown, layout: PanelLayout): Outcome<CheckScript> {
+  const parsed = parseCheckScript(script);
+  const errors = parsed.ok ? checkScriptAgainstPanel(parsed.value, layout) : parsed.errors;
+  if (parsed.ok && errors.length === 0) return success(parsed.value);
+  const fields: Record<string, string> = {};
+  for (const error of errors) fields[fieldOf(error)] ??= error;
+  return failure('validation', `The check script has ${errors.length} problem${errors.length === 1 ? '' : 's'}: ${errors.slice(0, 3).join('; ')}`, { fields, details: { errors } });
+}
+
+export interface CheckCounts {
+  visible: number;
+  hidden: number;
+  maxScore: number;
+}
+
+const isExpect = (step: CheckScript['steps'][number]): step is ExpectStep => 'expect' in step;
+
+/** How many visible and hidden checks a (valid) script has, and its points. */
+export function countChecks(script: CheckScript): CheckCounts {
+  const counts: CheckCounts = { visible: 0, hidden: 0, maxScore: 0 };
+  for (const step of script.steps) {
+    if (!isExpect(step)) continue;
+    if (step.hidden) counts.hidden += 1;
+    else counts.visible += 1;
+    counts.maxScore += step.points ?? 1;
+  }
+  return counts;
+}
+
+/**
+ * The self-check script for a student (see `SelfCheckScriptSchema`): every step up to the last
+ * visible check, hidden expect steps removed. An expect step only reads the panel, so removing one
+ * leaves the states every later step sees unchanged. Steps after the last visible check lead only
+ * to hidden checks and stay on the server.
+ */
+export function selfCheckScript(script: CheckScript): { script: CheckScript; stepMap: number[]; withheld: { hiddenChecks: number; hiddenPoints: number } } {
+  let last = -1;
+  script.steps.forEach((step, i) => {
+    if (isExpect(step) && !step.hidden) last = i;
+  });
+  const steps: CheckScript['steps'] = [];
+  const stepMap: number[] = [];
+  let hiddenChecks = 0;
+  let hiddenPoints = 0;
+  script.steps.forEach((step, i) => {
+    if (isExpect(step) && step.hidden) {
+      hiddenChecks += 1;
+      hiddenPoints += step.points ?? 1;
+      return;
+    }
+    if (i > last) return;
+    steps.push(step);
+    stepMap.push(i + 1);
+  });
+  return { script: { ...script, steps }, stepMap, withheld: { hiddenChecks, hiddenPoints } };
+}
