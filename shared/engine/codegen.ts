@@ -139,15 +139,18 @@ const EMITTERS = {
     // inputs during the call, so reusing the record saves an allocation per block per scan.
     const record = `in${out.records.length}`;
     const names = [member(node.powerIn), ...node.inputs.map((input) => member(input.name))];
-    const initial = [node.powerIn, ...node.inputs.map((input) => input.name)].map((name, n) => {
-      const type = n === 0 ? 'BOOL' : node.inputs[n - 1]!.type;
-      return `${member(name)}: ${type === 'BOOL' ? 'false' : '0'}`;
-    });
-    out.records.push(`const ${record} = { ${initial.join(', ')} };`);
+    // Constant inputs (a preset such as T#3s) are written once, into the record's initial value.
+    const code = (input: (typeof node.inputs)[number]): string =>
+      input.type === 'BOOL' ? booleanCode(input.source) : numberCode(input.source);
+    const isConstant = (input: (typeof node.inputs)[number]): boolean => input.source.kind === 'constant';
+    const initialValues = [
+      `${names[0]}: false`,
+      ...node.inputs.map((input, n) => `${names[n + 1]}: ${isConstant(input) ? code(input) : input.type === 'BOOL' ? 'false' : '0'}`),
+    ];
+    out.records.push(`const ${record} = { ${initialValues.join(', ')} };`);
     const fills = [`${record}.${names[0]} = r${depth} === 1;`];
     node.inputs.forEach((input, n) => {
-      const value = input.type === 'BOOL' ? booleanCode(input.source) : numberCode(input.source);
-      fills.push(`${record}.${names[n + 1]} = ${value};`);
+      if (!isConstant(input)) fills.push(`${record}.${names[n + 1]} = ${code(input)};`);
     });
     const dt = node.chargesTime ? 'dt' : '0';
     out.lines.push(`${fills.join(' ')} s[${i}] = step${typeIndex}(s[${i}], ${record}, ${dt});`);
