@@ -93,10 +93,14 @@ export function paintLiveMarks(ctx: CanvasRenderingContext2D, marks: readonly Li
       ctx.moveTo(m.points[0]!, m.points[1]!);
       for (let i = 2; i + 1 < m.points.length; i += 2) ctx.lineTo(m.points[i]!, m.points[i + 1]!);
       if (m.flow) {
-        // Under the dashes, the conductor itself stays visible in a lighter amber.
+        // Under the dashes the conductor stays visible in a pale amber: paper first, so the ink
+        // line drawn beneath does not show through the gaps, then amber at 40 %.
         ctx.save();
         ctx.setLineDash([]);
-        ctx.globalAlpha = 0.35;
+        ctx.strokeStyle = palette.paper;
+        ctx.stroke();
+        ctx.globalAlpha = 0.4;
+        ctx.strokeStyle = palette.energised;
         ctx.stroke();
         ctx.restore();
       }

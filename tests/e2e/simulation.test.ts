@@ -49,7 +49,9 @@ async function runAtRun(): Promise<void> {
 
 /** Hold a pushbutton with the mouse until `until` holds, then let go. */
 async function holdWithMouse(id: string, until: () => Promise<boolean>): Promise<void> {
-  const box = (await page.locator(`[data-device="${id}"] button.cap`).boundingBox())!;
+  const cap = page.locator(`[data-device="${id}"] button.cap`);
+  await cap.scrollIntoViewIfNeeded();
+  const box = (await cap.boundingBox())!;
   await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
   await page.mouse.down();
   await expect.poll(until, { timeout: 5000 }).toBe(true);
@@ -131,7 +133,8 @@ describe('the simulator on the default panel in a real browser', () => {
     const doc = threeWireProgram();
     const id = await page.evaluate(async (program) => {
       const res = await fetch('/api/programs', { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ title: program.title, document: program }) });
-      return ((await res.json()) as { id: string }).id;
+      if (!res.ok) throw new Error(`create answered ${res.status}: ${await res.text()}`);
+      return ((await res.json()) as { program: { id: string } }).program.id;
     }, doc);
     await page.goto(`${server.url}/programs/${id}`, { waitUntil: 'networkidle' });
     await page.locator('[data-testid="rung-canvas"]').waitFor();
