@@ -123,6 +123,23 @@ describe('the simulator on the default panel in a real browser', () => {
     await page.locator('.dock').screenshot({ path: `${SHOTS}/simulation-8-dock-scrolled.png` });
   });
 
+  it('reads the trace at the cursor and exports it as CSV and PNG', async () => {
+    await page.getByRole('button', { name: '❚❚ Pause' }).click();
+    const plot = page.locator('.trace .plot');
+    const box = (await plot.boundingBox())!;
+    await page.mouse.move(box.x + box.width * 0.4, box.y + box.height / 2);
+    await expect.poll(() => page.locator('.trace .readout').innerText()).toMatch(/t = \d+\.\d{3} s\s.*%IX1 (TRUE|FALSE)/s);
+    const [csv] = await Promise.all([page.waitForEvent('download'), page.locator('.trace').getByRole('button', { name: 'CSV' }).click()]);
+    const text = await (await csv.createReadStream()).toArray();
+    const lines = Buffer.concat(text as Buffer[]).toString('utf8').trim().split('\n');
+    expect(lines[0]).toBe('time_ms,%IX1,%IX2,%QX1,%IX7');
+    expect(lines.length).toBeGreaterThan(50);
+    expect(lines[1]).toMatch(/^10,1,0,0,0$/);
+    const [png] = await Promise.all([page.waitForEvent('download'), page.locator('.trace').getByRole('button', { name: 'PNG' }).click()]);
+    expect(png.suggestedFilename()).toBe('rungwright-trace.png');
+    await shot('simulation-8b-trace-cursor');
+  });
+
   it('runs the program being edited from the workbench dock and paints its power flow on the canvas', async () => {
     const student = DEMO_STUDENTS[0]!;
     await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
