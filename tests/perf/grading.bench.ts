@@ -1,0 +1,79 @@
+/**
+ * Grading benchmark (issue 8): 100 submissions graded through the API against the real server
+ * process on loopback, back to back from a few concurrent clients (the forward/reverse lab, the
+ * heaviest standard script). Target: above 100 gradings/s, zero errors; p50/p99 per submission.
+ * A second case measures why the pool keeps warm workers: the cold start of one worker.
+ */
+import { rmSync } from 'node:fs';
+import type { BenchCase } from './run';
+import { percentile, round } from './stats';
+import { DEMO_INSTRUCTOR, DEMO_STUDENTS } from '../../server/db/demoAccounts';
+import { makeTempDataDir, startServerProcess } from '../api/helpers/serverProcess';
+import { FORWARD_REVERSE } from '@shared/labs';
+import { createGradingPool } from '../../server/grading/pool';
+
+const SUBMISSIONS = 100;
+const CLIENTS = 4;
+
+async function send(url: string, method: string, path: string, body: unknown, cookie = ''): Promise<{ status: number; body: any; cookie: string }> {
+  const res = await fetch(`${url}${path}`, { method, headers: { 'content-type': 'application/json', origin: url, cookie }, body: body === undefined ? undefined : JSON.stringify(body) });
+  const text = await res.text();
+  return { status: res.status, body: text ? JSON.parse(text) : null, cookie: (res.headers.get('set-cookie') ?? '').split(';')[0] };
+}
+
+export default async function (): Promise<BenchCase[]> {
+  const dataDir = makeTempDataDir();
+  const server = await startServerProcess(dataDir, { LOG_LEVEL: 'warn' });
+  try {
+    const teacher = (await send(server.url, 'POST', '/api/auth/sign-in', { email: DEMO_INSTRUCTOR.email, password: DEMO_INSTRUCTOR.password })).cookie;
+    const classes = await send(server.url, 'GET', '/api/classes', undefined, teacher);
+    const classId = classes.body.classes[0].id as string;
+    const lab = await send(server.url, 'POST', `/api/classes/${classId}/labs/from-template`, { templateId: 'forward-reverse' }, teacher);
+    if (lab.status !== 201) throw new Error(`setup: ${lab.status} ${JSON.stringify(lab.body)}`);
+    const labId = lab.body.lab.id as string;
+    await send(server.url, 'POST', `/api/labs/${labId}/publish`, {}, teacher);
+    const student = (await send(server.url, 'POST', '/api/auth/sign-in', { email: DEMO_STUDENTS[0].email, password: DEMO_STUDENTS[0].password })).cookie;
+    const opened = await send(server.url, 'POST', `/api/labs/${labId}/open`, {}, student);
+    const saved = await send(server.url, 'POST', `/api/programs/${opened.body.program.id}/versions`, { baseVersion: opened.body.program.headVersion, document: FORWARD_REVERSE.solution }, student);
+    const ref = { programId: opened.body.program.id, version: saved.body.version.number };
+    // Warm-up: the first submission starts the pool's workers.
+    await send(server.url, 'POST', `/api/labs/${labId}/submissions`, ref, student);
+
+    const latencies: number[] = [];
+    let errors = 0;
+    let next = 0;
+    const started = performance.now();
+    await Promise.all(
+      Array.from({ length: CLIENTS }, async () => {
+        while (next < SUBMISSIONS) {
+          next += 1;
+          const t0 = performance.now();
+          const res = await send(server.url, 'POST', `/api/labs/${labId}/submissions`, ref, student);
+          latencies.push(performance.now() - t0);
+          if (res.status !== 201 || res.body.submission.autoScore !== res.body.submission.totalPoints) errors += 1;
+        }
+      }),
+    );
+    const seconds = (performance.now() - started) / 1000;
+    const perS = latencies.length / seconds;
+
+    const pool = createGradingPool({ size: 1 });
+    const t0 = performance.now();
+    await pool.warm();
+    const coldMs = performance.now() - t0;
+    const job = { program: FORWARD_REVERSE.solution, panel: (await import('@shared/field/panels')).builtInPanel('reversing-conveyor')!, script: FORWARD_REVERSE.script };
+    const t1 = performance.now();
+    for (let i = 0; i < 20; i += 1) await pool.grade(job);
+    const warmMs = (performance.now() - t1) / 20;
+    await pool.close();
+
+    return [
+      { case: 'grading: submissions through the API', submissions: latencies.length, clients: CLIENTS, gradingsPerS: round(perS, 1), p50Ms: round(percentile(latencies, 50), 1), p99Ms: round(percentile(latencies, 99), 1), errors, target: '>100/s, 0 errors', meetsTarget: errors === 0 && perS > 100 },
+      { case: 'grading: worker cold start vs warm grading', coldStartMs: round(coldMs, 0), warmGradingMs: round(warmMs, 1) },
+    ];
+  } finally {
+    server.child.kill('SIGTERM');
+    await server.exited;
+    rmSync(dataDir, { recursive: true, force: true });
+  }
+}
