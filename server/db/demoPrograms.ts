@@ -3,6 +3,8 @@
  * Addresses follow the default `reversing-conveyor` panel layout in DESIGN.md.
  */
 import { PROGRAM_FORMAT, PROGRAM_VERSION, type Element, type Program, type Tag } from '@shared/ladder/schema';
+import { buildProgram, coil as labCoil, nc as labNc, no as labNo, par, rung } from '@shared/labs/build';
+import { conveyorTags } from '@shared/labs/conveyorTags';
 
 const no = (id: string, operand: string): Element => ({ kind: 'contact', id, variant: 'no', operand });
 const nc = (id: string, operand: string): Element => ({ kind: 'contact', id, variant: 'nc', operand });
@@ -64,3 +66,15 @@ export const REVERSING_DEMO: Program = program(
     },
   ],
 );
+
+/**
+ * A demo submission to the forward/reverse lab with the interlocks left out (demo data): each
+ * direction seals in, but nothing stops both contactors being commanded at once.
+ */
+export const MISSING_INTERLOCK_DEMO: Program = buildProgram('Forward/reverse, no interlock (demo)', 'Demo: a first try at the Larch Hollow reversing conveyor that forgets the interlocks.', conveyorTags(), [
+  rung('', labNo('Stop_PB'), par(labNo('Fwd_PB'), labNo('K1_Aux')), labCoil('K1_Coil')),
+  rung('', labNo('Stop_PB'), par(labNo('Rev_PB'), labNo('K2_Aux')), labCoil('K2_Coil')),
+  rung('', labNo('K1_Aux'), labCoil('Green_Lamp')),
+  rung('', labNo('K2_Aux'), labCoil('Amber_Lamp')),
+  rung('', labNc('K1_Aux'), labNc('K2_Aux'), labCoil('Red_Lamp')),
+]);

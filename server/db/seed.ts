@@ -11,6 +11,7 @@ import { REVERSING_DEMO, THREE_WIRE_DEMO } from './demoPrograms';
 import { countUsers, insertUser, type User } from './users';
 import { enrol, insertClass } from './classes';
 import { appendVersion, insertProgram } from './programs';
+import { seedDemoLabs } from './seedLabs';
 
 /** Seeds the demo data when the database has no user yet; returns whether it did. */
 export async function seedIfEmpty(db: Db, clock: Clock, params: ScryptParams = DEFAULT_SCRYPT): Promise<boolean> {
@@ -41,4 +42,5 @@ export async function seedDemoData(db: Db, clock: Clock, params: ScryptParams = 
   await insertProgram(db, { ownerId: ana.id, authorId: ana.id, title: REVERSING_DEMO.title, document: REVERSING_DEMO, message: 'Interlocked forward/reverse (demo)', demo: true, now });
   await insertProgram(db, { ownerId: tom.id, authorId: tom.id, title: THREE_WIRE_DEMO.title, document: THREE_WIRE_DEMO, message: 'First try (demo)', demo: true, now });
   await insertProgram(db, { ownerId: instructor.id, authorId: instructor.id, title: 'Reference: forward/reverse (demo)', document: REVERSING_DEMO, message: 'Instructor reference (demo)', demo: true, now });
+  await seedDemoLabs(db, now, instructor, cls.id, students);
 }
