@@ -1,0 +1,235 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import type { NetworkNode, Program } from '@shared/ladder/schema';
+import { THREE_WIRE } from '@shared/labs';
+import type { SentMailEntry } from '@shared/api/mail';
+import { layoutProgram } from '@/editor/layout';
+import { DEMO_ADMIN, DEMO_CLASS, DEMO_INSTRUCTOR, DEMO_STUDENTS } from '../../server/db/demoAccounts';
+import { launchChromium } from './support/chromium';
+import { startServer, type RunningServer } from './support/server';
+
+let server: RunningServer;
+let browser: Browser;
+const SHOTS = 'tests/e2e/screenshots';
+const VIEWPORT = { width: 1500, height: 950 };
+
+beforeAll(async () => {
+  server = await startServer();
+  browser = await launchChromium();
+  mkdirSync(SHOTS, { recursive: true });
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+async function signIn(context: BrowserContext, account: { email: string; password: string }): Promise<Page> {
+  const page = await context.newPage();
+  await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
+  await page.getByLabel('E-mail').fill(account.email);
+  await page.getByLabel('Password').fill(account.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/programs$/);
+  return page;
+}
+
+/** Pick an option of a naive-ui select by its visible text. */
+async function pick(page: Page, selectLabel: string, option: RegExp | string) {
+  await page.locator(`[aria-label="${selectLabel}"]`).click();
+  await page.locator('.n-base-select-option', { hasText: option }).first().click();
+}
+
+/** The starter's first rung with its start button in a parallel branch (the shape the canvas lays out). */
+const contact = (id: string, operand: string): NetworkNode => ({ kind: 'contact', id, variant: 'no', operand });
+function withBranch(branches: NetworkNode[][]): Program {
+  const first = THREE_WIRE.starter.rungs[0]!;
+  const coil = first.network.items[1]!;
+  const parallel: NetworkNode = { kind: 'parallel', id: 'p', branches: branches.map((items, i) => ({ kind: 'series', id: `b${i}`, items })) };
+  return { ...THREE_WIRE.starter, rungs: [{ ...first, network: { kind: 'series', id: 's', items: [parallel, coil] } }] };
+}
+
+function slotPoint(doc: Program, path: number[], index: number) {
+  const rung = layoutProgram(doc).rungs[0]!;
+  const slot = rung.slots.find((s) => s.target.index === index && s.target.path.join('.') === path.join('.'));
+  if (!slot) throw new Error(`no slot ${path.join('.')}/${index}`);
+  return { x: slot.x, y: rung.top + slot.y };
+}
+
+function elementPoint(doc: Program, id: string) {
+  for (const rung of layoutProgram(doc).rungs) {
+    const box = rung.elements.find((b) => b.id === id);
+    if (box) return { x: box.x + box.width / 2, y: rung.top + box.wireY };
+  }
+  throw new Error(`no element ${id}`);
+}
+
+async function setOperand(page: Page, value: string) {
+  const field = page.getByLabel('Operand', { exact: true });
+  await field.fill(value);
+  await field.press('Enter');
+}
+
+/** A rung `contact -> coil` typed with the editor's keys (new rung, contact, operand, coil, operand). */
+async function typeRung(page: Page, contactKey: string, operand: string, coilOperand: string) {
+  await page.getByTestId('rung-canvas').focus();
+  await page.keyboard.press('Control+Enter');
+  await page.keyboard.press(contactKey);
+  await page.keyboard.press('Enter');
+  await page.keyboard.type(operand);
+  await page.keyboard.press('Enter');
+  await page.keyboard.press('o');
+  await page.keyboard.press('Enter');
+  await page.keyboard.type(coilOperand);
+  await page.keyboard.press('Enter');
+}
+
+describe('labs in a real browser', () => {
+  it('runs the loop: publish from a template, fix and self-check, submit, grade, override, return, and mail the student', async () => {
+    const problems: string[] = [];
+    const instructorContext = await browser.newContext({ viewport: VIEWPORT });
+    const studentContext = await browser.newContext({ viewport: VIEWPORT });
+
+    // ── The instructor copies the three-wire lab into the demo class and publishes it. ──
+    const teacher = await signIn(instructorContext, DEMO_INSTRUCTOR);
+    teacher.on('pageerror', (e) => problems.push(`instructor: ${e.message}`));
+    await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await teacher.getByRole('link', { name: DEMO_CLASS.name }).click();
+    await teacher.waitForURL(/\/classes\/[^/]+\/labs$/);
+    await pick(teacher, 'Standard lab template', THREE_WIRE.title);
+    await teacher.getByRole('button', { name: 'New lab from template' }).click();
+    await teacher.waitForURL(/\/labs\/[^/]+\/edit$/);
+    const labId = teacher.url().split('/').slice(-2)[0]!;
+    await expect.poll(() => teacher.getByTestId('script-validity').innerText()).toBe('Valid for this panel');
+    expect(await teacher.getByTestId('script-points').innerText()).toBe('11');
+    // The brief preview is rendered Markdown and ends with the safety caution.
+    await expect.poll(() => teacher.getByTestId('lab-brief').innerText()).toMatch(/lock out \/ tag out/);
+    // A bad value is flagged under its step, live, and the script is valid again once it is fixed.
+    await teacher.getByLabel('Step 3 wait in ms').fill('-5');
+    await teacher.getByLabel('Step 3 wait in ms').press('Tab');
+    await expect.poll(() => teacher.getByTestId('step-3').innerText()).toMatch(/step 3: "wait" needs a whole number of ms/);
+    expect(await teacher.getByTestId('script-validity').innerText()).toBe('1 problem(s)');
+    await teacher.getByTestId('step-3').screenshot({ path: `${SHOTS}/lab-author-step-error.png` });
+    await teacher.getByLabel('Step 3 wait in ms').fill('100');
+    await teacher.getByLabel('Step 3 wait in ms').press('Tab');
+    await expect.poll(() => teacher.getByTestId('script-validity').innerText()).toBe('Valid for this panel');
+    await teacher.screenshot({ path: `${SHOTS}/lab-author.png`, fullPage: true });
+
+    // Try it on the reference solution that came with the template: full marks, hidden checks shown.
+    await pick(teacher, 'Program to try', /reference/);
+    await teacher.getByRole('button', { name: 'Try it' }).click();
+    await expect.poll(() => teacher.getByTestId('report-score').innerText(), { timeout: 15_000 }).toBe('11 / 11');
+    expect(await teacher.getByTestId('grade-report').getByText('hidden').count()).toBe(3);
+
+    await teacher.getByRole('button', { name: 'Publish' }).click();
+    await expect.poll(() => teacher.getByTestId('publish-state').innerText()).toBe('published');
+    await teacher.screenshot({ path: `${SHOTS}/lab-author-try-it.png`, fullPage: true });
+
+    // ── A student opens it, self-checks the starter, is shown the failing moment, fixes it. ──
+    const student = await signIn(studentContext, DEMO_STUDENTS[0]!);
+    student.on('pageerror', (e) => problems.push(`student: ${e.message}`));
+    await student.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await student.getByRole('link', { name: DEMO_CLASS.name }).click();
+    await student.waitForURL(/\/classes\/[^/]+\/labs$/);
+    await student.locator(`a[href="/labs/${labId}"]`).click();
+    await student.waitForURL(new RegExp(`/labs/${labId}$`));
+    await student.getByTestId('rung-canvas').waitFor();
+    await expect.poll(() => student.getByTestId('lab-brief').innerText()).toMatch(/Three-wire start\/stop/);
+    expect(await student.getByText(/lock out \/ tag out/).count()).toBeGreaterThan(0);
+    await expect.poll(() => student.getByTestId('save-status').innerText()).toMatch(/Saved · version 1/);
+
+    await student.getByRole('button', { name: 'Self-check' }).click();
+    const sealIn = student.getByTestId('grade-report').locator('li', { hasText: 'S2 starts the belt' });
+    await expect.poll(() => sealIn.innerText()).toMatch(/closed[\s\S]*open/);
+    await sealIn.getByRole('button', { name: 'Show me' }).click();
+    // Check 6 is at 900 ms: 100 ms settling, then S2 held 100 ms and released for 700 ms.
+    await expect.poll(() => student.getByRole('toolbar', { name: 'Simulation' }).innerText()).toMatch(/0\.90 s/);
+    await student.screenshot({ path: `${SHOTS}/lab-student-show-me.png` });
+
+    // Rung 1: seal in on K1's auxiliary contact below the start button, stop in series ahead of both.
+    const canvasBox = (await student.getByTestId('rung-canvas').boundingBox())!;
+    const start = elementPoint(THREE_WIRE.starter, THREE_WIRE.starter.rungs[0]!.network.items[0]!.id);
+    await student.mouse.click(canvasBox.x + start.x, canvasBox.y + start.y);
+    await student.getByTestId('rung-canvas').press('b');
+    const branched = withBranch([[contact('a', 'Fwd_PB')], []]);
+    await student.dragAndDrop('[data-palette="contact:no"]', '[data-testid="rung-canvas"]', { targetPosition: slotPoint(branched, [0, 1], 0) });
+    await setOperand(student, 'K1_Aux');
+    const sealed = withBranch([[contact('a', 'Fwd_PB')], [contact('b', 'K1_Aux')]]);
+    await student.dragAndDrop('[data-palette="contact:no"]', '[data-testid="rung-canvas"]', { targetPosition: slotPoint(sealed, [], 0) });
+    await setOperand(student, 'Stop_PB');
+    // Rungs 2 and 3 by keyboard: green lamp while K1 is closed, red lamp while it is open.
+    await typeRung(student, 'c', 'K1_Aux', 'Green_Lamp');
+    await typeRung(student, 'Shift+C', 'K1_Aux', 'Red_Lamp');
+
+    await student.getByRole('button', { name: 'Self-check' }).click();
+    await expect.poll(() => student.getByTestId('report-score').innerText()).toBe('7 / 7');
+    await student.screenshot({ path: `${SHOTS}/lab-student-self-check.png` });
+
+    await student.getByTestId('rung-canvas').press('Control+s');
+    await student.getByLabel('Version message').fill('Seal-in on K1 auxiliary, lamps');
+    await student.getByLabel('Version message').press('Enter');
+    await expect.poll(() => student.getByTestId('save-status').innerText()).toMatch(/Saved · version 2/);
+
+    await student.getByRole('button', { name: 'Submit…' }).click();
+    await expect.poll(() => student.getByTestId('submit-confirm').innerText()).toMatch(/version 2/);
+    await student.getByRole('button', { name: 'Submit version 2' }).click();
+    await expect.poll(() => student.getByTestId('submission-status').innerText(), { timeout: 20_000 }).toMatch(/graded/);
+    // The whole lab is 100 points by default; every check passes, so the auto score is all of them.
+    await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 100 \/ 100/);
+    await expect.poll(() => student.getByTestId('hidden-summary').innerText()).toMatch(/Hidden checks: 3 passed, 0 failed/);
+    // Hidden checks stay hidden: their labels never reach the student's page.
+    expect(await student.getByText('after the overload reset the belt stays stopped').count()).toBe(0);
+    await student.screenshot({ path: `${SHOTS}/lab-student-graded.png` });
+
+    // ── The instructor reviews it in the table, overrides with a reason and returns it with feedback. ──
+    await teacher.goto(`${server.url}/labs/${labId}/submissions`, { waitUntil: 'networkidle' });
+    const row = teacher.getByTestId('submissions-table').locator('tr', { hasText: 'Ana Reyes' });
+    await expect.poll(() => row.innerText()).toMatch(/100 \/ 100/);
+    await teacher.screenshot({ path: `${SHOTS}/lab-submissions.png` });
+    await row.getByRole('link', { name: 'Open' }).click();
+    await teacher.waitForURL(/\/submissions\/[^/]+$/);
+    await teacher.getByTestId('grade-report').waitFor();
+    await teacher.getByRole('button', { name: 'Replay the check run' }).click();
+    await expect.poll(() => teacher.getByText(/Replayed through step/).innerText()).toMatch(/Replayed through step \d+/);
+    await teacher.getByLabel('Override score').fill('95');
+    await teacher.getByLabel('Override reason').fill('Rung comments missing');
+    await teacher.getByRole('button', { name: 'Override score' }).click();
+    await expect.poll(() => teacher.getByTestId('final-score').innerText()).toBe('95');
+    await teacher.getByLabel('Feedback').fill('Good seal-in on the auxiliary contact. Comment your rungs next time.');
+    await teacher.getByRole('button', { name: 'Return to student' }).click();
+    await expect.poll(() => teacher.getByTestId('review-status').innerText()).toBe('returned');
+    await teacher.screenshot({ path: `${SHOTS}/lab-review.png`, fullPage: true });
+
+    await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await teacher.getByRole('link', { name: DEMO_CLASS.name }).click();
+    await teacher.getByRole('link', { name: 'Gradebook' }).click();
+    await expect.poll(() => teacher.getByTestId('gradebook').innerText()).toMatch(/Ana Reyes[\s\S]*95/);
+    await teacher.screenshot({ path: `${SHOTS}/lab-gradebook.png` });
+
+    // ── The student sees the returned grade, and the mail reached the local fake mailbox. ──
+    await student.reload({ waitUntil: 'networkidle' });
+    await student.getByRole('tab', { name: 'Submissions' }).click();
+    await expect.poll(() => student.getByTestId('feedback').innerText()).toMatch(/Rung comments missing[\s\S]*Comment your rungs/);
+    await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 95 \/ 100/);
+    await student.screenshot({ path: `${SHOTS}/lab-student-returned.png` });
+
+    const adminContext = await browser.newContext();
+    const signedIn = await adminContext.request.post(`${server.url}/api/auth/sign-in`, { data: { email: DEMO_ADMIN.email, password: DEMO_ADMIN.password } });
+    expect(signedIn.ok()).toBe(true);
+    await expect
+      .poll(
+        async () => {
+          const { mail } = (await (await adminContext.request.get(`${server.url}/api/dev/mail`)).json()) as { mail: SentMailEntry[] };
+          return mail.filter((m) => m.to.includes(DEMO_STUDENTS[0]!.email)).map((m) => `${m.subject} | ${m.text}`);
+        },
+        { timeout: 10_000 },
+      )
+      .toEqual(expect.arrayContaining([expect.stringMatching(/^Returned: Three-wire[\s\S]*95 of 100 points[\s\S]*Comment your rungs/)]));
+
+    expect(problems).toEqual([]);
+    await adminContext.close();
+    await instructorContext.close();
+    await studentContext.close();
+  });
+});
