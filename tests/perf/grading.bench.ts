@@ -12,10 +12,14 @@ import { makeTempDataDir, startServerProcess } from '../api/helpers/serverProces
 import { FORWARD_REVERSE } from '@shared/labs';
 import { createGradingPool } from '../../server/grading/pool';
 
+/** The answers read here, loosely typed: this is a load driver, not a contract test. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- a load driver reads a few fields of many shapes
+type Json = any;
+
 const SUBMISSIONS = 100;
 const CLIENTS = 4;
 
-async function send(url: string, method: string, path: string, body: unknown, cookie = ''): Promise<{ status: number; body: any; cookie: string }> {
+async function send(url: string, method: string, path: string, body: unknown, cookie = ''): Promise<{ status: number; body: Json; cookie: string }> {
   const res = await fetch(`${url}${path}`, { method, headers: { 'content-type': 'application/json', origin: url, cookie }, body: body === undefined ? undefined : JSON.stringify(body) });
   const text = await res.text();
   return { status: res.status, body: text ? JSON.parse(text) : null, cookie: (res.headers.get('set-cookie') ?? '').split(';')[0] };
