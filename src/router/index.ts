@@ -1,11 +1,25 @@
-import { createRouter, createWebHistory } from 'vue-router';
+import { createRouter, createWebHistory, type RouteLocationNormalized } from 'vue-router';
 import { useSessionStore } from '../stores/session';
 import { decideAccess, type AccessMeta } from './guards';
 import { routes } from './routes';
 
 export const router = createRouter({ history: createWebHistory(), routes });
 
+/**
+ * Start fetching a lazy route's code while the session check is in flight: the router would only
+ * load it after the guard, one round trip later. The module loader keeps the import, so the
+ * router's own call reuses it.
+ */
+function preloadRouteCode(to: RouteLocationNormalized): void {
+  for (const record of to.matched) {
+    for (const component of Object.values(record.components ?? {})) {
+      if (typeof component === 'function') void (component as () => Promise<unknown>)()?.catch?.(() => undefined);
+    }
+  }
+}
+
 router.beforeEach(async (to) => {
+  preloadRouteCode(to);
   const session = useSessionStore();
   let user = session.user;
   try {

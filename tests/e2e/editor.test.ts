@@ -35,7 +35,7 @@ const shape = (rungs: NetworkNode[][]): Program => ({
 });
 
 /** Screen position of a slot (rung index, path, index) for a document of this shape, at zoom 1, unscrolled. */
-async function slotPoint(page: Page, doc: Program, rung: number, path: number[], index: number) {
+async function slotPoint(_page: Page, doc: Program, rung: number, path: number[], index: number) {
   const layout = layoutProgram(doc);
   const r = layout.rungs[rung]!;
   const slot = r.slots.find((s) => s.target.index === index && s.target.path.join('.') === path.join('.'));
@@ -43,7 +43,7 @@ async function slotPoint(page: Page, doc: Program, rung: number, path: number[],
   return { x: slot.x, y: r.top + slot.y };
 }
 
-async function elementPoint(page: Page, doc: Program, id: string) {
+async function elementPoint(_page: Page, doc: Program, id: string) {
   const layout = layoutProgram(doc);
   for (const r of layout.rungs) {
     const box = r.elements.find((b) => b.id === id);
@@ -145,7 +145,9 @@ describe('the rung editor in a real browser', () => {
     expect(saved.head.number).toBe(2);
     const [first, second] = saved.head.document.rungs;
     const operands = (items: NetworkNode[]): unknown =>
-      items.map((n) => (n.kind === 'parallel' ? n.branches.map((b) => operands(b.kind === 'series' ? b.items : [b])) : n.kind === 'block' ? n.type : `${n.kind}:${n.operand}`));
+      items.map((n) =>
+        n.kind === 'parallel' ? n.branches.map((b) => operands(b.kind === 'series' ? b.items : [b])) : n.kind === 'series' ? operands(n.items) : n.kind === 'block' ? n.type : `${n.kind}:${n.operand}`,
+      );
     expect(operands(first!.network.items)).toEqual(['contact:S1', [['contact:S2'], ['contact:%QX1']], 'coil:%QX1']);
     expect(operands(second!.network.items)).toEqual(['contact:%IX5', 'coil:%QX6']);
     await page.screenshot({ path: `${SHOTS}/workbench-reloaded.png` });

@@ -224,6 +224,25 @@ describe('workbench paths in a real browser', () => {
     expect(bytes.length).toBeGreaterThan(1000);
   });
 
+  it('draws the workbench in the dark theme with the rungs on a dark paper', async () => {
+    const dark = await context.newPage();
+    await dark.emulateMedia({ colorScheme: 'dark' });
+    await dark.goto(`${server.url}/programs`, { waitUntil: 'networkidle' });
+    await dark.evaluate(() => localStorage.removeItem('rungwright.colorScheme'));
+    await openWorkbench(dark, programId);
+    await dark.getByRole('button', { name: /^Show text form of rungs/ }).click();
+    await dark.getByRole('button', { name: 'History' }).click();
+    await dark.getByRole('region', { name: 'Version history' }).getByText('Version 1', { exact: true }).waitFor();
+    await dark.screenshot({ path: `${SHOTS}/workbench-dark-history.png` });
+    await dark.keyboard.press('Escape');
+    await dark.screenshot({ path: `${SHOTS}/workbench-dark.png` });
+    // The canvas paper is dark: its mean brightness over a corner with no rung is low.
+    const paper = await dark.getByTestId('rung-canvas').evaluate((el) => getComputedStyle(el).backgroundColor);
+    const [r, g, b] = (paper.match(/\d+/g) ?? []).map(Number);
+    expect((r! + g! + b!) / 3).toBeLessThan(80);
+    await dark.close();
+  });
+
   it('exports a program as PLCopen XML on My programs and imports the file back', async () => {
     await page.goto(`${server.url}/programs`, { waitUntil: 'networkidle' });
     const exported = await head(page, programId);

@@ -31,8 +31,9 @@ const LAUNCH_ARGS = [
   '--disable-sync',
 ];
 
-export async function launchChromium(): Promise<Browser> {
+/** Launch Chromium with the flags above, plus `extraArgs` (e.g. a benchmark's uncapped frame rate). */
+export async function launchChromium(extraArgs: readonly string[] = []): Promise<Browser> {
   const hint = missingChromiumHint();
   if (hint) throw new Error(hint);
-  return chromium.launch({ executablePath: chromiumPath(), args: LAUNCH_ARGS });
+  return chromium.launch({ executablePath: chromiumPath(), args: [...LAUNCH_ARGS, ...extraArgs] });
 }
