@@ -71,9 +71,13 @@ export interface StudentReport extends Omit<GradeReport, 'checks'> {
 /**
  * The report for a student: hidden checks reduced to pass/fail with no label, expected, actual or
  * steps, and the events and trace rows of the steps that led to a hidden check removed, so the
- * log does not give away what a hidden check does.
+ * log does not give away what a hidden check does. When the script has hidden checks, the run is
+ * also cut at the last visible check: events and trace rows after it are removed, and `virtualMs`
+ * and `scans` are the figures at that check, so the totals do not tell how long the hidden steps
+ * run. A limit that stopped the run after that check is reported without its time.
  */
 export function redactReport(report: GradeReport): StudentReport {
+  if (!report.checks.some((c) => c.hidden)) return { ...report, redacted: true };
   const hiddenSteps = new Set<number>();
   const hiddenWindows: [number, number][] = [];
   let previousIndex = 0;
@@ -86,13 +90,35 @@ export function redactReport(report: GradeReport): StudentReport {
     previousIndex = check.index;
     previousAt = check.atMs;
   }
+  const lastVisible = report.checks.findLast((c) => !c.hidden);
+  // Without a visible check the student sees only the settling time before step 1 (step 0).
+  const lastStep = lastVisible?.index ?? 0;
+  const cutMs = lastVisible?.atMs ?? 0;
   // Trace rows are recorded after scans: the rows of a segment have times in (previous check, check].
-  const inHiddenWindow = (t: number): boolean => hiddenWindows.some(([from, to]) => t > from && t <= to);
+  const shown = (t: number): boolean => t <= cutMs && !hiddenWindows.some(([from, to]) => t > from && t <= to);
+  // A limit hit after the cut would give its time away ("stopped at 12000 ms: …").
+  const stoppedAfterCut = report.stoppedBy !== null && report.virtualMs > cutMs;
   return {
     ...report,
     checks: report.checks.map((c) => (c.hidden ? { index: c.index, passed: c.passed, points: c.points, hidden: true as const } : c)),
-    events: report.events.filter((e) => !hiddenSteps.has(e.step)),
-    trace: { ...report.trace, rows: report.trace.rows.filter((row) => !inHiddenWindow(row[0]!)) },
+    events: report.events.filter((e) => e.step <= lastStep && !hiddenSteps.has(e.step)),
+    trace: { ...report.trace, rows: report.trace.rows.filter((row) => shown(row[0]!)) },
+    stoppedBy: stoppedAfterCut ? 'a limit stopped the run during the hidden checks' : report.stoppedBy,
+    virtualMs: Math.min(cutMs, report.virtualMs),
+    scans: scansAt(report, cutMs),
     redacted: true,
   };
+}
+
+/**
+ * Scans run up to virtual time `ms`. The scan period is constant within a run and every check
+ * falls on a scan boundary, so the count is `ms / scanMs`; the period is read from the first trace
+ * row, which is recorded after scan 1 (`[scanMs, 1, …]`). No rows means no scan ran.
+ */
+function scansAt(report: GradeReport, ms: number): number {
+  if (ms >= report.virtualMs) return report.scans;
+  const first = report.trace.rows[0];
+  if (!first || first[1]! <= 0) return 0;
+  const scanMs = first[0]! / first[1]!;
+  return Math.min(report.scans, Math.round(ms / scanMs));
 }

@@ -131,6 +131,21 @@ describe('the student side', () => {
     expectNoSecrets(mine.text);
   });
 
+  it('tells the student nothing of the run after the last visible check: no time, scans, events or trace', async () => {
+    const [mine] = (await call(t, 'get', `/api/labs/${labId}/submissions/mine`, cast.studentA.cookie)).body.submissions;
+    const full = (await call(t, 'get', `/api/submissions/${mine.id}`, cast.instructor.cookie)).body.submission.report;
+    const lastVisible = full.checks.filter((c: { hidden: boolean }) => !c.hidden).at(-1);
+    // The hidden steps after it (press S3, wait 77 ms, release, wait 100 ms) run 180 ms at 10 ms scans.
+    expect(full.virtualMs - lastVisible.atMs).toBe(180);
+    const student = mine.report;
+    expect(student.virtualMs).toBe(lastVisible.atMs);
+    expect(student.scans).toBe(full.scans - 18);
+    expect(full.events.some((e: { step: number }) => e.step > lastVisible.index)).toBe(true);
+    expect(student.events.every((e: { step: number }) => e.step <= lastVisible.index)).toBe(true);
+    expect(full.trace.rows.some((row: number[]) => row[0]! > lastVisible.atMs)).toBe(true);
+    expect(student.trace.rows.every((row: number[]) => row[0]! <= lastVisible.atMs)).toBe(true);
+  });
+
   it('takes a resubmission before the due date', async () => {
     const ref = await saveInCopy(t, cast.studentA, labId, FORWARD_REVERSE.starter);
     expect((await submitVersion(t, cast.studentA, labId, ref)).status).toBe(201);
