@@ -12,6 +12,7 @@ import { openMailer } from './mail/openMailer';
 import { createLogger } from './http/logging';
 import { loadSessionKey } from './auth/sessionKey';
 import { createApp } from './app';
+import { createGradingPool } from './grading/pool';
 
 function fail(message: string): never {
   console.error(message);
@@ -38,7 +39,9 @@ if (await seedIfEmpty(database.orm, systemClock)) logger.info('seeded the demo d
 const mailer = await openMailer(config, database.orm, systemClock);
 const sessionKey = loadSessionKey(config);
 
-const app = createApp({ db: database, mailer, clock: systemClock, config, logger, sessionKey, clientDir: 'dist' });
+// Made here, not inside createApp, so shutdown can stop its worker threads.
+const grader = createGradingPool();
+const app = createApp({ db: database, mailer, clock: systemClock, config, logger, sessionKey, clientDir: 'dist', grader });
 const server = app.listen(config.PORT, config.HOST, () => {
   const { port } = server.address() as AddressInfo;
   console.log(`Rungwright listening on http://${config.HOST}:${port}`);
@@ -57,6 +60,8 @@ async function shutdown(signal: string): Promise<void> {
     server.close(() => resolve());
     server.closeIdleConnections();
   });
+  // Requests still waiting for a grading answer with a "shutting down" note; the workers end.
+  await grader.close();
   await mailer.close();
   await database.close();
   lock.release();

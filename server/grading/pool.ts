@@ -35,6 +35,8 @@ export interface Grader {
 export interface GradingPool extends Grader {
   /** Workers started so far (replacements included), for tests and the benchmark. */
   workersStarted(): number;
+  /** Worker threads started and not yet exited (0 after `close()` resolves). */
+  workersRunning(): number;
   /** Starts every worker now instead of on first use, and waits until they are up. */
   warm(): Promise<void>;
 }
@@ -71,7 +73,10 @@ export function createGradingPool(options: GradingPoolOptions = {}): GradingPool
   const queue: Task[] = [];
   let nextId = 1;
   let started = 0;
+  let exited = 0;
   let closed = false;
+  /** Terminations of replaced workers still under way, so `close()` can wait for them. */
+  const terminating = new Set<Promise<number>>();
 
   function finish(slot: Slot, outcome: GradeOutcome): void {
     if (slot.timer) clearTimeout(slot.timer);
@@ -85,7 +90,9 @@ export function createGradingPool(options: GradingPoolOptions = {}): GradingPool
   function replace(index: number, slot: Slot, note: string): void {
     if (slots[index] === slot) slots[index] = null;
     finish(slot, { report: null, note });
-    void slot.worker.terminate();
+    const done = slot.worker.terminate();
+    terminating.add(done);
+    void done.finally(() => terminating.delete(done));
     dispatch();
   }
 
@@ -106,6 +113,7 @@ export function createGradingPool(options: GradingPoolOptions = {}): GradingPool
     });
     worker.on('error', (err) => replace(index, slot, `Grading failed in its worker: ${err.message}`));
     worker.on('exit', () => {
+      exited += 1;
       if (slots[index] === slot) replace(index, slot, 'The grading worker stopped unexpectedly; submit again');
     });
     slots[index] = slot;
@@ -138,6 +146,7 @@ export function createGradingPool(options: GradingPoolOptions = {}): GradingPool
       });
     },
     workersStarted: () => started,
+    workersRunning: () => started - exited,
     async warm() {
       await Promise.all(slots.map((slot, i) => (slot ?? start(i)).ready));
     },
@@ -147,7 +156,8 @@ export function createGradingPool(options: GradingPoolOptions = {}): GradingPool
       slots.fill(null);
       for (const slot of live) finish(slot, { report: null, note: 'The grading service is shutting down; submit again in a moment' });
       for (const task of queue.splice(0)) task.resolve({ report: null, note: 'The grading service is shutting down; submit again in a moment' });
-      await Promise.all(live.map((s) => s.worker.terminate()));
+      // Workers replaced after a timeout are being terminated already; wait for those too.
+      await Promise.all([...live.map((s) => s.worker.terminate()), ...terminating]);
     },
   };
 }

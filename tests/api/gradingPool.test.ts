@@ -7,6 +7,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { FORWARD_REVERSE } from '@shared/labs';
 import { builtInPanel } from '@shared/field/panels';
 import { createGradingPool } from '../../server/grading/pool';
+import { createTestApp } from './helpers/testApp';
 
 const pool = createGradingPool({ size: 1, timeoutMs: 1500, allowSpinForTests: true });
 afterAll(() => pool.close());
@@ -31,5 +32,30 @@ describe('grading pool', () => {
     const outcome = await plain.grade(job, { spin: true });
     expect(outcome.report?.passed).toBe(true);
     await plain.close();
+  }, 30_000);
+});
+
+describe('grading pool shutdown', () => {
+  it('answers a queued job with a note and leaves no worker thread running', async () => {
+    const closing = createGradingPool({ size: 2 });
+    await closing.warm();
+    expect(closing.workersRunning()).toBe(2);
+    const pending = Array.from({ length: 4 }, () => closing.grade(job));
+    await closing.close();
+    expect(closing.workersRunning()).toBe(0);
+    const outcomes = await Promise.all(pending);
+    // Graded before the close, or told to submit again; never left hanging.
+    for (const o of outcomes) expect(o.report !== null || /shutting down/.test(o.note ?? '')).toBe(true);
+    expect(outcomes.some((o) => o.report === null)).toBe(true);
+    expect((await closing.grade(job)).note).toMatch(/shutting down/);
+  }, 30_000);
+
+  it('the test app closes the pool it made', async () => {
+    const app = await createTestApp();
+    const pool = app.grader as ReturnType<typeof createGradingPool>;
+    await pool.warm();
+    expect(pool.workersRunning()).toBeGreaterThan(0);
+    await app.close();
+    expect(pool.workersRunning()).toBe(0);
   }, 30_000);
 });

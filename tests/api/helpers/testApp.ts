@@ -15,6 +15,7 @@ import type { Mailer } from '../../../server/mail/mailer';
 import { createLogger } from '../../../server/http/logging';
 import { createFakeClock, type FakeClock } from './fakeClock';
 import type { ScryptParams } from '../../../server/auth/passwords';
+import { createGradingPool, type Grader } from '../../../server/grading/pool';
 
 /** Cheap hashes keep tests fast; the production cost is measured in the benchmark, not here. */
 export const TEST_SCRYPT: ScryptParams = { N: 1024, r: 8, p: 1 };
@@ -29,7 +30,15 @@ export interface TestApp {
   config: Config;
   /** supertest bound to the listening server. */
   http: ReturnType<typeof request>;
+  /** The app's grader (the pool this helper made, or the one passed in). */
+  grader: Grader;
+  /** Stops the server, the grader's workers, the mailer and the database. */
   close(): Promise<void>;
+}
+
+export interface TestAppOptions {
+  /** Grades the app's submissions; default a fresh worker pool. Closed by `close()` either way. */
+  grader?: Grader;
 }
 
 /** Loads the template dump written by globalSetup into a new in-memory database. */
@@ -38,14 +47,16 @@ export async function openTemplateDatabase(): Promise<Database> {
   return openDatabase({ kind: 'dump', dump: new Blob([bytes]) }, { migrate: false });
 }
 
-export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+export async function createTestApp(env: Record<string, string> = {}, options: TestAppOptions = {}): Promise<TestApp> {
   const configResult = readConfig({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATA_DIR: '.tmp/unused', AUTH_RATE_LIMIT: '1000', ...env });
   if (!configResult.ok) throw new Error(configResult.error);
   const config = configResult.config;
   const database = await openTemplateDatabase();
   const clock = createFakeClock();
   const mailer = await openMailer(config, database.orm, clock);
+  const grader = options.grader ?? createGradingPool();
   const app = createApp({
+    grader,
     db: database,
     mailer,
     clock,
@@ -66,8 +77,10 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     mailer,
     config,
     http: request(server),
+    grader,
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await grader.close();
       await mailer.close();
       await database.close();
     },
