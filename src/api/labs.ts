@@ -2,7 +2,8 @@
  * The typed calls of the labs screens: labs, templates, attachments, self-check, submissions,
  * review and the gradebook. Each answer is parsed with the shared schema of its route
  * (`shared/api/labs.ts`); paths live in `LAB_ENDPOINTS` only. Built on the same `Http` as the
- * rest of the client, so a 401 sends the user to sign-in the same way.
+ * rest of the client, so a 401 sends the user to sign-in the same way. A POST always sends a JSON
+ * body (`{}` when there is nothing to say): the server refuses untyped bodies.
  */
 import { z } from 'zod';
 import {
@@ -73,8 +74,8 @@ export function createLabsApi(http: Http) {
     getLab: (id: string) => http.json(LAB_ENDPOINTS.lab(id), LabDetailResponseSchema).then(labOf),
     updateLab: (id: string, body: UpdateLabRequest) => http.json(LAB_ENDPOINTS.lab(id), LabDetailResponseSchema, { method: 'PATCH', body }).then(labOf),
     deleteLab: (id: string) => http.raw(LAB_ENDPOINTS.lab(id), { method: 'DELETE' }).then(() => undefined),
-    publish: (id: string) => http.json(LAB_ENDPOINTS.publish(id), LabDetailResponseSchema, { method: 'POST' }).then(labOf),
-    unpublish: (id: string) => http.json(LAB_ENDPOINTS.unpublish(id), LabDetailResponseSchema, { method: 'POST' }).then(labOf),
+    publish: (id: string) => http.json(LAB_ENDPOINTS.publish(id), LabDetailResponseSchema, { method: 'POST', body: {} }).then(labOf),
+    unpublish: (id: string) => http.json(LAB_ENDPOINTS.unpublish(id), LabDetailResponseSchema, { method: 'POST', body: {} }).then(labOf),
     tryLab: (id: string, ref: ProgramVersionRef) => http.json(LAB_ENDPOINTS.tryLab(id), TryLabResponseSchema, { method: 'POST', body: ref }).then((r) => r.report),
     uploadAttachment: (id: string, file: File) => {
       const form = new FormData();
@@ -84,7 +85,7 @@ export function createLabsApi(http: Http) {
     deleteAttachment: (labId: string, attachmentId: string) =>
       http.raw(LAB_ENDPOINTS.attachment(labId, attachmentId), { method: 'DELETE' }).then(() => undefined),
 
-    openLab: (id: string) => http.json(LAB_ENDPOINTS.open(id), OpenLabResponseSchema, { method: 'POST' }),
+    openLab: (id: string) => http.json(LAB_ENDPOINTS.open(id), OpenLabResponseSchema, { method: 'POST', body: {} }),
     selfCheckScript: (id: string) => http.json(LAB_ENDPOINTS.selfCheckScript(id), SelfCheckScriptSchema),
     submit: (id: string, ref: ProgramVersionRef) =>
       http.json(LAB_ENDPOINTS.submissions(id), StudentSubmissionResponseSchema, { method: 'POST', body: ref }).then((r) => r.submission),
@@ -94,7 +95,7 @@ export function createLabsApi(http: Http) {
       http
         .json(`${LAB_ENDPOINTS.submissions(id)}${query.latest ? '?latest=true' : ''}`, SubmissionRowListSchema)
         .then((r) => r.submissions),
-    regrade: (id: string) => http.json(LAB_ENDPOINTS.regrade(id), RegradeResponseSchema, { method: 'POST' }),
+    regrade: (id: string) => http.json(LAB_ENDPOINTS.regrade(id), RegradeResponseSchema, { method: 'POST', body: {} }),
     getSubmission: (id: string) => http.json(LAB_ENDPOINTS.submission(id), SubmissionDetailResponseSchema).then((r) => r.submission),
     overrideScore: (id: string, body: OverrideScoreRequest) =>
       http.json(LAB_ENDPOINTS.override(id), SubmissionDetailResponseSchema, { method: 'POST', body }).then((r) => r.submission),
