@@ -216,18 +216,17 @@ describe('labs in a real browser', () => {
 
     // ── The student sees the returned grade, and the mail reached the local fake mailbox. ──
     await student.reload({ waitUntil: 'networkidle' });
-    await student.getByRole('tab', { name: 'Submissions' }).click();
+    await student.locator('.n-tabs-tab', { hasText: 'Submissions' }).click();
     await expect.poll(() => student.getByTestId('feedback').innerText()).toMatch(/Rung comments missing[\s\S]*Comment your rungs/);
     await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 10 \/ 11/);
     await student.screenshot({ path: `${SHOTS}/lab-student-returned.png` });
 
     const adminContext = await browser.newContext();
-    const signedIn = await adminContext.request.post(`${server.url}/api/auth/sign-in`, { data: { email: DEMO_ADMIN.email, password: DEMO_ADMIN.password } });
-    expect(signedIn.ok()).toBe(true);
+    const admin = await signIn(adminContext, DEMO_ADMIN);
     await expect
       .poll(
         async () => {
-          const { mail } = (await (await adminContext.request.get(`${server.url}/api/dev/mail`)).json()) as { mail: SentMailEntry[] };
+          const { mail } = await admin.evaluate(async () => (await (await fetch('/api/dev/mail')).json()) as { mail: SentMailEntry[] });
           return mail.filter((m) => m.to.includes(DEMO_STUDENTS[0]!.email)).map((m) => `${m.subject} | ${m.text}`);
         },
         { timeout: 10_000 },
