@@ -15,6 +15,8 @@ const SHOTS = 'tests/e2e/screenshots';
 // Wide enough for the brief, the whole default rung width (about 800 px at zoom 1) and the panel side by side.
 const VIEWPORT = { width: 1800, height: 1000 };
 const failedCalls: string[] = [];
+/** A valid 1 × 1 PNG (8-byte signature, IHDR, IDAT, IEND). */
+const TINY_PNG = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==';
 
 beforeAll(async () => {
   server = await startServer();
@@ -111,6 +113,13 @@ describe('labs in a real browser', () => {
     expect(await teacher.getByTestId('script-points').innerText()).toBe('11');
     // The brief preview is rendered Markdown and ends with the safety caution.
     await expect.poll(() => teacher.getByTestId('lab-brief').innerText()).toMatch(/lock out \/ tag out/);
+    // Markup an author pastes is sanitised: no handler runs, no script or frame reaches the page.
+    const brief = teacher.getByLabel('Brief (Markdown)');
+    await brief.fill(`${THREE_WIRE.brief}\n<img src="x.png" onerror="window.__briefScript = 1"><script>window.__briefScript = 2</script><iframe src="/"></iframe> [a link](javascript:window.__briefScript=3)\n`);
+    await expect.poll(() => teacher.getByTestId('lab-brief').innerHTML()).toMatch(/<img src="x.png">/);
+    expect(await teacher.getByTestId('lab-brief').innerHTML()).not.toMatch(/onerror|<script|<iframe|javascript:/i);
+    expect(await teacher.evaluate(() => (window as { __briefScript?: number }).__briefScript)).toBeUndefined();
+    expect(await teacher.getByTestId('lab-brief').locator('h1').innerText()).toBe('Three-wire start/stop');
     // A bad value is flagged under its step, live, and the script is valid again once it is fixed.
     await teacher.getByLabel('Step 3 wait in ms').fill('-5');
     await teacher.getByLabel('Step 3 wait in ms').press('Tab');
@@ -129,7 +138,12 @@ describe('labs in a real browser', () => {
     expect(await teacher.getByTestId('grade-report').getByText('hidden').count()).toBe(3);
 
     await teacher.getByRole('button', { name: 'Publish' }).click();
-    await expect.poll(async () => [await teacher.getByTestId('publish-state').innerText(), ...failedCalls]).toEqual(['published']);
+    await expect
+      .poll(async () => [await teacher.getByTestId('publish-state').innerText(), ...failedCalls, ...(await teacher.locator('.n-message--error-type').allInnerTexts())])
+      .toEqual(['published']);
+    // A wiring diagram as an attachment (a 1 × 1 PNG; the server checks the type from its bytes).
+    await teacher.getByLabel('Attach an image or PDF').setInputFiles({ name: 'wiring-k1-k2.png', mimeType: 'image/png', buffer: Buffer.from(TINY_PNG, 'base64') });
+    await expect.poll(() => teacher.getByRole('region', { name: 'Attachments' }).innerText()).toMatch(/wiring-k1-k2\.png/);
     await teacher.screenshot({ path: `${SHOTS}/lab-author-try-it.png`, fullPage: true });
 
     // ── A student opens it, self-checks the starter, is shown the failing moment, fixes it. ──
@@ -143,6 +157,14 @@ describe('labs in a real browser', () => {
     await student.getByTestId('rung-canvas').waitFor();
     await expect.poll(() => student.getByTestId('lab-brief').innerText()).toMatch(/Three-wire start\/stop/);
     expect(await student.getByText(/lock out \/ tag out/).count()).toBeGreaterThan(0);
+    const attachment = student.getByRole('link', { name: 'wiring-k1-k2.png' });
+    const bytes = await student.evaluate(async (href) => {
+      const res = await fetch(href);
+      return { status: res.status, type: res.headers.get('content-type'), size: (await res.arrayBuffer()).byteLength };
+    }, (await attachment.getAttribute('href'))!);
+    expect(bytes).toEqual({ status: 200, type: expect.stringMatching(/^image\/png/), size: Buffer.from(TINY_PNG, 'base64').length });
+    expect(await student.getByTestId('lab-brief').innerHTML()).not.toMatch(/onerror|<script|<iframe|javascript:/i);
+    expect(await student.evaluate(() => (window as { __briefScript?: number }).__briefScript)).toBeUndefined();
     await expect.poll(() => student.getByTestId('save-status').innerText()).toMatch(/Saved · version 1/);
 
     await student.getByRole('button', { name: 'Self-check' }).click();
@@ -212,6 +234,7 @@ describe('labs in a real browser', () => {
     await teacher.getByRole('link', { name: DEMO_CLASS.name }).click();
     await teacher.getByRole('link', { name: 'Gradebook' }).click();
     await expect.poll(() => teacher.getByTestId('gradebook').innerText()).toMatch(/Ana Reyes[\s\S]*10/);
+    await teacher.locator('[data-testid="gradebook"] .n-base-loading').waitFor({ state: 'detached' }).catch(() => undefined);
     await teacher.screenshot({ path: `${SHOTS}/lab-gradebook.png` });
 
     // ── The student sees the returned grade, and the mail reached the local fake mailbox. ──
