@@ -1,7 +1,8 @@
 /** Labs, their attachments and the students' lab copies as plain objects. */
 import { and, asc, eq, isNotNull } from 'drizzle-orm';
 import type { Db } from './client';
-import { labAttachments, labCopies, labs, type LabAttachmentRow, type LabRow } from './schema';
+import { classes, enrolments, labAttachments, labCopies, labs, type LabAttachmentRow, type LabRow } from './schema';
+import type { ClassRecord } from './classes';
 
 export type LabRecord = LabRow;
 export type AttachmentRecord = Omit<LabAttachmentRow, 'data'>;
@@ -11,6 +12,19 @@ export type LabChanges = Partial<Omit<NewLab, 'id' | 'classId' | 'authorId' | 'c
 export async function insertLab(db: Db, lab: NewLab): Promise<LabRecord> {
   const [row] = await db.insert(labs).values(lab).returning();
   return row;
+}
+
+/** A lab, its class and whether `userId` is enrolled in it, in one query (every lab request asks all three). */
+export async function findLabInContext(db: Db, labId: string, userId: string): Promise<{ lab: LabRecord; cls: ClassRecord; enrolled: boolean } | null> {
+  const rows = await db
+    .select({ lab: labs, cls: classes, enrolledId: enrolments.userId })
+    .from(labs)
+    .innerJoin(classes, eq(classes.id, labs.classId))
+    .leftJoin(enrolments, and(eq(enrolments.classId, labs.classId), eq(enrolments.userId, userId)))
+    .where(eq(labs.id, labId))
+    .limit(1);
+  const row = rows[0];
+  return row ? { lab: row.lab, cls: row.cls, enrolled: row.enrolledId !== null } : null;
 }
 
 export async function findLab(db: Db, id: string): Promise<LabRecord | null> {

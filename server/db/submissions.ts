@@ -1,7 +1,7 @@
 /** Submissions and their grade history as plain objects. */
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Db } from './client';
-import { gradeHistory, submissions, users, type GradeHistoryRow, type SubmissionRowDb } from './schema';
+import { gradeHistory, programVersions, programs, submissions, users, type GradeHistoryRow, type SubmissionRowDb } from './schema';
 
 export type SubmissionRecord = SubmissionRowDb;
 export type GradeHistoryRecord = GradeHistoryRow;
@@ -16,6 +16,35 @@ export interface SubmissionWithStudent {
 export async function insertSubmission(db: Db, s: typeof submissions.$inferInsert): Promise<SubmissionRecord> {
   const [row] = await db.insert(submissions).values(s).returning();
   return row;
+}
+
+/** What a graded submission is stored with: everything but the columns the database fills. */
+export type GradedSubmission = Omit<SubmissionRecord, 'id' | 'overrideScore' | 'overrideReason' | 'feedback' | 'returnedAt'>;
+
+/**
+ * Stores a submission already graded, in one statement. Only the id comes back: the report is
+ * large, and parsing it back from the database would cost more than the insert.
+ */
+export async function insertGradedSubmission(db: Db, s: GradedSubmission): Promise<SubmissionRecord> {
+  const [row] = await db.insert(submissions).values(s).returning({ id: submissions.id });
+  return { ...s, id: row.id, overrideScore: null, overrideReason: null, feedback: null, returnedAt: null };
+}
+
+/** A saved version of a program with the program's owner, in one query (what a submit checks). */
+export async function findVersionWithOwner(db: Db, programId: string, number: number): Promise<{ ownerId: string; number: number; document: unknown } | null> {
+  const rows = await db
+    .select({ ownerId: programs.ownerId, number: programVersions.number, document: programVersions.document })
+    .from(programVersions)
+    .innerJoin(programs, eq(programs.id, programVersions.programId))
+    .where(and(eq(programVersions.programId, programId), eq(programVersions.number, number)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+/** Is there a program with this id owned by `ownerId`? (To tell "not yours" from "no such version".) */
+export async function ownsProgram(db: Db, programId: string, ownerId: string): Promise<boolean> {
+  const rows = await db.select({ id: programs.id }).from(programs).where(and(eq(programs.id, programId), eq(programs.ownerId, ownerId))).limit(1);
+  return rows.length === 1;
 }
 
 export async function findSubmission(db: Db, id: string): Promise<SubmissionRecord | null> {

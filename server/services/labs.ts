@@ -10,13 +10,13 @@ import { STANDARD_LABS, standardLab } from '@shared/labs';
 import { publicUrl } from '../config';
 import type { AppContext } from '../context';
 import type { User } from '../db/users';
-import { findClass, listStudents, type ClassRecord } from '../db/classes';
+import { listStudents, type ClassRecord } from '../db/classes';
 import * as db from '../db/labs';
 import { findProgram, findVersion, insertProgram } from '../db/programs';
 import { failure, success, type Outcome } from '../http/failure';
 import { labPublishedMail } from '../mail/templates';
 import { refusal } from '../policies/access';
-import { labAccess, type LabAction } from '../policies/labPolicy';
+import { labAccess, managesClass, type LabAction } from '../policies/labPolicy';
 import { programAccess } from '../policies/programPolicy';
 import { authorisedClass } from './classes';
 import { checkLabScript, countChecks, resolvePanel } from './labChecks';
@@ -28,10 +28,10 @@ export const DEFAULT_PANEL: LabPanel = { kind: 'builtIn', id: DEFAULT_PANEL_ID }
 
 /** A lab with its class, if the actor may act on it. */
 export async function authorisedLab(ctx: AppContext, actor: User, labId: string, action: LabAction): Promise<Outcome<{ lab: db.LabRecord; cls: ClassRecord }>> {
-  const lab = await db.findLab(ctx.orm, labId);
-  const cls = lab ? await findClass(ctx.orm, lab.classId) : null;
-  if (!lab || !cls) return failure('not_found', 'No lab with that id');
-  return refusal(await labAccess(ctx.orm, actor, lab, cls, action), 'lab') ?? success({ lab, cls });
+  const found = await db.findLabInContext(ctx.orm, labId, actor.id);
+  if (!found) return failure('not_found', 'No lab with that id');
+  const { lab, cls } = found;
+  return refusal(labAccess(actor, lab, cls, found.enrolled, action), 'lab') ?? success({ lab, cls });
 }
 
 /** The API view of a lab for `actor` (script only for staff). */
@@ -117,7 +117,7 @@ export async function updateLab(ctx: AppContext, actor: User, labId: string, req
 export async function getLab(ctx: AppContext, actor: User, labId: string): Promise<Outcome<LabDetail>> {
   const found = await authorisedLab(ctx, actor, labId, 'view');
   if (!found.ok) return found;
-  const staff = (await labAccess(ctx.orm, actor, found.value.lab, found.value.cls, 'manage')) === 'allowed';
+  const staff = managesClass(actor, found.value.cls);
   return success(await viewLab(ctx, found.value.lab, staff));
 }
 

@@ -10,7 +10,6 @@ import type { AppContext } from '../context';
 import type { User } from '../db/users';
 import { findClass, type ClassRecord } from '../db/classes';
 import { findLab, type LabRecord } from '../db/labs';
-import { findProgram, findVersion } from '../db/programs';
 import { findUserById } from '../db/users';
 import * as db from '../db/submissions';
 import { failure, success, type Outcome } from '../http/failure';
@@ -43,28 +42,38 @@ export async function submit(ctx: AppContext, actor: User, labId: string, ref: P
   const found = await authorisedLab(ctx, actor, labId, 'work');
   if (!found.ok) return found;
   const { lab } = found.value;
-  const program = await findProgram(ctx.orm, ref.programId);
-  if (!program || program.ownerId !== actor.id) {
-    return failure('validation', 'programId: submit one of your own programs', { fields: { programId: 'not one of your programs' } });
+  const notYours = failure('validation', 'programId: submit one of your own programs', { fields: { programId: 'not one of your programs' } });
+  const version = await db.findVersionWithOwner(ctx.orm, ref.programId, ref.version);
+  if (version && version.ownerId !== actor.id) return notYours;
+  if (!version) {
+    if (!(await db.ownsProgram(ctx.orm, ref.programId, actor.id))) return notYours;
+    return failure('validation', `version: the program has no saved version ${ref.version}`, { fields: { version: `no version ${ref.version}; save first` } });
   }
-  const version = await findVersion(ctx.orm, program.id, ref.version);
-  if (!version) return failure('validation', `version: the program has no saved version ${ref.version}`, { fields: { version: `no version ${ref.version}; save first` } });
-  const now = ctx.clock.now();
-  const standing = lateStanding(lab, now);
+  const submittedAt = ctx.clock.now();
+  const standing = lateStanding(lab, submittedAt);
   if (standing.refused) return failure('conflict', `The due date (${iso(lab.dueAt!)}) has passed and this lab takes no late submissions`);
-  const stored = await db.insertSubmission(ctx.orm, {
+  // Graded first, then stored once with its report: one write per submission instead of two. A lab
+  // whose script cannot run still takes the submission (status `submitted`), for a regrade later.
+  const graded = await gradeOnLab(ctx, lab, version.document);
+  const { report, note } = graded.ok ? graded.value : { report: null, note: null };
+  const autoScore = graded.ok ? autoScoreOf(report, lab.totalPoints, standing.penaltyPercent) : null;
+  const stored = await db.insertGradedSubmission(ctx.orm, {
     labId,
     studentId: actor.id,
-    programId: program.id,
+    programId: ref.programId,
     versionNumber: version.number,
     document: version.document,
-    status: 'submitted',
+    status: graded.ok ? 'graded' : 'submitted',
     late: standing.late,
     penaltyPercent: standing.penaltyPercent,
-    submittedAt: now,
+    report,
+    gradingNote: note,
+    autoScore,
+    score: autoScore,
+    submittedAt,
+    gradedAt: graded.ok ? ctx.clock.now() : null,
   });
-  const graded = await grade(ctx, lab, stored);
-  return success(studentSubmissionView(graded.ok ? graded.value : stored, lab.totalPoints));
+  return success(studentSubmissionView(stored, lab.totalPoints));
 }
 
 export async function listMine(ctx: AppContext, actor: User, labId: string): Promise<Outcome<StudentSubmission[]>> {
@@ -182,6 +191,9 @@ export async function returnSubmission(ctx: AppContext, actor: User, id: string,
   return success(await detail(ctx, updated, lab));
 }
 
+/** Regradings in flight at once: enough to keep every worker of the pool busy, few enough to bound memory. */
+export const REGRADE_CONCURRENCY = 4;
+
 /** Grades every submission of the lab again with the current script, keeping each old report in history. */
 export async function regradeLab(ctx: AppContext, actor: User, labId: string): Promise<Outcome<{ regraded: number; limited: number }>> {
   const found = await authorisedLab(ctx, actor, labId, 'manage');
@@ -189,17 +201,29 @@ export async function regradeLab(ctx: AppContext, actor: User, labId: string): P
   const lab = found.value.lab;
   const rows = await db.listSubmissionsOfLab(ctx.orm, labId);
   const now = ctx.clock.now();
-  let regraded = 0;
-  let limited = 0;
-  for (const { submission } of rows) {
+  const regradeOne = async (submission: db.SubmissionRecord): Promise<Outcome<db.SubmissionRecord>> => {
     if (submission.gradedAt) {
       await db.insertGradeHistory(ctx.orm, { submissionId: submission.id, report: submission.report, gradingNote: submission.gradingNote, autoScore: submission.autoScore, gradedAt: submission.gradedAt, replacedAt: now });
     }
-    const graded = await grade(ctx, lab, submission);
-    if (!graded.ok) return graded;
-    regraded += 1;
-    if (graded.value.gradingNote) limited += 1;
-  }
-  return success({ regraded, limited });
+    return grade(ctx, lab, submission);
+  };
+  const outcomes = await mapBounded(rows.map((r) => r.submission), REGRADE_CONCURRENCY, regradeOne);
+  const refused = outcomes.find((o) => !o.ok);
+  if (refused) return refused;
+  const limited = outcomes.filter((o) => o.ok && o.value.gradingNote).length;
+  return success({ regraded: outcomes.length, limited });
 }
 
+/** `work` on every item, at most `limit` at a time; results in the items' order. */
+async function mapBounded<T, R>(items: T[], limit: number, work: (item: T) => Promise<R>): Promise<R[]> {
+  const results = new Array<R>(items.length);
+  let next = 0;
+  const lane = async (): Promise<void> => {
+    while (next < items.length) {
+      const i = next++;
+      results[i] = await work(items[i]!);
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(limit, items.length) }, lane));
+  return results;
+}
