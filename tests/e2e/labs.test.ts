@@ -105,6 +105,22 @@ describe('labs in a real browser', () => {
     await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
     await teacher.getByRole('link', { name: DEMO_CLASS.name }).click();
     await teacher.waitForURL(/\/classes\/[^/]+\/labs$/);
+    // A blank lab starts valid; a custom panel layout with a wiring mistake shows the located error under the field.
+    await teacher.getByRole('button', { name: 'New blank lab' }).click();
+    await teacher.waitForURL(/\/labs\/[^/]+\/edit$/);
+    await expect.poll(() => teacher.getByTestId('script-validity').innerText()).toBe('Valid for this panel');
+    await teacher.getByText('Custom layout (JSON)').click();
+    const layout = { format: 'rungwright.panel', version: 1, id: 'one-button', title: 'One button', devices: [{ id: 'S1', kind: 'pushbutton', label: 'Stop', feeds: '%IX99' }] };
+    await teacher.getByLabel('Panel layout JSON').fill(JSON.stringify(layout));
+    await expect.poll(() => teacher.getByTestId('layout-errors').innerText()).toMatch(/^devices\[0\]\.feeds: /);
+    await teacher.getByLabel('Panel layout JSON').fill(JSON.stringify({ ...layout, devices: [{ ...layout.devices[0], feeds: '%IX1' }] }));
+    await expect.poll(() => teacher.getByLabel('Panel preview').innerText()).toMatch(/Preview: One button \(1 devices/);
+    // The script was written for the default panel: against this one, its check on K1 is flagged.
+    await expect.poll(() => teacher.getByTestId('step-1').innerText()).toMatch(/step 1: "K1"/);
+    await teacher.screenshot({ path: `${SHOTS}/lab-author-custom-panel.png`, fullPage: true });
+    await teacher.goBack();
+    await teacher.waitForURL(/\/classes\/[^/]+\/labs$/);
+
     await pick(teacher, 'Standard lab template', THREE_WIRE.title);
     await teacher.getByRole('button', { name: 'New lab from template' }).click();
     await teacher.waitForURL(/\/labs\/[^/]+\/edit$/);
