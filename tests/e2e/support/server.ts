@@ -54,12 +54,25 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   });
   child.stdout?.on('data', (chunk) => (log += chunk));
   child.stderr?.on('data', (chunk) => (log += chunk));
-  await waitForHealth(url, child, () => log, 60_000);
+  // A test run stopped before its teardown (a timeout, Ctrl+C) must not leave a server behind
+  // holding a port and a temporary DATA_DIR.
+  const killOnExit = () => {
+    if (child.exitCode === null) child.kill('SIGKILL');
+    rmSync(dataDir, { recursive: true, force: true });
+  };
+  process.once('exit', killOnExit);
+  try {
+    await waitForHealth(url, child, () => log, 60_000);
+  } catch (err) {
+    killOnExit();
+    throw err;
+  }
   return {
     url,
     dataDir,
     output: () => log,
     stop: async () => {
+      process.removeListener('exit', killOnExit);
       if (child.exitCode === null) {
         const exited = new Promise((r) => child.once('exit', r));
         child.kill('SIGTERM');
