@@ -105,6 +105,7 @@ describe('labs in a real browser', () => {
     await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
     await teacher.getByRole('link', { name: DEMO_CLASS.name }).click();
     await teacher.waitForURL(/\/classes\/[^/]+\/labs$/);
+    const classId = teacher.url().split('/').slice(-2)[0]!;
     // A blank lab starts valid; a custom panel layout with a wiring mistake shows the located error under the field.
     await teacher.getByRole('button', { name: 'New blank lab' }).click();
     await teacher.waitForURL(/\/labs\/[^/]+\/edit$/);
@@ -246,9 +247,9 @@ describe('labs in a real browser', () => {
     await expect.poll(() => teacher.getByTestId('review-status').innerText()).toBe('returned');
     await teacher.screenshot({ path: `${SHOTS}/lab-review.png`, fullPage: true });
 
-    await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
-    await teacher.getByRole('link', { name: DEMO_CLASS.name }).click();
+    await teacher.goto(`${server.url}/classes/${classId}/labs`, { waitUntil: 'networkidle' });
     await teacher.getByRole('link', { name: 'Gradebook' }).click();
+    await teacher.waitForURL(new RegExp(`/classes/${classId}/gradebook$`));
     await expect.poll(() => teacher.getByTestId('gradebook').innerText()).toMatch(/Ana Reyes[\s\S]*10/);
     await teacher.locator('[data-testid="gradebook"] .n-base-loading').waitFor({ state: 'detached' }).catch(() => undefined);
     await teacher.screenshot({ path: `${SHOTS}/lab-gradebook.png` });
