@@ -9,7 +9,7 @@ import path from 'node:path';
 
 export interface BenchCase {
   case: string;
-  [figure: string]: string | number | boolean;
+  [figure: string]: string | number | boolean | null;
 }
 
 const here = path.dirname(fileURLToPath(import.meta.url));
