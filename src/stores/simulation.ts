@@ -8,12 +8,22 @@
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import { DEFAULT_SCAN_MS } from '@shared/engine';
-import { builtInPanel, DEFAULT_PANEL_ID, type ActionArgs, type ActionResult, type DeviceAction, type PanelLayout } from '@shared/field';
+import {
+  builtInPanel,
+  DEFAULT_PANEL_ID,
+  type ActionArgs,
+  type ActionResult,
+  type DeviceAction,
+  type DeviceView,
+  type IoExplanation,
+  type PanelLayout,
+} from '@shared/field';
+import { sameData, shareByKey } from '@/simulation/sharing';
 import type { Program } from '@shared/ladder/schema';
 import { browserScheduler, createFrameLoop, type FrameScheduler } from '@/simulation/frameLoop';
 import { createLiveView, elementIndex, type LiveView } from '@/simulation/liveView';
 import type { SimulationSpeed } from '@/simulation/pacing';
-import { createSimulatorSession, type SimulatorSession } from '@/simulation/session';
+import { createSimulatorSession, type LogEntry, type SimulatorSession } from '@/simulation/session';
 
 /** Where the simulation is: never run since the last (re)start, running, or paused. */
 export type SimulationMode = 'stopped' | 'running' | 'paused';
@@ -84,13 +94,28 @@ export const useSimulationStore = defineStore('simulation', () => {
   });
   const timeMs = computed(() => clock.value.timeMs);
   const scanCount = computed(() => clock.value.scanCount);
-  const devices = computed(() => current()?.devices() ?? []);
-  const io = computed(() => current()?.explain() ?? null);
-  const forces = computed(() => current()?.runtime.forces() ?? new Map<string, boolean>());
-  // A copy: the session appends to its log in place, and a computed returning the same array would not notify.
-  const log = computed(() => {
+  // Shared with the previous refresh where unchanged, so only the devices and rows that changed re-render.
+  const devices = computed<DeviceView[]>((previous) => shareByKey(previous ?? null, current()?.devices() ?? [], (d) => d.id));
+  const io = computed<IoExplanation | null>((previous) => {
+    const next = current()?.explain() ?? null;
+    if (next === null || previous == null) return next;
+    const inputs = shareByKey(previous.inputs, next.inputs, (r) => r.address);
+    const outputs = shareByKey(previous.outputs, next.outputs, (r) => r.address);
+    const same = inputs === previous.inputs && outputs === previous.outputs && sameData({ ...next, inputs: [], outputs: [] }, { ...previous, inputs: [], outputs: [] });
+    return same ? previous : { ...next, inputs, outputs };
+  });
+  const forces = computed<ReadonlyMap<string, boolean>>((previous) => {
+    const next = current()?.runtime.forces() ?? new Map<string, boolean>();
+    if (previous && previous.size === next.size && [...next].every(([k, v]) => previous.get(k) === v)) return previous;
+    return next;
+  });
+  // A copy (the session appends to its log in place), kept while no line was added, so the log view
+  // re-renders only when something happened.
+  const log = computed<readonly LogEntry[]>((previous) => {
     void tick.value;
-    return session.value?.log.slice(-500) ?? [];
+    const all = session.value?.log ?? [];
+    if (previous !== undefined && previous.at(-1)?.id === all.at(-1)?.id && previous.length === Math.min(all.length, 500)) return previous;
+    return all.slice(-500);
   });
   const messages = computed(() => {
     void tick.value;

@@ -6,8 +6,10 @@
  *    every conductor), the panel's device views, the I/O table, and (as the trace
  *    redraws at 5 Hz, every 12th frame) a 10 s trace window for 4 signals. 600 frames = 10 s of wall time.
  * 2. `simulation-browser-*` (Debian's Chromium, the real server, `/simulator/large`): the whole page
- *    running — frame time p95 from `requestAnimationFrame` timestamps and the main thread's busy
- *    share from the DevTools `Performance.getMetrics` TaskDuration over 5 s of running.
+ *    running — frame time p95 from `requestAnimationFrame` timestamps and the main thread's share
+ *    of each second from the DevTools `Performance.getMetrics` ThreadTime (its CPU time) over 5 s
+ *    of running; TaskDuration (wall time in tasks) is reported beside it. Headless Chromium here
+ *    paints in software (`--disable-gpu`), so painting costs more than with a GPU.
  * Targets (issue 7): frame time p95 < 16 ms (one 60 fps frame is 16.7 ms), main thread < 30 %.
  */
 import { mkdirSync } from 'node:fs';
@@ -109,9 +111,10 @@ async function browserCase(speed: 'real' | 'fast'): Promise<BenchCase> {
     await page.waitForTimeout(1000);
     const cdp = await page.context().newCDPSession(page);
     await cdp.send('Performance.enable');
-    const metric = async (): Promise<number> => {
+    const metric = async (): Promise<{ thread: number; tasks: number }> => {
       const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] };
-      return metrics.find((m) => m.name === 'TaskDuration')?.value ?? Number.NaN;
+      const value = (name: string) => metrics.find((m) => m.name === name)?.value ?? Number.NaN;
+      return { thread: value('ThreadTime'), tasks: value('TaskDuration') };
     };
     const before = await metric();
     const wallStart = Date.now();
@@ -130,7 +133,10 @@ async function browserCase(speed: 'real' | 'fast'): Promise<BenchCase> {
     })`)) as number[];
     const wall = (Date.now() - wallStart) / 1000;
     const after = await metric();
-    const share = (after - before) / wall;
+    // ThreadTime is the main thread's CPU time; TaskDuration the wall time spent in its tasks, which
+    // also counts time the thread waited for a core on a busy machine.
+    const share = (after.thread - before.thread) / wall;
+    const taskShare = (after.tasks - before.tasks) / wall;
     const p95 = percentile(deltas, 95);
     const running = (await page.locator('[data-device="K1"]').getAttribute('aria-label'))?.includes('carrier closed') ?? false;
     mkdirSync('tests/e2e/screenshots', { recursive: true });
@@ -142,6 +148,7 @@ async function browserCase(speed: 'real' | 'fast'): Promise<BenchCase> {
       frameTimeP95Ms: round(p95),
       frameTimeMaxMs: round(Math.max(...deltas)),
       mainThreadShare: round(share, 4),
+      mainThreadTaskWallShare: round(taskShare, 4),
       meetsTargets: p95 < TARGET_P95_MS + 1 && share < TARGET_SHARE,
       note: 'frame time = interval between animation frames (16.7 ms at 60 fps); p95 target read as "no frame missed"',
       stillRunning: running,

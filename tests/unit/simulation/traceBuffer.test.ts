@@ -41,3 +41,17 @@ describe('the trace ring buffer', () => {
     expect(trace.toCSV(['%IX1', 'T1.ET']).split('\n').slice(0, 3)).toEqual(['time_ms,%IX1,T1.ET', '10,0,', '20,0,20']);
   });
 });
+
+describe('structural sharing of views', () => {
+  it('keeps the previous object for an unchanged item and the previous array when nothing changed', async () => {
+    const { shareByKey, sameData } = await import('@/simulation/sharing');
+    const before = [{ id: 'K1', word: 'open', detail: { moving: false } }, { id: 'K2', word: 'open', detail: { moving: false } }];
+    const next = [{ id: 'K1', word: 'open', detail: { moving: false } }, { id: 'K2', word: 'closed', detail: { moving: false } }];
+    const shared = shareByKey(before, next, (d) => d.id);
+    expect(shared[0]).toBe(before[0]);
+    expect(shared[1]).toBe(next[1]);
+    const again = shareByKey(shared, structuredClone(shared), (d) => d.id);
+    expect(again).toBe(shared);
+    expect(sameData({ a: [1, { b: 2 }] }, { a: [1, { b: 3 }] })).toBe(false);
+  });
+});
