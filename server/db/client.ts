@@ -9,10 +9,21 @@ import { PGlite } from '@electric-sql/pglite';
 import { drizzle } from 'drizzle-orm/pglite';
 import { migrate } from 'drizzle-orm/pglite/migrator';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
+import type { SQL } from 'drizzle-orm';
 import * as schema from './schema';
+import { enableRowCaches } from './rowCache';
 
 /** The Drizzle handle every db-layer function takes; driver-agnostic on purpose. */
 export type Db = PgDatabase<PgQueryResultHKT, typeof schema>;
+
+/**
+ * The rows of a raw SQL statement, as the driver returns them (column names as in SQL). Both PGlite
+ * and node-postgres answer `{ rows }`; this is the one place that relies on it.
+ */
+export async function executeRows<Row extends Record<string, unknown>>(db: Db, query: SQL): Promise<Row[]> {
+  const result = (await db.execute(query)) as unknown as { rows: Row[] };
+  return result.rows;
+}
 
 /** Where the data comes from: a directory on disk, a fresh in-memory database, or a dump to copy. */
 export type DatabaseSource =
@@ -48,6 +59,8 @@ export async function openDatabase(source: DatabaseSource, options: { migrate?: 
   if (options.migrate ?? true) {
     await migrate(drizzle({ client, schema }), { migrationsFolder: MIGRATIONS_FOLDER });
   }
+  // PGlite runs inside this process and DATA_DIR is locked to it: no other writer can exist.
+  enableRowCaches(db);
   return {
     orm: db,
     driver: 'pglite',

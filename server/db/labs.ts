@@ -3,6 +3,7 @@ import { and, asc, eq, isNotNull } from 'drizzle-orm';
 import type { Db } from './client';
 import { classes, enrolments, labAttachments, labCopies, labs, type LabAttachmentRow, type LabRow } from './schema';
 import type { ClassRecord } from './classes';
+import { rowCachesOf } from './rowCache';
 
 export type LabRecord = LabRow;
 export type AttachmentRecord = Omit<LabAttachmentRow, 'data'>;
@@ -39,6 +40,8 @@ export async function updateLab(db: Db, id: string, changes: LabChanges): Promis
 
 export async function deleteLab(db: Db, id: string): Promise<void> {
   await db.delete(labs).where(eq(labs.id, id));
+  // The foreign key sets `programs.lab_id` to null in every program of this lab.
+  rowCachesOf(db)?.programs.clear();
 }
 
 /** The labs of a class in creation order; `publishedOnly` for students. */

@@ -2,10 +2,15 @@
  * Programs and their versions. A save appends a version only if the program's head is still the
  * version the save was based on: one conditional UPDATE decides, so two saves on the same base can
  * never both win, on PGlite or on a PostgreSQL server.
+ *
+ * Programs and versions read through the row caches (`rowCache.ts`); every write here updates
+ * or drops the cached rows it changed, after it committed.
  */
-import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Db } from './client';
 import { programs, programVersions, type ProgramRow, type ProgramVersionRow } from './schema';
+import { rowCachesOf, versionKey } from './rowCache';
+import { appendVersionBatched } from './versionBatches';
 
 export type Program = ProgramRow;
 export type ProgramVersion = ProgramVersionRow;
@@ -31,7 +36,7 @@ export interface NewProgram {
 
 /** Creates a program with its version 1, in one transaction. */
 export async function insertProgram(db: Db, p: NewProgram): Promise<{ program: Program; version: ProgramVersion }> {
-  return db.transaction(async (tx) => {
+  const created = await db.transaction(async (tx) => {
     const [program] = await tx
       .insert(programs)
       .values({ ownerId: p.ownerId, title: p.title, labId: p.labId ?? null, headVersion: 1, demo: p.demo ?? false, createdAt: p.now, updatedAt: p.now })
@@ -42,11 +47,16 @@ export async function insertProgram(db: Db, p: NewProgram): Promise<{ program: P
       .returning();
     return { program, version };
   });
+  const caches = rowCachesOf(db);
+  caches?.programs.put(created.program.id, created.program);
+  caches?.versions.put(versionKey(created.program.id, 1), created.version);
+  return created;
 }
 
 export async function findProgram(db: Db, id: string): Promise<Program | null> {
-  const rows = await db.select().from(programs).where(eq(programs.id, id)).limit(1);
-  return rows[0] ?? null;
+  const load = async () => (await db.select().from(programs).where(eq(programs.id, id)).limit(1))[0] ?? null;
+  const cache = rowCachesOf(db)?.programs;
+  return cache ? cache.read(id, load) : load();
 }
 
 export async function listProgramsByOwner(db: Db, ownerId: string): Promise<Program[]> {
@@ -55,11 +65,16 @@ export async function listProgramsByOwner(db: Db, ownerId: string): Promise<Prog
 
 export async function renameProgram(db: Db, id: string, title: string, now: Date): Promise<Program | null> {
   const rows = await db.update(programs).set({ title, updatedAt: now }).where(eq(programs.id, id)).returning();
-  return rows[0] ?? null;
+  const renamed = rows[0] ?? null;
+  if (renamed) rowCachesOf(db)?.programs.put(id, renamed);
+  return renamed;
 }
 
 export async function deleteProgram(db: Db, id: string): Promise<void> {
   await db.delete(programs).where(eq(programs.id, id));
+  const caches = rowCachesOf(db);
+  caches?.programs.drop(id);
+  caches?.versions.dropWhere((key) => key.startsWith(`${id}#`));
 }
 
 export async function listVersions(db: Db, programId: string): Promise<VersionSummary[]> {
@@ -67,12 +82,10 @@ export async function listVersions(db: Db, programId: string): Promise<VersionSu
 }
 
 export async function findVersion(db: Db, programId: string, number: number): Promise<ProgramVersion | null> {
-  const rows = await db
-    .select()
-    .from(programVersions)
-    .where(and(eq(programVersions.programId, programId), eq(programVersions.number, number)))
-    .limit(1);
-  return rows[0] ?? null;
+  const load = async () =>
+    (await db.select().from(programVersions).where(and(eq(programVersions.programId, programId), eq(programVersions.number, number))).limit(1))[0] ?? null;
+  const cache = rowCachesOf(db)?.versions;
+  return cache ? cache.read(versionKey(programId, number), load) : load();
 }
 
 export interface NewVersion {
@@ -86,27 +99,41 @@ export interface NewVersion {
 
 export type AppendResult = { ok: true; version: ProgramVersion } | { ok: false; head: VersionSummary | null };
 
-/** Appends version `baseVersion + 1` if the head is still `baseVersion`; else reports the head. */
+/**
+ * Appends version `baseVersion + 1` if the head is still `baseVersion`; else reports the head.
+ * One conditional statement decides (see `versionBatches.ts`, which also groups concurrent saves
+ * into one statement).
+ */
 export async function appendVersion(db: Db, v: NewVersion): Promise<AppendResult> {
-  return db.transaction(async (tx) => {
-    const moved = await tx
-      .update(programs)
-      .set({ headVersion: sql`${programs.headVersion} + 1`, updatedAt: v.now })
-      .where(and(eq(programs.id, v.programId), eq(programs.headVersion, v.baseVersion)))
-      .returning({ head: programs.headVersion });
-    if (moved.length === 0) {
-      const [program] = await tx.select({ head: programs.headVersion }).from(programs).where(eq(programs.id, v.programId));
-      if (!program) return { ok: false as const, head: null };
-      const [head] = await tx
-        .select(summaryColumns)
-        .from(programVersions)
-        .where(and(eq(programVersions.programId, v.programId), eq(programVersions.number, program.head)));
-      return { ok: false as const, head: head ?? null };
-    }
-    const [version] = await tx
-      .insert(programVersions)
-      .values({ programId: v.programId, number: moved[0].head, document: v.document, message: v.message, authorId: v.authorId, createdAt: v.now })
-      .returning();
-    return { ok: true as const, version };
+  const number = await appendVersionBatched(db, {
+    programId: v.programId,
+    baseVersion: v.baseVersion,
+    documentJson: JSON.stringify(v.document),
+    message: v.message,
+    authorId: v.authorId,
+    now: v.now,
   });
+  const caches = rowCachesOf(db);
+  if (number === null) {
+    caches?.programs.drop(v.programId);
+    return { ok: false, head: await findHead(db, v.programId) };
+  }
+  // Only the head and the time changed; the document is not read back (parsing it costs more than the insert).
+  const version: ProgramVersion = { programId: v.programId, number, document: v.document, message: v.message, authorId: v.authorId, createdAt: v.now };
+  const cachedProgram = caches?.programs.peek(v.programId);
+  if (cachedProgram) caches?.programs.put(v.programId, { ...cachedProgram, headVersion: number, updatedAt: v.now });
+  else caches?.programs.drop(v.programId);
+  caches?.versions.put(versionKey(v.programId, number), version);
+  return { ok: true, version };
+}
+
+/** The head version's summary (what a refused save reports), or null when there is no such program. */
+async function findHead(db: Db, programId: string): Promise<VersionSummary | null> {
+  const rows = await db
+    .select(summaryColumns)
+    .from(programVersions)
+    .innerJoin(programs, and(eq(programs.id, programVersions.programId), eq(programs.headVersion, programVersions.number)))
+    .where(eq(programVersions.programId, programId))
+    .limit(1);
+  return rows[0] ?? null;
 }

@@ -2,6 +2,7 @@
 import { count, eq, sql } from 'drizzle-orm';
 import type { Db } from './client';
 import { users } from './schema';
+import { rowCachesOf } from './rowCache';
 
 /** A user as the services see it (the hash stays in the db layer unless asked for). */
 export interface User {
@@ -43,9 +44,11 @@ export async function insertUser(db: Db, user: NewUser): Promise<User | null> {
   return rows[0] ?? null;
 }
 
+/** Every signed-in request asks this, so it reads through the row cache (`rowCache.ts`). */
 export async function findUserById(db: Db, id: string): Promise<User | null> {
-  const rows = await db.select(publicColumns).from(users).where(eq(users.id, id)).limit(1);
-  return rows[0] ?? null;
+  const load = async () => (await db.select(publicColumns).from(users).where(eq(users.id, id)).limit(1))[0] ?? null;
+  const cache = rowCachesOf(db)?.users;
+  return cache ? cache.read(id, load) : load();
 }
 
 export async function findUserByEmail(db: Db, email: string): Promise<User | null> {
@@ -68,10 +71,12 @@ export async function findCredentials(db: Db, email: string): Promise<{ user: Us
 
 export async function setLastSignIn(db: Db, id: string, at: Date): Promise<void> {
   await db.update(users).set({ lastSignInAt: at }).where(eq(users.id, id));
+  rowCachesOf(db)?.users.drop(id);
 }
 
 export async function setPasswordHash(db: Db, id: string, passwordHash: string): Promise<void> {
   await db.update(users).set({ passwordHash }).where(eq(users.id, id));
+  rowCachesOf(db)?.users.drop(id);
 }
 
 export async function countUsers(db: Db): Promise<number> {

@@ -12,9 +12,11 @@ export function parse<S extends z.ZodType>(schema: S, value: unknown): Outcome<z
   return failure('validation', describeFields(fields), { fields });
 }
 
+const IdSchema = z.uuid();
+
 /** Parses a route's `:id`-style parameter; anything that is not a uuid cannot exist (404). */
 export function parseId(value: unknown, what: string): Outcome<string> {
-  const parsed = z.uuid().safeParse(value);
+  const parsed = IdSchema.safeParse(value);
   return parsed.success ? success(parsed.data) : failure('not_found', `No ${what} with that id`);
 }
 

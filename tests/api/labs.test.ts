@@ -203,7 +203,8 @@ describe('instructor review', () => {
 
     const returned = await call(t, 'post', `/api/submissions/${id}/return`, cast.instructor.cookie).send({ feedback: 'Good interlocks.' });
     expect(returned.body.submission.status).toBe('returned');
-    const mail = await waitForMail(t, cast.admin.cookie, cast.studentB.user.email);
+    // Student B also got the publication notice; wait for the return notice itself.
+    const mail = await waitForMail(t, cast.admin.cookie, cast.studentB.user.email, 'Returned');
     expect(mail.subject).toContain('Returned');
     expect(mail.text).toContain('18 of 20');
     const after = await call(t, 'get', `/api/labs/${labId}/submissions/mine`, cast.studentB.cookie);

@@ -9,15 +9,16 @@ export interface Mail {
   html: string;
 }
 
-export async function waitForMail(t: TestApp, adminCookie: string, to: string, timeoutMs = 5000): Promise<Mail> {
+/** The first mail to `to` (whose subject contains `subject`, when given) once it has arrived. */
+export async function waitForMail(t: TestApp, adminCookie: string, to: string, subject = '', timeoutMs = 5000): Promise<Mail> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const res = await call(t, 'get', '/api/dev/mail', adminCookie);
-    const found = (res.body.mail as Mail[] | undefined)?.find((m) => m.to.toLowerCase().includes(to.toLowerCase()));
+    const found = (res.body.mail as Mail[] | undefined)?.find((m) => m.to.toLowerCase().includes(to.toLowerCase()) && m.subject.includes(subject));
     if (found) return found;
     await new Promise((r) => setTimeout(r, 50));
   }
-  throw new Error(`no mail to ${to} arrived within ${timeoutMs} ms`);
+  throw new Error(`no mail to ${to}${subject ? ` about "${subject}"` : ''} arrived within ${timeoutMs} ms`);
 }
 
 /** The one-time token in a mailed link (`…#token=<token>`). */
