@@ -1,13 +1,15 @@
 /**
  * The simulator in a real browser (Debian's Chromium, the real server): the demo three-wire program
  * run against the default panel — start, seal-in, e-stop, e-stop reset, the two-wire restart, and
- * the overload trip that leaves %QX1 ON with K1 open. A screenshot at each point goes to
- * tests/e2e/screenshots/ (git-ignored) to be looked at.
+ * the overload trip that leaves %QX1 ON with K1 open. The rungs are the workbench's canvas, so
+ * their states are read from the page's "Rung states as text" list and the canvas's pixels. A
+ * screenshot at each point goes to tests/e2e/screenshots/ (git-ignored) to be looked at.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
 import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
+import { layoutProgram } from '@/editor/layout';
 import { threeWireProgram } from '@/simulation/demoPrograms';
 import { launchChromium } from './support/chromium';
 import { startServer, type RunningServer } from './support/server';
@@ -36,6 +38,25 @@ const inputBits = () => page.locator('table.inputs tr[data-address] td.bit').all
 const outputRow = (address: string) => page.locator(`table.outputs tr[data-address="${address}"] td.bit`).innerText();
 const reason = (address: string) => page.locator(`td[data-reason="${address}"]`).innerText();
 const motorWord = async () => (await deviceLabel('M1'))?.split(': ')[1]?.split(',')[0];
+
+/**
+ * Pixels in the energised amber (#d98a1c) on the rung canvas's live layer (the second of its
+ * canvases), around the coil `coilId` of the three-wire demo: from 40 px left of its box to its
+ * right edge, over its rung's height. Program coordinates = canvas coordinates (zoom 1, unscrolled).
+ */
+const amberAtCoil = (coilId: string) => {
+  const layout = layoutProgram(threeWireProgram());
+  const rung = layout.rungs.find((r) => r.elements.some((b) => b.id === coilId))!;
+  const box = rung.elements.find((b) => b.id === coilId)!;
+  const area = { x: box.x - 40, y: rung.top, w: box.width + 40, h: rung.height };
+  return page.locator('[data-testid="rung-canvas"] canvas').nth(1).evaluate((canvas: HTMLCanvasElement, a: typeof area) => {
+    const scale = canvas.width / canvas.clientWidth;
+    const { data } = canvas.getContext('2d')!.getImageData(a.x * scale, a.y * scale, a.w * scale, a.h * scale);
+    let n = 0;
+    for (let i = 0; i < data.length; i += 4) if (data[i + 3]! > 200 && Math.abs(data[i]! - 0xd9) < 12 && Math.abs(data[i + 1]! - 0x8a) < 12 && Math.abs(data[i + 2]! - 0x1c) < 12) n += 1;
+    return n;
+  }, area);
+};
 
 async function openDemo(id: string): Promise<void> {
   await page.goto(`${server.url}/simulator/${id}`, { waitUntil: 'networkidle' });
@@ -69,10 +90,16 @@ describe('the simulator on the default panel in a real browser', () => {
     expect(await contactor('K1')).toMatch(/carrier closed/);
     await expect.poll(motorWord).toBe('forward');
     // The seal-in rung: energised at its right end, power through the K1_Coil contact of the seal-in branch.
-    expect(await page.locator('[data-rung="r1"]').getAttribute('data-energised')).toBe('true');
+    await page.getByText('Rung states as text').click();
+    await expect.poll(() => page.locator('[data-rung="r1"]').getAttribute('data-energised')).toBe('true');
     expect(await page.locator('[data-element="r1n3"]').getAttribute('data-state')).toBe('open');
     expect(await page.locator('[data-element="r1n5"]').getAttribute('data-state')).toBe('closed');
     expect(await page.locator('[data-element="r1n8"]').getAttribute('data-state')).toBe('energised');
+    // The reverse rung (K2) stays de-energised.
+    expect(await page.locator('[data-rung="r2"]').getAttribute('data-energised')).toBe('false');
+    // On the canvas: power flows into K1's coil in amber; K2's coil, not energised, shows none.
+    expect(await amberAtCoil('r1n8')).toBeGreaterThan(40);
+    expect(await amberAtCoil('r2n8')).toBe(0);
     await shot('simulation-2-sealed-in');
   });
 
@@ -80,6 +107,9 @@ describe('the simulator on the default panel in a real browser', () => {
     await page.locator('[data-device="S0"] button.mushroom').click();
     await expect.poll(async () => (await inputBits()).every((b) => b === 'FALSE')).toBe(true);
     await expect.poll(() => contactor('K1')).toMatch(/carrier open/);
+    // The forward rung loses its power at once, in the list and on the canvas.
+    await expect.poll(() => page.locator('[data-rung="r1"]').getAttribute('data-energised')).toBe('false');
+    await expect.poll(() => amberAtCoil('r1n8')).toBe(0);
     expect(await page.locator('.field-panel .commons').innerText()).toMatch(/Input common de-energised \(S0 11-12 open\)/);
     await shot('simulation-3-estop-pressed');
     await expect.poll(motorWord, { timeout: 5000 }).toBe('stopped');
@@ -160,15 +190,9 @@ describe('the simulator on the default panel in a real browser', () => {
     await page.locator('[data-device="S4"]').getByRole('radio', { name: 'RUN' }).click();
     await holdWithMouse('S2', async () => /carrier closed/.test((await contactor('K1')) ?? ''));
     await expect.poll(motorWord).toBe('forward');
-    // The canvas is pixels: the live paint shows as amber (#d98a1c) somewhere on it.
-    const amber = await page.locator('[data-testid="rung-canvas"] canvas').first().evaluate((canvas: HTMLCanvasElement) => {
-      const ctx = canvas.getContext('2d')!;
-      const { data } = ctx.getImageData(0, 0, canvas.width, canvas.height);
-      let n = 0;
-      for (let i = 0; i < data.length; i += 4) if (Math.abs(data[i]! - 0xd9) < 12 && Math.abs(data[i + 1]! - 0x8a) < 12 && Math.abs(data[i + 2]! - 0x1c) < 12) n += 1;
-      return n;
-    });
-    expect(amber).toBeGreaterThan(200);
+    // The canvas is pixels: the live layer paints K1's coil amber, and K2's (not energised) not.
+    await expect.poll(() => amberAtCoil('r1n8')).toBeGreaterThan(40);
+    expect(await amberAtCoil('r2n8')).toBe(0);
     await shot('simulation-10-workbench-running');
   });
 });
