@@ -1,6 +1,8 @@
 /** Submissions and their grade history as plain objects. */
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Db } from './client';
+import { rowCachesOf } from './rowCache';
+import { findProgram, findVersion } from './programs';
 import { gradeHistory, programVersions, programs, submissions, users, type GradeHistoryRow, type SubmissionRowDb } from './schema';
 
 export type SubmissionRecord = SubmissionRowDb;
@@ -30,8 +32,17 @@ export async function insertGradedSubmission(db: Db, s: GradedSubmission): Promi
   return { ...s, id: row.id, overrideScore: null, overrideReason: null, feedback: null, returnedAt: null };
 }
 
-/** A saved version of a program with the program's owner, in one query (what a submit checks). */
+/**
+ * A saved version of a program with the program's owner (what a submit checks): from the row
+ * caches when the database has them (a student usually submits the version just saved), else in
+ * one query.
+ */
 export async function findVersionWithOwner(db: Db, programId: string, number: number): Promise<{ ownerId: string; number: number; document: unknown } | null> {
+  if (rowCachesOf(db)) {
+    const program = await findProgram(db, programId);
+    const version = program ? await findVersion(db, programId, number) : null;
+    return program && version ? { ownerId: program.ownerId, number: version.number, document: version.document } : null;
+  }
   const rows = await db
     .select({ ownerId: programs.ownerId, number: programVersions.number, document: programVersions.document })
     .from(programVersions)

@@ -10,7 +10,7 @@ import type { AppContext } from '../context';
 import type { LabRecord } from '../db/labs';
 import type { GradeOutcome } from '../grading/gradeJob';
 import { failure, success, type Outcome } from '../http/failure';
-import { checkLabScript, resolvePanel } from './labChecks';
+import { labRun } from './labChecks';
 
 export const round2 = (n: number): number => Math.round(n * 100) / 100;
 
@@ -39,9 +39,8 @@ export function autoScoreOf(report: GradeReport | null, totalPoints: number, pen
 
 /** Runs the lab's script on `document` in the worker pool. */
 export async function gradeOnLab(ctx: AppContext, lab: LabRecord, document: unknown): Promise<Outcome<GradeOutcome>> {
-  const layout = resolvePanel(lab.panel as LabPanel);
-  if (!layout.ok) return failure('conflict', `The lab's panel is not valid any more: ${layout.failure.message}`);
-  const script = checkLabScript(lab.checkScript, layout.value);
-  if (!script.ok) return failure('conflict', `The lab's check script does not run on its panel: ${script.failure.message}`);
-  return success(await ctx.grader.grade({ program: document as Program, panel: layout.value, script: script.value }));
+  const run = labRun(lab.panel as LabPanel, lab.checkScript);
+  if (!run.ok && run.part === 'panel') return failure('conflict', `The lab's panel is not valid any more: ${run.failure.message}`);
+  if (!run.ok) return failure('conflict', `The lab's check script does not run on its panel: ${run.failure.message}`);
+  return success(await ctx.grader.grade({ program: document as Program, panel: run.value.layout, script: run.value.script }));
 }
