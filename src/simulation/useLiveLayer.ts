@@ -5,10 +5,12 @@
  *
  * The layer is drawn synchronously, in the animation frame that refreshed the view, rather than
  * through Konva's `batchDraw` (which waits for the next frame): every change of the page then lands
- * in the same frame, and the frames in between leave the page untouched, which in a software-painted
- * browser halves the frames the browser has to paint. It is drawn only when a visible rung's marks
- * changed, or while a visible conductor is energised (its dashes flow with wall time, moving at each
- * refresh); with nothing energised and nothing changed, it is left alone.
+ * in the same frame, and the frames in between leave the page untouched (in a software-painted
+ * browser every changed frame costs a few ms of painting). It is drawn when a visible rung's marks
+ * changed, or while a visible conductor is energised: its dashes flow with wall time and move at
+ * each refresh (20 Hz while running). The lead-in from the live left rail is energised on every
+ * rung, so while running it is drawn at each refresh; paused, the view does not change and the
+ * layer is left alone, its dashes standing still.
  */
 import { watch, type Ref } from 'vue';
 import type { Context } from 'konva/lib/Context';
