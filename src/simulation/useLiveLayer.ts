@@ -30,12 +30,14 @@ export interface PaintedRung {
 
 /**
  * The marks for the visible rungs, sharing the previous refresh's arrays where unchanged, and
- * whether the layer must be drawn again (something changed, or a conductor is flowing). Pure.
+ * whether the layer must be drawn again (something changed, or a conductor is flowing and the flow
+ * moves — it stands still for readers who ask for reduced motion). Pure.
  */
 export function nextPaint(
   previous: readonly PaintedRung[],
   rungs: readonly RungLayout[],
   marksOf: ((rung: RungLayout) => LiveMark[]) | null,
+  flowMoves = true,
 ): { painted: PaintedRung[]; redraw: boolean } {
   if (marksOf === null) return { painted: [], redraw: previous.length > 0 };
   const before = new Map(previous.map((p) => [p.rung, p.marks] as const));
@@ -46,7 +48,7 @@ export function nextPaint(
     return { rung, marks, flows: marks.some((m) => m.kind === 'line' && m.flow) };
   });
   const changed = painted.length !== previous.length || painted.some((p, i) => p.rung !== previous[i]?.rung || p.marks !== previous[i]?.marks);
-  return { painted, redraw: changed || painted.some((p) => p.flows) };
+  return { painted, redraw: changed || (flowMoves && painted.some((p) => p.flows)) };
 }
 
 /** A handle on a vue-konva layer component (`<KLayer ref=…>`). */
@@ -54,6 +56,7 @@ type LayerHandle = { getNode(): Layer };
 
 export function useLiveLayer(input: { rungs: Ref<readonly RungLayout[]>; layout: Ref<ProgramLayout>; palette: Ref<Palette> }) {
   const live = useLiveView();
+  const flowMoves = globalThis.matchMedia?.('(prefers-reduced-motion: reduce)').matches !== true;
   let layer: LayerHandle | null = null;
   let painted: readonly PaintedRung[] = [];
 
@@ -63,7 +66,7 @@ export function useLiveLayer(input: { rungs: Ref<readonly RungLayout[]>; layout:
     perfectDrawEnabled: false,
     sceneFunc: (ctx: Context) => {
       const raw = ctx._context;
-      const now = performance.now();
+      const now = flowMoves ? performance.now() : 0;
       for (const p of painted) {
         raw.save();
         raw.translate(0, p.rung.top);
@@ -77,7 +80,7 @@ export function useLiveLayer(input: { rungs: Ref<readonly RungLayout[]>; layout:
     [live, input.rungs, input.layout, input.palette],
     ([view, rungs, layout], old) => {
       const paletteChanged = old !== undefined && old[3] !== input.palette.value;
-      const next = nextPaint(painted, rungs, view ? (rung) => liveRungMarks(rung, layout, view) : null);
+      const next = nextPaint(painted, rungs, view ? (rung) => liveRungMarks(rung, layout, view) : null, flowMoves);
       painted = next.painted;
       if (next.redraw || paletteChanged) layer?.getNode().draw();
     },
