@@ -14,11 +14,5 @@ import { createApp } from 'vue';
 import { createPinia } from 'pinia';
 import { VueQueryPlugin } from '@tanstack/vue-query';
 import App from './App.vue';
-import { loadDarkTheme } from './components/app/darkTheme';
-import { usePreferencesStore } from './stores/preferences';
 
-const pinia = createPinia();
-const app = createApp(App).use(pinia).use(router).use(VueQueryPlugin);
-// A page that starts dark mounts with its theme already there, so it never shows light first.
-const ready = usePreferencesStore(pinia).colorScheme === 'dark' ? loadDarkTheme().catch(() => undefined) : Promise.resolve();
-void ready.then(() => app.mount('#app'));
+createApp(App).use(createPinia()).use(router).use(VueQueryPlugin).mount('#app');
