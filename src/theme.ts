@@ -68,3 +68,57 @@ export function themeOverrides(p: Palette): GlobalThemeOverrides {
     Layout: { color: p.paper, headerColor: p.surface, siderColor: p.surface },
   };
 }
+
+/**
+ * The timing diagram's colours. uPlot draws on a canvas, so the trace drawer reads them from here
+ * rather than from CSS. Every text colour keeps WCAG 2.1 contrast ≥ 4.5:1 on the plot's
+ * background (SC 1.4.3) and every line ≥ 3:1 (SC 1.4.11); tests/unit/app/theme.test.ts checks it.
+ */
+export interface ChartLook {
+  background: string;
+  text: string;
+  mutedText: string;
+  /** Axis baselines and ticks. */
+  axis: string;
+  /** Grid lines, drawn dotted so they stay quieter than the signals at the same contrast. */
+  grid: string;
+  /** Signal chips and the like: a fill that text of `text` colour sits on. */
+  chip: string;
+  /** One colour per signal lane, in order, repeating. */
+  series: readonly string[];
+}
+
+export const LIGHT_CHART: ChartLook = {
+  background: LIGHT_PALETTE.surface,
+  text: LIGHT_PALETTE.text,
+  mutedText: LIGHT_PALETTE.mutedText,
+  axis: LIGHT_PALETTE.mutedText,
+  grid: '#7d8699',
+  chip: '#efe9dc',
+  series: ['#b36b00', '#0f766e', '#1f2a44', '#7c3aed', '#c62828', '#2e7d32', '#1565c0', '#be185d'],
+};
+
+export const DARK_CHART: ChartLook = {
+  background: DARK_PALETTE.surface,
+  text: DARK_PALETTE.text,
+  mutedText: DARK_PALETTE.mutedText,
+  axis: DARK_PALETTE.mutedText,
+  grid: '#737d91',
+  chip: '#343b50',
+  series: ['#f0a63a', '#2dd4bf', '#c9d3e6', '#a78bfa', '#ef5350', '#66bb6a', '#64b5f6', '#f48fb1'],
+};
+
+/** WCAG 2.1 relative luminance of a `#rrggbb` colour (definition "relative luminance"). */
+function relativeLuminance(hex: string): number {
+  const [r, g, b] = [1, 3, 5].map((i) => {
+    const c = Number.parseInt(hex.slice(i, i + 2), 16) / 255;
+    return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+  }) as [number, number, number];
+  return 0.2126 * r + 0.7152 * g + 0.0722 * b;
+}
+
+/** WCAG 2.1 contrast ratio of two `#rrggbb` colours, 1 to 21 (definition "contrast ratio"). */
+export function contrastRatio(a: string, b: string): number {
+  const [light, dark] = [relativeLuminance(a), relativeLuminance(b)].sort((x, y) => y - x) as [number, number];
+  return (light + 0.05) / (dark + 0.05);
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DARK_PALETTE, FONT_MONO, FONT_UI, LIGHT_PALETTE, themeOverrides } from '../../../src/theme';
+import { contrastRatio, DARK_CHART, DARK_PALETTE, FONT_MONO, FONT_UI, LIGHT_CHART, LIGHT_PALETTE, themeOverrides } from '../../../src/theme';
 import { routes } from '../../../src/router/routes';
 
 describe('the look and feel', () => {
@@ -24,5 +24,26 @@ describe('the look and feel', () => {
     const withComponents = routes.filter((r) => 'component' in r && r.component);
     expect(withComponents.length).toBeGreaterThan(1);
     for (const route of withComponents) expect(typeof route.component).toBe('function');
+  });
+});
+
+describe('the timing diagram colours', () => {
+  it('computes WCAG 2.1 contrast ratios (definition "contrast ratio": black on white is 21:1, a colour on itself 1:1)', () => {
+    expect(contrastRatio('#000000', '#ffffff')).toBeCloseTo(21, 5);
+    expect(contrastRatio('#ffffff', '#000000')).toBeCloseTo(21, 5);
+    expect(contrastRatio('#1f2a44', '#1f2a44')).toBe(1);
+    // #767676 on white is the usual example of just passing 4.5:1 (common practice).
+    expect(contrastRatio('#767676', '#ffffff')).toBeGreaterThan(4.5);
+    expect(contrastRatio('#777777', '#ffffff')).toBeLessThan(4.5);
+  });
+
+  it.each([
+    ['light', LIGHT_CHART],
+    ['dark', DARK_CHART],
+  ])('reads well in the %s scheme: text ≥ 4.5:1 (WCAG 2.1 SC 1.4.3), lines ≥ 3:1 (SC 1.4.11)', (_scheme, look) => {
+    for (const text of [look.text, look.mutedText]) expect(contrastRatio(text, look.background)).toBeGreaterThanOrEqual(4.5);
+    expect(contrastRatio(look.text, look.chip)).toBeGreaterThanOrEqual(4.5);
+    for (const line of [look.axis, look.grid, ...look.series]) expect(contrastRatio(line, look.background)).toBeGreaterThanOrEqual(3);
+    expect(new Set(look.series).size).toBe(look.series.length);
   });
 });
