@@ -185,6 +185,23 @@ describe('labs in a real browser', () => {
     expect(await student.evaluate(() => (window as { __briefScript?: number }).__briefScript)).toBeUndefined();
     await expect.poll(() => student.getByTestId('save-status').innerText()).toMatch(/Saved · version 1/);
 
+    // The brief folds away from the keyboard so the rungs get its width, and stays folded for this student.
+    const fold = student.getByRole('button', { name: 'Brief', exact: true });
+    expect(await fold.getAttribute('aria-expanded')).toBe('true');
+    const canvasWidth = async () => (await student.getByTestId('rung-canvas').boundingBox())!.width;
+    const widthWithBrief = await canvasWidth();
+    await fold.focus();
+    await student.keyboard.press('Enter');
+    await expect.poll(() => fold.getAttribute('aria-expanded')).toBe('false');
+    expect(await student.getByTestId('lab-brief').isVisible()).toBe(false);
+    await expect.poll(canvasWidth).toBeGreaterThan(widthWithBrief + 300);
+    await student.reload({ waitUntil: 'networkidle' });
+    await expect.poll(() => student.getByTestId('save-status').innerText()).toMatch(/Saved · version 1/);
+    expect(await fold.getAttribute('aria-expanded')).toBe('false');
+    await fold.focus();
+    await student.keyboard.press('Enter');
+    await expect.poll(() => student.getByTestId('lab-brief').isVisible()).toBe(true);
+
     await student.getByRole('button', { name: 'Self-check' }).click();
     const sealIn = student.getByTestId('grade-report').locator('li', { hasText: 'S2 starts the belt' });
     await expect.poll(() => sealIn.innerText()).toMatch(/closed[\s\S]*open/);
