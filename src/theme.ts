@@ -122,3 +122,41 @@ export function contrastRatio(a: string, b: string): number {
   const [light, dark] = [relativeLuminance(a), relativeLuminance(b)].sort((x, y) => y - x) as [number, number];
   return (light + 0.05) / (dark + 0.05);
 }
+
+/**
+ * Words that carry a state in the dock's tables (the I/O status table): each keeps WCAG 2.1
+ * contrast ≥ 4.5:1 on the scheme's paper (SC 1.4.3), checked in tests/unit/app/theme.test.ts.
+ */
+export interface StateInk {
+  text: string;
+  mutedText: string;
+  /** A bit that is ON. */
+  on: string;
+  /** A contact closed, a load powered. */
+  ok: string;
+  /** A dead common, an open contact in the way, a bit ON whose load has no power. */
+  fault: string;
+  forced: string;
+  /** Table rules (decoration, not held to a ratio). */
+  rule: string;
+}
+
+export const LIGHT_STATE_INK: StateInk = {
+  text: LIGHT_PALETTE.text,
+  mutedText: LIGHT_PALETTE.mutedText,
+  on: '#9a5c00',
+  ok: '#1d6b32',
+  fault: LIGHT_PALETTE.error,
+  forced: LIGHT_PALETTE.forced,
+  rule: '#ddd5c4',
+};
+
+export const DARK_STATE_INK: StateInk = {
+  text: DARK_PALETTE.text,
+  mutedText: DARK_PALETTE.mutedText,
+  on: DARK_PALETTE.energised,
+  ok: '#66bb6a',
+  fault: DARK_PALETTE.error,
+  forced: DARK_PALETTE.forced,
+  rule: '#3a4153',
+};

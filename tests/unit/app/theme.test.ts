@@ -1,5 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { contrastRatio, DARK_CHART, DARK_PALETTE, FONT_MONO, FONT_UI, LIGHT_CHART, LIGHT_PALETTE, themeOverrides } from '../../../src/theme';
+import {
+  contrastRatio,
+  DARK_CHART,
+  DARK_PALETTE,
+  DARK_STATE_INK,
+  FONT_MONO,
+  FONT_UI,
+  LIGHT_CHART,
+  LIGHT_PALETTE,
+  LIGHT_STATE_INK,
+  themeOverrides,
+} from '../../../src/theme';
 import { routes } from '../../../src/router/routes';
 
 describe('the look and feel', () => {
@@ -45,5 +56,14 @@ describe('the timing diagram colours', () => {
     expect(contrastRatio(look.text, look.chip)).toBeGreaterThanOrEqual(4.5);
     for (const line of [look.axis, look.grid, ...look.series]) expect(contrastRatio(line, look.background)).toBeGreaterThanOrEqual(3);
     expect(new Set(look.series).size).toBe(look.series.length);
+  });
+});
+
+describe('the state words of the I/O status table', () => {
+  it.each([
+    ['light', LIGHT_STATE_INK, LIGHT_PALETTE.paper],
+    ['dark', DARK_STATE_INK, DARK_PALETTE.paper],
+  ])('read at ≥ 4.5:1 on the %s paper (WCAG 2.1 SC 1.4.3)', (_scheme, ink, paper) => {
+    for (const colour of [ink.text, ink.mutedText, ink.on, ink.ok, ink.fault, ink.forced]) expect(contrastRatio(colour, paper)).toBeGreaterThanOrEqual(4.5);
   });
 });
