@@ -84,7 +84,8 @@ export function useLiveLayer(input: { rungs: Ref<readonly RungLayout[]>; layout:
       painted = next.painted;
       if (next.redraw || paletteChanged) layer?.getNode().draw();
     },
-    { flush: 'post' },
+    // Immediate: the canvas loads this layer late (`useDeferredLiveLayer`), maybe while a simulation already runs.
+    { flush: 'post', immediate: true },
   );
 
   /** For the layer's function ref (`:ref="setLayer"`). */
