@@ -23,6 +23,23 @@ function preloadFonts(): Plugin {
   };
 }
 
+/**
+ * vue-konva's core build (`vue-konva/core`, which leaves the shapes to us) still imports the whole
+ * of Konva (`import Konva from 'konva'`) to read one global flag, `autoDrawEnabled`; that import
+ * brought every Konva shape, filter and tween (about 200 kB of code, evaluated before the rungs
+ * paint). The core module holds the same global, so vue-konva's import is given the core.
+ */
+function vueKonvaOnCore(): Plugin {
+  return {
+    name: 'rungwright:vue-konva-on-core',
+    enforce: 'pre',
+    resolveId(source, importer, options) {
+      if (source !== 'konva' || !importer?.includes('/node_modules/vue-konva/')) return null;
+      return this.resolve('konva/lib/Core', importer, { ...options, skipSelf: true });
+    },
+  };
+}
+
 const alias = {
   '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
   '@': fileURLToPath(new URL('./src', import.meta.url)),
@@ -30,7 +47,7 @@ const alias = {
 const apiPort = Number(process.env.API_PORT ?? 3001);
 
 export default defineConfig({
-  plugins: [vue(), preloadFonts()],
+  plugins: [vue(), preloadFonts(), vueKonvaOnCore()],
   resolve: { alias },
   server: {
     port: 5173,

@@ -3,24 +3,22 @@
  * Views call these through @tanstack/vue-query (see `queries.ts`); tests call them with a fake fetch.
  */
 import { z } from 'zod';
+// From the schemas' own files, not the `@shared/api` index: the app's first module then builds
+// only these schemas at start, not the labs' and the others' (zod builds a schema when its module runs).
+import { PasswordResetAcceptedSchema, SessionResponseSchema, UserListSchema, type SignInRequest, type SignUpRequest } from '@shared/api/auth';
+import { ClassListSchema } from '@shared/api/classes';
 import {
-  ClassListSchema,
   DiffResponseSchema,
   ImportResponseSchema,
-  PasswordResetAcceptedSchema,
   ProgramDetailSchema,
   ProgramListSchema,
   ProgramSummarySchema,
-  SessionResponseSchema,
-  UserListSchema,
   VersionDetailSchema,
   VersionListSchema,
   type CreateProgramRequest,
   type RestoreVersionRequest,
   type SaveVersionRequest,
-  type SignInRequest,
-  type SignUpRequest,
-} from '@shared/api';
+} from '@shared/api/programs';
 import { ENDPOINTS } from './endpoints';
 import type { Http } from './http';
 
