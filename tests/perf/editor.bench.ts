@@ -20,7 +20,6 @@ import { loadavg } from 'node:os';
 import type { Page } from 'playwright-core';
 import { build } from 'vite';
 import type { NetworkNode, Program, Rung } from '@shared/ladder/schema';
-import { clientBuildIsStale } from '../../server/clientBuild';
 import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
 import { launchChromium, missingChromiumHint } from '../e2e/support/chromium';
 import { startServer } from '../e2e/support/server';
@@ -129,7 +128,9 @@ export default async function (): Promise<BenchCase[]> {
   const hint = missingChromiumHint();
   if (hint) return [{ case: 'editor-workbench', skipped: hint }];
   const root = process.cwd();
-  if (clientBuildIsStale(root)) await build({ root, logLevel: 'warn', configFile: path.join(root, 'vite.config.ts') });
+  // Always a fresh production build: a dist/ that is up to date may still have been built under the
+  // e2e runner (NODE_ENV=test), i.e. with Vue's development build, slower and larger than what ships.
+  await build({ root, mode: 'production', logLevel: 'warn', configFile: path.join(root, 'vite.config.ts') });
   const server = await startServer({ LOG_LEVEL: 'warn' });
   const browser = await launchChromium([...UNCAPPED_FRAMES, ...NO_BROWSER_UI_PAGES]);
   try {
