@@ -9,7 +9,7 @@
 import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Db } from './client';
 import { programs, programVersions, type ProgramRow, type ProgramVersionRow } from './schema';
-import { rowCachesOf, versionKey } from './rowCache';
+import { readThrough, rowCachesOf, versionKey } from './rowCache';
 import { appendVersionBatched } from './versionBatches';
 
 export type Program = ProgramRow;
@@ -55,8 +55,7 @@ export async function insertProgram(db: Db, p: NewProgram): Promise<{ program: P
 
 export async function findProgram(db: Db, id: string): Promise<Program | null> {
   const load = async () => (await db.select().from(programs).where(eq(programs.id, id)).limit(1))[0] ?? null;
-  const cache = rowCachesOf(db)?.programs;
-  return cache ? cache.read(id, load) : load();
+  return readThrough(db, 'programs', id, load);
 }
 
 export async function listProgramsByOwner(db: Db, ownerId: string): Promise<Program[]> {
@@ -84,8 +83,7 @@ export async function listVersions(db: Db, programId: string): Promise<VersionSu
 export async function findVersion(db: Db, programId: string, number: number): Promise<ProgramVersion | null> {
   const load = async () =>
     (await db.select().from(programVersions).where(and(eq(programVersions.programId, programId), eq(programVersions.number, number))).limit(1))[0] ?? null;
-  const cache = rowCachesOf(db)?.versions;
-  return cache ? cache.read(versionKey(programId, number), load) : load();
+  return readThrough(db, 'versions', versionKey(programId, number), load);
 }
 
 export interface NewVersion {

@@ -108,3 +108,11 @@ export function enableRowCaches(handle: object): RowCaches {
 export function rowCachesOf(handle: object): RowCaches | undefined {
   return cachesByHandle.get(handle);
 }
+
+type CachedRow<C extends keyof RowCaches> = RowCaches[C] extends RowCache<infer V> ? V : never;
+
+/** Reads `key` through cache `cache` of `handle` when it has one; otherwise just loads. */
+export function readThrough<C extends keyof RowCaches>(handle: object, cache: C, key: string, load: () => Promise<CachedRow<C> | null>): Promise<CachedRow<C> | null> {
+  const caches = cachesByHandle.get(handle);
+  return caches ? (caches[cache] as unknown as RowCache<CachedRow<C>>).read(key, load) : load();
+}

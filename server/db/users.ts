@@ -2,7 +2,7 @@
 import { count, eq, sql } from 'drizzle-orm';
 import type { Db } from './client';
 import { users } from './schema';
-import { rowCachesOf } from './rowCache';
+import { readThrough, rowCachesOf } from './rowCache';
 
 /** A user as the services see it (the hash stays in the db layer unless asked for). */
 export interface User {
@@ -47,8 +47,7 @@ export async function insertUser(db: Db, user: NewUser): Promise<User | null> {
 /** Every signed-in request asks this, so it reads through the row cache (`rowCache.ts`). */
 export async function findUserById(db: Db, id: string): Promise<User | null> {
   const load = async () => (await db.select(publicColumns).from(users).where(eq(users.id, id)).limit(1))[0] ?? null;
-  const cache = rowCachesOf(db)?.users;
-  return cache ? cache.read(id, load) : load();
+  return readThrough(db, 'users', id, load);
 }
 
 export async function findUserByEmail(db: Db, email: string): Promise<User | null> {

@@ -19,7 +19,7 @@ import { refusal } from '../policies/access';
 import { labAccess, managesClass, type LabAction } from '../policies/labPolicy';
 import { programAccess } from '../policies/programPolicy';
 import { authorisedClass } from './classes';
-import { checkLabScript, countChecks, resolvePanel } from './labChecks';
+import { checkLabScript, countChecks, labRun, resolvePanel } from './labChecks';
 import { labView } from './labViews';
 import { gradeOnLab } from './grading';
 import { programView } from './views';
@@ -36,9 +36,8 @@ export async function authorisedLab(ctx: AppContext, actor: User, labId: string,
 
 /** The API view of a lab for `actor` (script only for staff). */
 export async function viewLab(ctx: AppContext, lab: db.LabRecord, staff: boolean): Promise<LabDetail> {
-  const layout = resolvePanel(lab.panel as LabPanel);
-  const script = layout.ok ? checkLabScript(lab.checkScript, layout.value) : null;
-  const counts = script?.ok ? countChecks(script.value) : { visible: 0, hidden: 0, maxScore: 0 };
+  const run = labRun(lab.panel as LabPanel, lab.checkScript);
+  const counts = run.ok ? countChecks(run.value.script) : { visible: 0, hidden: 0, maxScore: 0 };
   return labView(lab, counts, await db.listAttachments(ctx.orm, lab.id), staff);
 }
 
@@ -187,9 +186,8 @@ export async function labFromTemplate(ctx: AppContext, actor: User, classId: str
   }
   const now = ctx.clock.now();
   // The lab's points default to the script's, so the score reads like the report's.
-  const layout = resolvePanel({ kind: 'builtIn', id: template.panel });
-  const script = layout.ok ? checkLabScript(template.script, layout.value) : null;
-  const maxScore = script?.ok ? countChecks(script.value).maxScore : 100;
+  const run = labRun({ kind: 'builtIn', id: template.panel }, template.script);
+  const maxScore = run.ok ? countChecks(run.value.script).maxScore : 100;
   const lab = await db.insertLab(ctx.orm, {
     classId,
     authorId: actor.id,

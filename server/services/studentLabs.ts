@@ -14,7 +14,7 @@ import { listSubmissionScores } from '../db/submissions';
 import { failure, success, type Outcome } from '../http/failure';
 import { managesClass } from '../policies/labPolicy';
 import { authorisedClass } from './classes';
-import { checkLabScript, resolvePanel, selfCheckScript } from './labChecks';
+import { labRun, selfCheckScript } from './labChecks';
 import { authorisedLab } from './labs';
 import { programView, versionDetailView, iso } from './views';
 
@@ -88,9 +88,8 @@ async function copyView(ctx: AppContext, programId: string, created: boolean): P
 export async function getSelfCheckScript(ctx: AppContext, actor: User, labId: string): Promise<Outcome<SelfCheckScript>> {
   const found = await authorisedLab(ctx, actor, labId, 'view');
   if (!found.ok) return found;
-  const layout = resolvePanel(found.value.lab.panel as LabPanel);
-  if (!layout.ok) return failure('conflict', 'The lab panel is not valid; tell your instructor');
-  const script = checkLabScript(found.value.lab.checkScript, layout.value);
-  if (!script.ok) return failure('conflict', 'The lab check script does not run; tell your instructor');
-  return success(selfCheckScript(script.value));
+  const run = labRun(found.value.lab.panel as LabPanel, found.value.lab.checkScript);
+  if (!run.ok && run.part === 'panel') return failure('conflict', 'The lab panel is not valid; tell your instructor');
+  if (!run.ok) return failure('conflict', 'The lab check script does not run; tell your instructor');
+  return success(selfCheckScript(run.value.script));
 }
