@@ -1,6 +1,7 @@
 /**
- * Workbench benchmark (issue 6), in Debian's Chromium against the real server: a generated
- * 200-rung program created through the API and opened on the workbench.
+ * Workbench benchmark (issue 6), in Debian's Chromium headless shell (see `benchBrowser.ts`)
+ * against the real server and a fresh production build: a generated 200-rung program created
+ * through the API and opened on the workbench.
  *
  * - First render: navigation start → the User Timing mark the canvas sets when it first paints a
  *   rung (`rungwright:rungs-painted`, RungCanvas.vue); median and worst of a few cold page loads.
@@ -18,11 +19,11 @@ import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { loadavg } from 'node:os';
 import type { Page } from 'playwright-core';
-import { build } from 'vite';
 import type { NetworkNode, Program, Rung } from '@shared/ladder/schema';
 import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
-import { launchChromium, missingChromiumHint } from '../e2e/support/chromium';
+import { missingChromiumHint } from '../e2e/support/chromium';
 import { startServer } from '../e2e/support/server';
+import { buildClientForBench, launchBenchBrowser } from './benchBrowser';
 import type { BenchCase } from './run';
 import { median, percentile, round } from './stats';
 
@@ -34,13 +35,6 @@ const FIRST_PAINT_MARK = 'rungwright:rungs-painted';
 /** Set by the workbench once palette, dock and drawer have mounted after the rungs (WorkbenchView.vue). */
 const READY_MARK = 'rungwright:workbench-ready';
 const UNCAPPED_FRAMES = ['--disable-frame-rate-limit', '--disable-gpu-vsync'];
-/**
- * Headless Chromium builds its hidden omnibox popup (a WebUI page in a renderer of its own) with
- * each new page and runs that page's scripts while ours loads: a trace of one workbench load showed
- * about 400 ms of CPU in it, competing with the page for this machine's two cores. It is the
- * browser's own interface, not the page under test, so the benchmark's browser goes without it.
- */
-const NO_BROWSER_UI_PAGES = ['--disable-features=WebUIOmniboxPopup,PreloadTopChromeWebUI'];
 
 const contact = (id: string, operand: string, variant: 'no' | 'nc' = 'no'): NetworkNode => ({ kind: 'contact', id, variant, operand });
 const coil = (id: string, operand: string): NetworkNode => ({ kind: 'coil', id, variant: 'coil', operand });
@@ -128,11 +122,9 @@ export default async function (): Promise<BenchCase[]> {
   const hint = missingChromiumHint();
   if (hint) return [{ case: 'editor-workbench', skipped: hint }];
   const root = process.cwd();
-  // Always a fresh production build: a dist/ that is up to date may still have been built under the
-  // e2e runner (NODE_ENV=test), i.e. with Vue's development build, slower and larger than what ships.
-  await build({ root, mode: 'production', logLevel: 'warn', configFile: path.join(root, 'vite.config.ts') });
+  await buildClientForBench(root);
   const server = await startServer({ LOG_LEVEL: 'warn' });
-  const browser = await launchChromium([...UNCAPPED_FRAMES, ...NO_BROWSER_UI_PAGES]);
+  const { browser, name: browserName } = await launchBenchBrowser(UNCAPPED_FRAMES);
   try {
     const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
 
@@ -207,6 +199,7 @@ export default async function (): Promise<BenchCase[]> {
         mainThreadCpuMedianMs: round(median(cpu) * 1000, 1),
         workbenchReadyMedianMs: round(median(readyAt), 1),
         loadAverage1m: round(loadavg()[0]!, 2),
+        browser: browserName,
         targetMs: TARGETS.firstRenderMs,
         meetsTarget: Math.max(...firstRenders) < TARGETS.firstRenderMs,
       },
@@ -220,6 +213,7 @@ export default async function (): Promise<BenchCase[]> {
         frameMaxMs: round(Math.max(...frames)),
         mainThreadCpuPerFrameMs: round(scrollCpuMs / frames.length),
         loadAverage1m: round(loadavg()[0]!, 2),
+        browser: browserName,
         targetP95Ms: TARGETS.frameP95Ms,
         meetsTarget: frameP95 < TARGETS.frameP95Ms,
         note: 'frame-rate cap off: an interval is the cost of a frame, not the display refresh',

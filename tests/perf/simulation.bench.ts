@@ -6,7 +6,8 @@
  *    the live view of a screenful of rungs (12 rungs: every element and every conductor), the
  *    panel's device views, the I/O table, and (as the trace redraws at 5 Hz, every 12th frame) a
  *    10 s trace window for 4 signals. 600 frames = 10 s of wall time.
- * 2. `simulation-workbench-*` (Debian's Chromium, the real server): the workbench itself, which is
+ * 2. `simulation-workbench-*` (Debian's Chromium headless shell, see `benchBrowser.ts`; the real
+ *    server; a fresh production build): the workbench itself, which is
  *    what issue 7 names — `/programs/:id` with the 200-rung program created through the API by a
  *    demo student, Run pressed in its simulation dock, S4 at RUN, S2 held until K1 closes — so the
  *    figures include everything a student has on screen (palette, canvas with the live layer,
@@ -29,8 +30,6 @@
  * Targets (issue 7): frame time p95 < 16 ms, main thread < 30 %.
  */
 import { mkdirSync } from 'node:fs';
-import path from 'node:path';
-import { build } from 'vite';
 import type { Page } from 'playwright-core';
 import { builtInPanel } from '@shared/field';
 import { layoutProgram } from '@/editor/layout';
@@ -41,10 +40,10 @@ import { createSimulatorSession } from '@/simulation/session';
 import { VIEW_EVERY } from '@/stores/simulation';
 import { wireEnergised, wireNets } from '@/simulation/wireNets';
 import { buildTimingData } from '@/components/trace/timingData';
-import { clientBuildIsStale } from '../../server/clientBuild';
 import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
-import { launchChromium, missingChromiumHint } from '../e2e/support/chromium';
+import { missingChromiumHint } from '../e2e/support/chromium';
 import { startServer } from '../e2e/support/server';
+import { buildClientForBench, launchBenchBrowser } from './benchBrowser';
 import type { BenchCase } from './run';
 import { percentile, round } from './stats';
 
@@ -200,14 +199,13 @@ async function workbenchCases(): Promise<BenchCase[]> {
   const names = (['60hz', 'uncapped'] as const).flatMap((cap) => (['real', 'fast'] as const).map((speed) => `simulation-workbench-200-rungs-10ms-${speed}-${cap}`));
   const hint = missingChromiumHint();
   if (hint) return names.map((name) => ({ case: name, skipped: hint }));
-  const root = process.cwd();
-  if (clientBuildIsStale(root)) await build({ root, logLevel: 'warn', configFile: path.join(root, 'vite.config.ts') });
+  await buildClientForBench();
   const server = await startServer({ LOG_LEVEL: 'warn' });
   const cases: BenchCase[] = [];
   mkdirSync('tests/e2e/screenshots', { recursive: true });
   try {
     for (const cap of ['60hz', 'uncapped'] as const) {
-      const browser = await launchChromium(cap === 'uncapped' ? UNCAPPED_FRAMES : []);
+      const { browser, name: browserName } = await launchBenchBrowser(cap === 'uncapped' ? UNCAPPED_FRAMES : []);
       try {
         const page = await browser.newPage({ viewport: { width: 1280, height: 720 } });
         const programId = await openWorkbenchProgram(page, server.url).catch((err: unknown) => {
@@ -230,6 +228,7 @@ async function workbenchCases(): Promise<BenchCase[]> {
               frameIntervalMaxMs: round(Math.max(...deltas)),
               meetsTarget: share < TARGET_SHARE,
               note: 'main-thread share at the real 60 Hz; frame cost is in the uncapped case',
+              browser: browserName,
               stillRunning,
             });
           } else {
@@ -243,6 +242,7 @@ async function workbenchCases(): Promise<BenchCase[]> {
               frameCostMaxMs: round(Math.max(...deltas)),
               meetsTarget: p95 < TARGET_P95_MS,
               note: 'frame-rate cap off: an interval is the cost of a frame, not the display refresh',
+              browser: browserName,
               stillRunning,
             });
           }

@@ -31,9 +31,11 @@ const LAUNCH_ARGS = [
   '--disable-sync',
 ];
 
-/** Launch Chromium with the flags above, plus `extraArgs` (e.g. a benchmark's uncapped frame rate). */
-export async function launchChromium(extraArgs: readonly string[] = []): Promise<Browser> {
-  const hint = missingChromiumHint();
-  if (hint) throw new Error(hint);
-  return chromium.launch({ executablePath: chromiumPath(), args: [...LAUNCH_ARGS, ...extraArgs] });
+/**
+ * Launch Chromium with the flags above, plus `extraArgs` (e.g. a benchmark's uncapped frame rate);
+ * `executablePath` names another Chromium build (the benchmarks' headless shell).
+ */
+export async function launchChromium(extraArgs: readonly string[] = [], executablePath = chromiumPath()): Promise<Browser> {
+  if (!existsSync(executablePath)) throw new Error(missingChromiumHint() ?? `Chromium not found at ${executablePath}`);
+  return chromium.launch({ executablePath, args: [...LAUNCH_ARGS, ...extraArgs] });
 }
