@@ -46,6 +46,11 @@ export interface GradeReport {
   events: ReportEvent[];
   /** Events not kept because the log reached its size limit. */
   eventsDropped: number;
+  /**
+   * The same, by the step that logged them (steps with none left out), so a student's report can
+   * count only the steps it shows. Absent from reports graded before it was recorded.
+   */
+  eventsDroppedBySteps?: { step: number; count: number }[];
   trace: TraceData;
   /** The program's compile diagnostics (errors make every check fail). */
   diagnostics: Diagnostic[];
@@ -72,7 +77,8 @@ export interface StudentReport extends Omit<GradeReport, 'checks'> {
  * The report for a student: hidden checks reduced to pass/fail with no label, expected, actual or
  * steps, and the events and trace rows of the steps that led to a hidden check removed, so the
  * log does not give away what a hidden check does. When the script has hidden checks, the run is
- * also cut at the last visible check: events and trace rows after it are removed, and `virtualMs`
+ * also cut at the last visible check: events and trace rows after it are removed (and events the
+ * log dropped are counted only for the steps shown), and `virtualMs`
  * and `scans` are the figures at that check, so the totals do not tell how long the hidden steps
  * run. A limit that stopped the run after that check is reported without its time.
  */
@@ -98,10 +104,14 @@ export function redactReport(report: GradeReport): StudentReport {
   const shown = (t: number): boolean => t <= cutMs && !hiddenWindows.some(([from, to]) => t > from && t <= to);
   // A limit hit after the cut would give its time away ("stopped at 12000 ms: …").
   const stoppedAfterCut = report.stoppedBy !== null && report.virtualMs > cutMs;
+  const stepShown = (step: number): boolean => step <= lastStep && !hiddenSteps.has(step);
+  const droppedShown = report.eventsDroppedBySteps?.filter((d) => stepShown(d.step));
   return {
     ...report,
     checks: report.checks.map((c) => (c.hidden ? { index: c.index, passed: c.passed, points: c.points, hidden: true as const } : c)),
-    events: report.events.filter((e) => e.step <= lastStep && !hiddenSteps.has(e.step)),
+    events: report.events.filter((e) => stepShown(e.step)),
+    // A report from before the per-step count has only the total, which is all it can give.
+    ...(droppedShown && { eventsDropped: droppedShown.reduce((sum, d) => sum + d.count, 0), eventsDroppedBySteps: droppedShown }),
     trace: { ...report.trace, rows: report.trace.rows.filter((row) => shown(row[0]!)) },
     stoppedBy: stoppedAfterCut ? 'a limit stopped the run during the hidden checks' : report.stoppedBy,
     virtualMs: Math.min(cutMs, report.virtualMs),

@@ -31,6 +31,8 @@ export interface RunChecksOptions {
   /** A script as JSON (checked here) or one already parsed. */
   script: CheckScript | unknown;
   limits?: Partial<CheckLimits>;
+  /** Events the field log keeps between two steps; a step that logs more loses its oldest (default 10 000). */
+  maxEvents?: number;
 }
 
 export type RunChecksResult = { ok: true; report: GradeReport } | { ok: false; errors: string[] };
@@ -85,7 +87,7 @@ export function runChecks(options: RunChecksOptions): RunChecksResult {
   if (fit.length > 0) return { ok: false, errors: fit };
   const limits: CheckLimits = { ...DEFAULT_LIMITS, ...options.limits };
 
-  const created = createSimulation({ program: options.program, panel: options.panel, scanMs: script.scanMs });
+  const created = createSimulation({ program: options.program, panel: options.panel, scanMs: script.scanMs, maxEvents: options.maxEvents });
   if (!created.ok) return { ok: true, report: unrunnable(script, options.panel, created.error, created.diagnostics) };
   return { ok: true, report: grade(created.simulation, script, limits, created.warnings) };
 }
@@ -125,6 +127,7 @@ function unrunnable(script: CheckScript, panel: PanelLayout, error: string, diag
     checks,
     events: [],
     eventsDropped: 0,
+    eventsDroppedBySteps: [],
     trace: { signals: [], rows: [], truncated: false },
     diagnostics,
     stoppedBy: null,
@@ -146,9 +149,13 @@ function traceOf(sim: Simulation): ChangeTrace {
 function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnings: GradeReport['diagnostics']): GradeReport {
   const trace = traceOf(sim);
   const events: ReportEvent[] = [];
+  const droppedBySteps: GradeReport['eventsDroppedBySteps'] = [];
   let seenSeq = 0;
   const collect = (step: number): void => {
-    for (const e of sim.eventsSince(seenSeq)) events.push({ ...e, step });
+    const fresh = sim.eventsSince(seenSeq);
+    const lost = sim.eventLog.total - seenSeq - fresh.length;
+    if (lost > 0) droppedBySteps.push({ step, count: lost });
+    for (const e of fresh) events.push({ ...e, step });
     seenSeq = sim.eventLog.total;
   };
   let stoppedBy: string | null = null;
@@ -219,6 +226,7 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
     checks,
     events,
     eventsDropped: Math.max(0, sim.eventLog.total - events.length),
+    eventsDroppedBySteps: droppedBySteps,
     trace: trace.data(),
     diagnostics: warnings,
     stoppedBy,

@@ -53,6 +53,21 @@ describe('redactReport past the last visible check', () => {
     expect(student.trace.rows.every((row) => row[0]! <= 800)).toBe(true);
   });
 
+  it('counts events the log dropped only in the steps a student is shown', () => {
+    // A log that keeps one event between two steps loses most of every busy step.
+    const graded = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: TRAILING_HIDDEN, maxEvents: 1 });
+    if (!graded.ok) throw new Error(graded.errors.join('\n'));
+    const bySteps = graded.report.eventsDroppedBySteps!;
+    expect(bySteps.reduce((sum, d) => sum + d.count, 0)).toBe(graded.report.eventsDropped);
+    const visible = bySteps.filter((d) => d.step <= 6).reduce((sum, d) => sum + d.count, 0);
+    expect(visible).toBeGreaterThan(0);
+    expect(bySteps.some((d) => d.step > 6)).toBe(true);
+    const shown = redactReport(graded.report);
+    expect(shown.eventsDropped).toBe(visible);
+    expect(shown.eventsDroppedBySteps!.every((d) => d.step <= 6)).toBe(true);
+    expect(full.eventsDroppedBySteps).toEqual([]);
+  });
+
   it('still counts the hidden checks in the score, as pass or fail only', () => {
     expect(student.score).toBe(full.score);
     expect(student.checks.slice(2)).toEqual([
