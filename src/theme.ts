@@ -41,7 +41,7 @@ export const DARK_PALETTE: Palette = {
   deEnergised: '#6b7487',
   forced: '#a78bfa',
   selection: '#2dd4bf',
-  error: '#ef5350',
+  error: '#f26b68',
   surface: '#232838',
   text: '#e6ebf5',
   mutedText: '#9aa3b5',

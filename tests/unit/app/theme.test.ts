@@ -66,4 +66,13 @@ describe('the state words of the I/O status table', () => {
   ])('read at ≥ 4.5:1 on the %s paper (WCAG 2.1 SC 1.4.3)', (_scheme, ink, paper) => {
     for (const colour of [ink.text, ink.mutedText, ink.on, ink.ok, ink.fault, ink.forced]) expect(contrastRatio(colour, paper)).toBeGreaterThanOrEqual(4.5);
   });
+
+  // The same ink names errors and warnings in the messages, inspector and tag table (App.vue's
+  // --rw-error / --rw-warning), which sit on the surface as well as on the paper.
+  it.each([
+    ['light', LIGHT_STATE_INK, LIGHT_PALETTE.surface],
+    ['dark', DARK_STATE_INK, DARK_PALETTE.surface],
+  ])('name errors and warnings at ≥ 4.5:1 on the %s surface too (WCAG 2.1 SC 1.4.3)', (_scheme, ink, surface) => {
+    for (const colour of [ink.fault, ink.on]) expect(contrastRatio(colour, surface)).toBeGreaterThanOrEqual(4.5);
+  });
 });
