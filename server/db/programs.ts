@@ -8,7 +8,7 @@
  */
 import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Db } from './client';
-import { programs, programVersions, type ProgramRow, type ProgramVersionRow } from './schema';
+import { labs, programs, programVersions, type ProgramRow, type ProgramVersionRow } from './schema';
 import { readThrough, rowCachesOf, versionKey } from './rowCache';
 import { appendVersionBatched } from './versionBatches';
 
@@ -58,8 +58,15 @@ export async function findProgram(db: Db, id: string): Promise<Program | null> {
   return readThrough(db, 'programs', id, load);
 }
 
-export async function listProgramsByOwner(db: Db, ownerId: string): Promise<Program[]> {
-  return db.select().from(programs).where(eq(programs.ownerId, ownerId)).orderBy(desc(programs.updatedAt), asc(programs.id));
+/** A user's programs, newest first, each with the title of the lab it was started for (null if none or deleted). */
+export async function listProgramsByOwner(db: Db, ownerId: string): Promise<(Program & { labTitle: string | null })[]> {
+  const rows = await db
+    .select({ program: programs, labTitle: labs.title })
+    .from(programs)
+    .leftJoin(labs, eq(labs.id, programs.labId))
+    .where(eq(programs.ownerId, ownerId))
+    .orderBy(desc(programs.updatedAt), asc(programs.id));
+  return rows.map((row) => ({ ...row.program, labTitle: row.labTitle }));
 }
 
 export async function renameProgram(db: Db, id: string, title: string, now: Date): Promise<Program | null> {

@@ -3,7 +3,7 @@
  * loaded; if the head moved on, the save is refused with the current head (409), never merged or
  * overwritten. Access is decided by `programPolicy` before anything is read or written.
  */
-import type { CreateProgramRequest, DiffResponse, ProgramDetail, ProgramSummary, RestoreVersionRequest, SaveVersionRequest, VersionDetail, VersionSummary } from '@shared/api';
+import type { CreateProgramRequest, DiffResponse, ProgramDetail, ProgramListItem, ProgramSummary, RestoreVersionRequest, SaveVersionRequest, VersionDetail, VersionSummary } from '@shared/api';
 import type { Program as ProgramDocument } from '@shared/ladder/schema';
 import { createEmptyProgram } from '@shared/ladder';
 import type { AppContext } from '../context';
@@ -22,11 +22,11 @@ async function authorised(ctx: AppContext, actor: User, programId: string, actio
   return refusal(await programAccess(ctx.orm, actor, program.ownerId, action), 'program') ?? success(program);
 }
 
-export async function listPrograms(ctx: AppContext, actor: User, ownerId: string | undefined): Promise<Outcome<ProgramSummary[]>> {
+export async function listPrograms(ctx: AppContext, actor: User, ownerId: string | undefined): Promise<Outcome<ProgramListItem[]>> {
   const owner = ownerId ?? actor.id;
   const denied = refusal(await programAccess(ctx.orm, actor, owner, 'read'), 'user');
   if (denied) return denied;
-  return success((await db.listProgramsByOwner(ctx.orm, owner)).map(programView));
+  return success((await db.listProgramsByOwner(ctx.orm, owner)).map((p) => ({ ...programView(p), labTitle: p.labTitle })));
 }
 
 export async function createProgram(ctx: AppContext, actor: User, req: CreateProgramRequest, demo = false): Promise<Outcome<ProgramDetail>> {

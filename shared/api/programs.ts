@@ -30,7 +30,11 @@ export type VersionDetail = z.infer<typeof VersionDetailSchema>;
 export const ProgramDetailSchema = z.object({ program: ProgramSummarySchema, head: VersionDetailSchema });
 export type ProgramDetail = z.infer<typeof ProgramDetailSchema>;
 
-export const ProgramListSchema = z.object({ programs: z.array(ProgramSummarySchema) });
+/** A row of "My programs": the summary and, for a lab's program, the lab's title (to name and link it). */
+export const ProgramListItemSchema = ProgramSummarySchema.extend({ labTitle: z.string().nullable() });
+export type ProgramListItem = z.infer<typeof ProgramListItemSchema>;
+
+export const ProgramListSchema = z.object({ programs: z.array(ProgramListItemSchema) });
 export const VersionListSchema = z.object({ versions: z.array(VersionSummarySchema) });
 
 export const ProgramTitleSchema = z.string().trim().min(1, 'a title is needed').max(200, 'a title is at most 200 characters');

@@ -106,6 +106,10 @@ describe('the student side', () => {
     expect(second.body.program.id).toBe(first.body.program.id);
     expect(first.body.program.labId).toBe(labId);
     expect(first.body.head.document).toEqual(FORWARD_REVERSE.solution);
+    // "My programs" names the lab the copy belongs to.
+    const list = await call(t, 'get', '/api/programs', cast.studentA.cookie);
+    const row = list.body.programs.find((p: { id: string }) => p.id === first.body.program.id);
+    expect(row).toMatchObject({ labId, labTitle: 'Forward and reverse (test)' });
   });
 
   it('gives a self-check script with the visible checks only, and nothing of the hidden ones', async () => {
