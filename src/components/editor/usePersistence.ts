@@ -4,8 +4,9 @@
  * theirs, or keep mine as a new version on top of theirs).
  */
 import { ref, shallowRef } from 'vue';
-import type { VersionSummary } from '@shared/api';
-import { VersionConflictDetailsSchema } from '@shared/api';
+// From the schemas' own file, not the `@shared/api` index, which would build every API schema
+// (the labs' too) before the workbench's first paint; see `src/api/client.ts`.
+import { VersionConflictDetailsSchema, type VersionSummary } from '@shared/api/programs';
 import { parseProgram } from '@shared/ladder/restore';
 import type { Program } from '@shared/ladder/schema';
 import { api } from '@/api/instance';
