@@ -17,7 +17,7 @@ const IdSchema = z.uuid();
 /** Parses a route's `:id`-style parameter; anything that is not a uuid cannot exist (404). */
 export function parseId(value: unknown, what: string): Outcome<string> {
   const parsed = IdSchema.safeParse(value);
-  return parsed.success ? success(parsed.data) : failure('not_found', `No ${what} with that id`);
+  return parsed.success ? success(parsed.data) : failure('not_found', `This ${what} does not exist or is not open to you`);
 }
 
 /** Sends the value with `status` (204 sends no body), or the failure. */

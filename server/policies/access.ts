@@ -9,6 +9,6 @@ export type Access = 'allowed' | 'hidden' | 'forbidden';
 /** The failure for a refused access, or null when allowed. */
 export function refusal(access: Access, what: string): { ok: false; failure: Failure } | null {
   if (access === 'allowed') return null;
-  if (access === 'hidden') return failure('not_found', `No ${what} with that id`);
+  if (access === 'hidden') return failure('not_found', `This ${what} does not exist or is not open to you`);
   return failure('forbidden', `You may look at this ${what} but not change it`);
 }

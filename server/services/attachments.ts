@@ -52,11 +52,11 @@ export async function getAttachment(ctx: AppContext, actor: User, labId: string,
   const found = await authorisedLab(ctx, actor, labId, 'view');
   if (!found.ok) return found;
   const row = await db.findAttachment(ctx.orm, labId, id);
-  return row ? success(row) : failure('not_found', 'No attachment with that id');
+  return row ? success(row) : failure('not_found', 'This attachment does not exist or is not open to you');
 }
 
 export async function removeAttachment(ctx: AppContext, actor: User, labId: string, id: string): Promise<Outcome<null>> {
   const found = await authorisedLab(ctx, actor, labId, 'manage');
   if (!found.ok) return found;
-  return (await db.deleteAttachment(ctx.orm, labId, id)) ? success(null) : failure('not_found', 'No attachment with that id');
+  return (await db.deleteAttachment(ctx.orm, labId, id)) ? success(null) : failure('not_found', 'This attachment does not exist or is not open to you');
 }

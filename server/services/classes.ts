@@ -13,7 +13,7 @@ import { classView, iso } from './views';
 /** A class the actor may act on, or the failure to answer. */
 export async function authorisedClass(ctx: AppContext, actor: User, classId: string, action: ClassAction): Promise<Outcome<db.ClassRecord>> {
   const cls = await db.findClass(ctx.orm, classId);
-  if (!cls) return failure('not_found', 'No class with that id');
+  if (!cls) return failure('not_found', 'This class does not exist or is not open to you');
   return refusal(await classAccess(ctx.orm, actor, cls, action), 'class') ?? success(cls);
 }
 

@@ -29,7 +29,7 @@ export const DEFAULT_PANEL: LabPanel = { kind: 'builtIn', id: DEFAULT_PANEL_ID }
 /** A lab with its class, if the actor may act on it. */
 export async function authorisedLab(ctx: AppContext, actor: User, labId: string, action: LabAction): Promise<Outcome<{ lab: db.LabRecord; cls: ClassRecord }>> {
   const found = await db.findLabInContext(ctx.orm, labId, actor.id);
-  if (!found) return failure('not_found', 'No lab with that id');
+  if (!found) return failure('not_found', 'This lab does not exist or is not open to you');
   const { lab, cls } = found;
   return refusal(labAccess(actor, lab, cls, found.enrolled, action), 'lab') ?? success({ lab, cls });
 }
@@ -110,7 +110,7 @@ export async function updateLab(ctx: AppContext, actor: User, labId: string, req
   if (req.dueAt !== undefined) changes.dueAt = req.dueAt ? new Date(req.dueAt) : null;
   if (req.latePolicy !== undefined) changes.latePolicy = req.latePolicy;
   const updated = await db.updateLab(ctx.orm, labId, changes);
-  return updated ? success(await viewLab(ctx, updated, true)) : failure('not_found', 'No lab with that id');
+  return updated ? success(await viewLab(ctx, updated, true)) : failure('not_found', 'This lab does not exist or is not open to you');
 }
 
 export async function getLab(ctx: AppContext, actor: User, labId: string): Promise<Outcome<LabDetail>> {
@@ -134,7 +134,7 @@ export async function setPublished(ctx: AppContext, actor: User, labId: string, 
   const { lab, cls } = found.value;
   const wasPublished = lab.publishedAt !== null;
   const updated = await db.updateLab(ctx.orm, labId, { publishedAt: published ? (lab.publishedAt ?? ctx.clock.now()) : null, updatedAt: ctx.clock.now() });
-  if (!updated) return failure('not_found', 'No lab with that id');
+  if (!updated) return failure('not_found', 'This lab does not exist or is not open to you');
   if (published && !wasPublished) await announce(ctx, updated, cls);
   return success(await viewLab(ctx, updated, true));
 }

@@ -18,7 +18,7 @@ import { programView, versionDetailView, versionView } from './views';
 /** Loads a program the actor may act on, or the failure to answer (404 hides, 403 refuses). */
 async function authorised(ctx: AppContext, actor: User, programId: string, action: ProgramAction): Promise<Outcome<db.Program>> {
   const program = await db.findProgram(ctx.orm, programId);
-  if (!program) return failure('not_found', 'No program with that id');
+  if (!program) return failure('not_found', 'This program does not exist or is not open to you');
   return refusal(await programAccess(ctx.orm, actor, program.ownerId, action), 'program') ?? success(program);
 }
 
@@ -57,7 +57,7 @@ export async function renameProgram(ctx: AppContext, actor: User, programId: str
   const found = await authorised(ctx, actor, programId, 'write');
   if (!found.ok) return found;
   const renamed = await db.renameProgram(ctx.orm, programId, title, ctx.clock.now());
-  return renamed ? success(programView(renamed)) : failure('not_found', 'No program with that id');
+  return renamed ? success(programView(renamed)) : failure('not_found', 'This program does not exist or is not open to you');
 }
 
 export async function deleteProgram(ctx: AppContext, actor: User, programId: string): Promise<Outcome<null>> {
@@ -72,7 +72,7 @@ async function append(ctx: AppContext, actor: User, programId: string, baseVersi
   if (!checked.ok) return checked;
   const result = await db.appendVersion(ctx.orm, { programId, baseVersion, document: checked.value, message, authorId: actor.id, now: ctx.clock.now() });
   if (result.ok) return success(versionDetailView(result.version));
-  if (!result.head) return failure('not_found', 'No program with that id');
+  if (!result.head) return failure('not_found', 'This program does not exist or is not open to you');
   return failure('version_conflict', `Version ${result.head.number} was saved after version ${baseVersion}; load it and apply your change again`, {
     details: { head: versionView(result.head) },
   });

@@ -126,7 +126,7 @@ async function authorisedSubmission(ctx: AppContext, actor: User, id: string, ac
   const s = await db.findSubmission(ctx.orm, id);
   const lab = s ? await findLab(ctx.orm, s.labId) : null;
   const cls = lab ? await findClass(ctx.orm, lab.classId) : null;
-  if (!s || !lab || !cls) return failure('not_found', 'No submission with that id');
+  if (!s || !lab || !cls) return failure('not_found', 'This submission does not exist or is not open to you');
   return refusal(submissionAccess(actor, s, cls, action), 'submission') ?? success({ s, lab, cls });
 }
 
@@ -165,14 +165,14 @@ export async function overrideScore(ctx: AppContext, actor: User, id: string, re
   }
   const score = req.score === null ? null : round2(req.score);
   const updated = await db.updateSubmission(ctx.orm, id, { overrideScore: score, overrideReason: req.reason, score: score ?? s.autoScore });
-  return updated ? success(await detail(ctx, updated, lab)) : failure('not_found', 'No submission with that id');
+  return updated ? success(await detail(ctx, updated, lab)) : failure('not_found', 'This submission does not exist or is not open to you');
 }
 
 export async function setFeedback(ctx: AppContext, actor: User, id: string, feedback: string): Promise<Outcome<SubmissionDetail>> {
   const found = await authorisedSubmission(ctx, actor, id, 'grade');
   if (!found.ok) return found;
   const updated = await db.updateSubmission(ctx.orm, id, { feedback });
-  return updated ? success(await detail(ctx, updated, found.value.lab)) : failure('not_found', 'No submission with that id');
+  return updated ? success(await detail(ctx, updated, found.value.lab)) : failure('not_found', 'This submission does not exist or is not open to you');
 }
 
 /** Returns the submission to its student (status `returned`) and e-mails them. */
@@ -182,7 +182,7 @@ export async function returnSubmission(ctx: AppContext, actor: User, id: string,
   const { s, lab } = found.value;
   if (s.status === 'submitted') return failure('conflict', 'This submission is not graded yet; regrade the lab first');
   const updated = await db.updateSubmission(ctx.orm, id, { status: 'returned', returnedAt: ctx.clock.now(), ...(feedback !== undefined ? { feedback } : {}) });
-  if (!updated) return failure('not_found', 'No submission with that id');
+  if (!updated) return failure('not_found', 'This submission does not exist or is not open to you');
   const student = await findUserById(ctx.orm, s.studentId);
   if (student) {
     const mail = submissionReturnedMail({ to: student.email, baseUrl: publicUrl(ctx.config), labTitle: lab.title, labId: lab.id, finalScore: updated.score, totalPoints: lab.totalPoints, feedback: updated.feedback });
