@@ -26,6 +26,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { public: true, title: 'Reset password' },
   },
   {
+    path: '/accept-invitation',
+    name: 'accept-invitation',
+    component: () => import('../views/AcceptInvitationView.vue'),
+    meta: { public: true, title: 'Accept invitation' },
+  },
+  {
     path: '/programs',
     name: 'programs',
     component: () => import('../views/ProgramsView.vue'),
@@ -57,6 +63,13 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('../views/GradebookView.vue'),
     props: true,
     meta: { roles: ['instructor', 'admin'], title: 'Gradebook' },
+  },
+  {
+    path: '/classes/:classId/students',
+    name: 'class-students',
+    component: () => import('../views/ClassRosterView.vue'),
+    props: true,
+    meta: { roles: ['instructor', 'admin'], title: 'Students' },
   },
   {
     path: '/labs/:labId',
