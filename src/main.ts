@@ -15,6 +15,7 @@ import { router } from './router';
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
 import { VueQueryPlugin } from '@tanstack/vue-query';
+import { createAppQueryClient } from './api/queryClient';
 import App from './App.vue';
 
-createApp(App).use(createPinia()).use(router).use(VueQueryPlugin).mount('#app');
+createApp(App).use(createPinia()).use(router).use(VueQueryPlugin, { queryClient: createAppQueryClient() }).mount('#app');
