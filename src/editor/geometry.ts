@@ -37,8 +37,12 @@ export const GUTTER_W = 52;
 export const LEFT_RAIL_X = GUTTER_W + 8;
 export const RAIL_W = 4;
 export const LEAD_W = 18;
-/** The right rail never comes closer to the left one than this. */
-export const MIN_RUNG_W = 720;
+/**
+ * The right rail never comes closer to the left one than this: room for six cells, so a common
+ * rung (a start/stop with its seal-in, an interlocked direction) ends at the same rail, while the
+ * whole drawing (about 730 px) still fits the canvas beside the palette and dock at 1280 px.
+ */
+export const MIN_RUNG_W = 640;
 export const RUNG_PAD_TOP = 10;
 export const RUNG_PAD_BOTTOM = 12;
 export const RUNG_COMMENT_H = 22;
