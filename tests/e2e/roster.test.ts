@@ -230,4 +230,49 @@ describe('class rosters and invitations in a real browser', () => {
     expect(problems).toEqual([]);
     await context.close();
   }, 120_000);
+  it('names a roster without its header line, and sends someone who got an account meanwhile to sign in', async () => {
+    const problems: string[] = [];
+    const context = await browser.newContext({ viewport: VIEWPORT });
+    const teacher = await signIn(context, DEMO_INSTRUCTOR);
+    watch(teacher, 'instructor', problems, [/\/roster 400/]);
+    await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await teacher.getByRole('row', { name: DEMO_CLASS.name }).getByRole('link', { name: /students: open the roster$/ }).click();
+    await teacher.waitForURL(/\/students$/);
+
+    await teacher.setInputFiles('input[aria-label="Roster CSV file"]', { name: 'no-header.csv', mimeType: 'text/csv', buffer: Buffer.from('kai.ortiz@larch-hollow.example,Kai Ortiz\n') });
+    await expect.poll(() => teacher.getByRole('alert').innerText()).toMatch(/^no-header\.csv: The roster needs a header line "email,name"/);
+    expect(await teacher.getByTestId('roster-report').count()).toBe(0);
+
+    const kai = { email: 'kai.ortiz@larch-hollow.example', name: 'Kai Ortiz', password: 'sawmill-shift-7' };
+    await teacher.setInputFiles('input[aria-label="Roster CSV file"]', { name: 'kai.csv', mimeType: 'text/csv', buffer: Buffer.from(`email,name\n${kai.email},${kai.name}\n`) });
+    await expect.poll(() => teacher.getByTestId('roster-invited').innerText()).toMatch(/^Invited 1/);
+
+    // Kai signs up with the join code before opening the invitation.
+    const visitor = await browser.newContext({ viewport: VIEWPORT });
+    const page = await visitor.newPage();
+    watch(page, 'kai', problems, [/^GET \/api\/me 401/, /invitations\/accept 409/]);
+    await page.goto(`${server.url}/join`, { waitUntil: 'networkidle' });
+    await page.getByLabel('Join code').fill(DEMO_CLASS.joinCode);
+    await page.getByLabel('Your name').fill(kai.name);
+    await page.getByLabel('E-mail').fill(kai.email);
+    await page.getByLabel('Password').fill(kai.password);
+    await page.getByRole('button', { name: 'Create my account' }).click();
+    await page.waitForURL(/\/programs$/);
+    // Leave the signed-in page first: signed out under it, its reads would answer 401.
+    await page.goto('about:blank');
+    await visitor.clearCookies();
+
+    const adminContext = await browser.newContext();
+    const admin = await signIn(adminContext, DEMO_ADMIN);
+    await expect.poll(async () => (await mailTo(admin, kai.email)).length, { timeout: 10_000 }).toBe(1);
+    await page.goto(invitationLink((await mailTo(admin, kai.email))[0]!), { waitUntil: 'networkidle' });
+    await page.getByLabel('Password').fill(kai.password);
+    await page.getByRole('button', { name: 'Set my password and sign in' }).click();
+    await expect.poll(() => page.getByRole('alert').innerText()).toBe('An account with this e-mail exists already; sign in instead.');
+    await page.getByRole('link', { name: 'Sign in', exact: true }).waitFor();
+    await shoot(page, 'accept-invitation-has-account-light.png');
+
+    expect(problems).toEqual([]);
+    await Promise.all([context.close(), visitor.close(), adminContext.close()]);
+  }, 120_000);
 });
