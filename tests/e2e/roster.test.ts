@@ -150,6 +150,7 @@ describe('class rosters and invitations in a real browser', () => {
     const me = await newcomer.evaluate(async () => (await (await fetch('/api/me')).json()) as { user: { email: string; name: string; role: string } });
     expect(me.user).toMatchObject({ email: NEWCOMER.email, name: NEWCOMER.name, role: 'student' });
     await expect.poll(() => newcomer.locator('h1').innerText()).toContain(DEMO_CLASS.name);
+    expect(await newcomer.getByRole('link', { name: 'Students' }).count()).toBe(0);
 
     // The link works once: opening it again says so and offers a way forward.
     await newcomer.goto(link, { waitUntil: 'networkidle' });
@@ -190,6 +191,7 @@ describe('class rosters and invitations in a real browser', () => {
 
     // ── The labs page links to the roster for staff only. ──
     await teacher.goto(`${server.url}/classes/${classId}/labs`, { waitUntil: 'networkidle' });
+    await shoot(teacher, 'class-labs-staff-light.png');
     await teacher.getByRole('link', { name: 'Students' }).click();
     await teacher.waitForURL(new RegExp(`/classes/${classId}/students$`));
 
