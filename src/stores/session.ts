@@ -43,6 +43,12 @@ export const useSessionStore = defineStore('session', () => {
     return user.value;
   }
 
+  /** Another call signed this user in (accepting an invitation answers with the new user). */
+  function signedInAs(signedIn: UserView): void {
+    user.value = signedIn;
+    checked.value = true;
+  }
+
   async function signOut(): Promise<void> {
     try {
       await api.signOut();
@@ -57,5 +63,5 @@ export const useSessionStore = defineStore('session', () => {
     checked.value = true;
   }
 
-  return { user, checked, signedIn, refresh, ensure, signIn, signUp, signOut, expire };
+  return { user, checked, signedIn, refresh, ensure, signIn, signUp, signedInAs, signOut, expire };
 });
