@@ -1,26 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { mkdirSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import type { NetworkNode, Program, Rung } from '@shared/ladder/schema';
 import { layoutProgram } from '@/editor/layout';
 import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
-import { launchChromium } from './support/chromium';
-import { startServer, type RunningServer } from './support/server';
+import { SHOTS, useBrowserSuite } from './support/browserSuite';
 
-let server: RunningServer;
-let browser: Browser;
-const SHOTS = 'tests/e2e/screenshots';
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchChromium();
-  mkdirSync(SHOTS, { recursive: true });
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const suite = useBrowserSuite();
 
 /** A document of the same shape as the one on screen: the test finds slots with the same layout function. */
 const c = (id: string): NetworkNode => ({ kind: 'contact', id, variant: 'no', operand: 'x' });
@@ -69,12 +54,12 @@ async function setOperand(page: Page, value: string) {
 
 describe('the rung editor in a real browser', () => {
   it('draws a start/stop rung by mouse and a second rung by keyboard, validates, undoes, saves and reloads it', async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    const page = await suite.browser.newPage({ viewport: { width: 1440, height: 900 } });
     const problems: string[] = [];
     page.on('pageerror', (error) => problems.push(error.message));
     const student = DEMO_STUDENTS[0]!;
 
-    await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/sign-in`, { waitUntil: 'networkidle' });
     await page.getByLabel('E-mail').fill(student.email);
     await page.getByLabel('Password').fill(student.password);
     await page.getByRole('button', { name: 'Sign in' }).click();

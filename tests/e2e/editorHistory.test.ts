@@ -6,29 +6,15 @@
  * the password reset through the local fake mailbox, and the session-expiry round trip.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdirSync, readFileSync } from 'node:fs';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { readFileSync } from 'node:fs';
+import type { BrowserContext, Page } from 'playwright-core';
 import type { Program } from '@shared/ladder/schema';
 import { DEMO_ADMIN, DEMO_CLASS, DEMO_STUDENTS, type DemoAccount } from '../../server/db/demoAccounts';
-import { launchChromium } from './support/chromium';
-import { startServer, type RunningServer } from './support/server';
+import { SHOTS, useBrowserSuite } from './support/browserSuite';
 
-let server: RunningServer;
-let browser: Browser;
-const SHOTS = 'tests/e2e/screenshots';
+const suite = useBrowserSuite();
 /** The eight bytes every PNG file starts with (PNG specification, ISO/IEC 15948, 5.2). */
 const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchChromium();
-  mkdirSync(SHOTS, { recursive: true });
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
 
 /** The demo three-wire start/stop rung (demo data): S1 AND (S2 OR K1) -> K1. */
 function startStop(title: string): Program {
@@ -67,9 +53,9 @@ async function signIn(page: Page, account: DemoAccount, password = account.passw
 }
 
 async function signedInContext(account: DemoAccount): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
+  const context = await suite.browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
   const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
+  await page.goto(`${suite.server.url}/sign-in`, { waitUntil: 'networkidle' });
   await signIn(page, account);
   await page.waitForURL(/\/programs$/);
   return { context, page };
@@ -89,7 +75,7 @@ async function head(page: Page, id: string): Promise<{ number: number; document:
 }
 
 async function openWorkbench(page: Page, id: string): Promise<void> {
-  await page.goto(`${server.url}/programs/${id}`, { waitUntil: 'networkidle' });
+  await page.goto(`${suite.server.url}/programs/${id}`, { waitUntil: 'networkidle' });
   await page.getByTestId('rung-canvas').waitFor();
   await expect.poll(() => page.getByTestId('save-status').innerText()).toMatch(/Saved · version \d+/);
 }
@@ -227,7 +213,7 @@ describe('workbench paths in a real browser', () => {
   it('draws the workbench in the dark theme with the rungs on a dark paper', async () => {
     const dark = await context.newPage();
     await dark.emulateMedia({ colorScheme: 'dark' });
-    await dark.goto(`${server.url}/programs`, { waitUntil: 'networkidle' });
+    await dark.goto(`${suite.server.url}/programs`, { waitUntil: 'networkidle' });
     await dark.evaluate(() => localStorage.removeItem('rungwright.colorScheme'));
     await openWorkbench(dark, programId);
     await dark.getByRole('button', { name: /^Show text form of rungs/ }).click();
@@ -244,7 +230,7 @@ describe('workbench paths in a real browser', () => {
   });
 
   it('exports a program as PLCopen XML on My programs and imports the file back', async () => {
-    await page.goto(`${server.url}/programs`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/programs`, { waitUntil: 'networkidle' });
     const exported = await head(page, programId);
     const row = page.locator('tr', { hasText: 'Conveyor history (e2e demo)' });
     expect(await row.locator('td').nth(3).innerText()).toBe(String(exported.number));
@@ -278,9 +264,9 @@ describe('accounts in a real browser', () => {
   const newStudent = { email: 'sam.okafor@larch-hollow.example', name: 'Sam Okafor (demo student)', password: 'demo-first-password' };
 
   it('signs up with the demo join code, then resets the password through the local mailbox', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 860 } });
+    const context = await suite.browser.newContext({ viewport: { width: 1280, height: 860 } });
     const page = await context.newPage();
-    await page.goto(`${server.url}/join`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/join`, { waitUntil: 'networkidle' });
     await page.getByLabel('Join code').fill(DEMO_CLASS.joinCode);
     await page.getByLabel('Your name').fill(newStudent.name);
     await page.getByLabel('E-mail').fill(newStudent.email);
@@ -293,7 +279,7 @@ describe('accounts in a real browser', () => {
     await page.waitForURL(/\/programs$/);
     await context.clearCookies();
 
-    await page.goto(`${server.url}/reset-password`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/reset-password`, { waitUntil: 'networkidle' });
     await page.getByLabel('E-mail').fill(newStudent.email);
     await page.getByRole('button', { name: 'Send me a reset link' }).click();
     await page.locator('.n-alert').first().waitFor();
@@ -312,7 +298,7 @@ describe('accounts in a real browser', () => {
     await page.getByText('Your password is changed.').waitFor();
     await page.screenshot({ path: `${SHOTS}/reset-password-done.png` });
 
-    await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/sign-in`, { waitUntil: 'networkidle' });
     await signIn(page, { ...DEMO_STUDENTS[0]!, email: newStudent.email }, newStudent.password);
     await page.getByRole('alert').first().waitFor();
     await signIn(page, { ...DEMO_STUDENTS[0]!, email: newStudent.email }, 'demo-second-password');

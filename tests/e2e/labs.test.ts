@@ -1,41 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { mkdirSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
 import type { NetworkNode, Program } from '@shared/ladder/schema';
 import { THREE_WIRE } from '@shared/labs';
 import type { SentMailEntry } from '@shared/api/mail';
 import { layoutProgram } from '@/editor/layout';
 import { DEMO_ADMIN, DEMO_CLASS, DEMO_INSTRUCTOR, DEMO_STUDENTS } from '../../server/db/demoAccounts';
-import { launchChromium } from './support/chromium';
-import { startServer, type RunningServer } from './support/server';
+import { SHOTS, useBrowserSuite } from './support/browserSuite';
+import { signInThroughPage } from './support/signIn';
 
-let server: RunningServer;
-let browser: Browser;
-const SHOTS = 'tests/e2e/screenshots';
+const suite = useBrowserSuite();
 // Wide enough for the brief, the whole default rung width (about 800 px at zoom 1) and the panel side by side.
 const VIEWPORT = { width: 1800, height: 1000 };
 const failedCalls: string[] = [];
 /** A valid 1 × 1 PNG (8-byte signature, IHDR, IDAT, IEND). */
 const TINY_PNG = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==';
 
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchChromium();
-  mkdirSync(SHOTS, { recursive: true });
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
-
 async function signIn(context: BrowserContext, account: { email: string; password: string }): Promise<Page> {
-  const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
-  await page.getByLabel('E-mail').fill(account.email);
-  await page.getByLabel('Password').fill(account.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/programs$/);
+  const page = await signInThroughPage(context, suite.server.url, account);
   // Any refused API call is a finding of this test: keep the route and the server's message.
   page.on('response', async (response) => {
     if (response.url().includes('/api/') && response.status() >= 400) failedCalls.push(`${response.request().method()} ${response.url()} ${response.status()} ${await response.text().catch(() => '')}`);
@@ -96,13 +77,13 @@ async function typeRung(page: Page, contactKey: string, operand: string, coilOpe
 describe('labs in a real browser', () => {
   it('runs the loop: publish from a template, fix and self-check, submit, grade, override, return, and mail the student', async () => {
     const problems: string[] = [];
-    const instructorContext = await browser.newContext({ viewport: VIEWPORT });
-    const studentContext = await browser.newContext({ viewport: VIEWPORT });
+    const instructorContext = await suite.browser.newContext({ viewport: VIEWPORT });
+    const studentContext = await suite.browser.newContext({ viewport: VIEWPORT });
 
     // ── The instructor copies the three-wire lab into the demo class and publishes it. ──
     const teacher = await signIn(instructorContext, DEMO_INSTRUCTOR);
     teacher.on('pageerror', (e) => problems.push(`instructor: ${e.message}`));
-    await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await teacher.goto(`${suite.server.url}/classes`, { waitUntil: 'networkidle' });
     await teacher.getByRole('link', { name: DEMO_CLASS.name }).click();
     await teacher.waitForURL(/\/classes\/[^/]+\/labs$/);
     const classId = teacher.url().split('/').slice(-2)[0]!;
@@ -167,7 +148,7 @@ describe('labs in a real browser', () => {
     // ── A student opens it, self-checks the starter, is shown the failing moment, fixes it. ──
     const student = await signIn(studentContext, DEMO_STUDENTS[0]!);
     student.on('pageerror', (e) => problems.push(`student: ${e.message}`));
-    await student.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await student.goto(`${suite.server.url}/classes`, { waitUntil: 'networkidle' });
     await student.getByRole('link', { name: DEMO_CLASS.name }).click();
     await student.waitForURL(/\/classes\/[^/]+\/labs$/);
     await student.locator(`a[href="/labs/${labId}"]`).click();
@@ -247,7 +228,7 @@ describe('labs in a real browser', () => {
     await student.screenshot({ path: `${SHOTS}/lab-student-graded.png` });
 
     // ── The instructor reviews it in the table, overrides with a reason and returns it with feedback. ──
-    await teacher.goto(`${server.url}/labs/${labId}/submissions`, { waitUntil: 'networkidle' });
+    await teacher.goto(`${suite.server.url}/labs/${labId}/submissions`, { waitUntil: 'networkidle' });
     const row = teacher.getByTestId('submissions-table').locator('tr', { hasText: 'Ana Reyes' });
     await expect.poll(() => row.innerText()).toMatch(/11 \/ 11/);
     await teacher.screenshot({ path: `${SHOTS}/lab-submissions.png` });
@@ -265,7 +246,7 @@ describe('labs in a real browser', () => {
     await expect.poll(() => teacher.getByTestId('review-status').innerText()).toBe('returned');
     await teacher.screenshot({ path: `${SHOTS}/lab-review.png`, fullPage: true });
 
-    await teacher.goto(`${server.url}/classes/${classId}/labs`, { waitUntil: 'networkidle' });
+    await teacher.goto(`${suite.server.url}/classes/${classId}/labs`, { waitUntil: 'networkidle' });
     await teacher.getByRole('link', { name: 'Gradebook' }).click();
     await teacher.waitForURL(new RegExp(`/classes/${classId}/gradebook$`));
     await expect.poll(() => teacher.getByTestId('gradebook').innerText()).toMatch(/Ana Reyes[\s\S]*10/);
@@ -279,7 +260,7 @@ describe('labs in a real browser', () => {
     await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 10 \/ 11/);
     await student.screenshot({ path: `${SHOTS}/lab-student-returned.png` });
 
-    const adminContext = await browser.newContext();
+    const adminContext = await suite.browser.newContext();
     const admin = await signIn(adminContext, DEMO_ADMIN);
     await expect
       .poll(

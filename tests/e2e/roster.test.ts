@@ -3,31 +3,17 @@
  * class, the invited person accepts from the e-mailed link and lands in the class, the instructor
  * removes them again; the admin invites an instructor. Mail is read from the local fake mailbox.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { mkdirSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
 import type { SentMailEntry } from '@shared/api/mail';
 import { DEMO_ADMIN, DEMO_CLASS, DEMO_INSTRUCTOR } from '../../server/db/demoAccounts';
-import { launchChromium } from './support/chromium';
-import { startServer, type RunningServer } from './support/server';
+import { SHOTS, useBrowserSuite } from './support/browserSuite';
+import { signInThroughPage } from './support/signIn';
 
-let server: RunningServer;
-let browser: Browser;
-const SHOTS = 'tests/e2e/screenshots';
+const suite = useBrowserSuite();
 const VIEWPORT = { width: 1280, height: 800 };
 const NEWCOMER = { email: 'lee.moss@larch-hollow.example', name: 'Lee Moss', password: 'conveyor-belt-42' };
 const ROSTER_CSV = `email,name\n${NEWCOMER.email},${NEWCOMER.name}\nnot-an-address,Rowan Pike\n`;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchChromium();
-  mkdirSync(SHOTS, { recursive: true });
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
 
 /** Every refused API call and page error, except the ones a step expects. */
 function watch(page: Page, who: string, problems: string[], expected: RegExp[] = []): void {
@@ -40,15 +26,7 @@ function watch(page: Page, who: string, problems: string[], expected: RegExp[] =
   });
 }
 
-async function signIn(context: BrowserContext, account: { email: string; password: string }): Promise<Page> {
-  const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
-  await page.getByLabel('E-mail').fill(account.email);
-  await page.getByLabel('Password').fill(account.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/programs$/);
-  return page;
-}
+const signIn = (context: BrowserContext, account: { email: string; password: string }): Promise<Page> => signInThroughPage(context, suite.server.url, account);
 
 /** Waits for running CSS transitions and animations (naive-ui fades colours, dialogs and field messages in). */
 async function settle(page: Page): Promise<void> {
@@ -88,15 +66,15 @@ function invitationLink(mail: SentMailEntry): string {
 describe('class rosters and invitations in a real browser', () => {
   it('uploads a roster, the invited student accepts and lands in the class, and the instructor removes them', async () => {
     const problems: string[] = [];
-    const teacherContext = await browser.newContext({ viewport: VIEWPORT });
-    const adminContext = await browser.newContext({ viewport: VIEWPORT });
-    const newcomerContext = await browser.newContext({ viewport: VIEWPORT });
-    const darkContext = await browser.newContext({ viewport: VIEWPORT, colorScheme: 'dark' });
+    const teacherContext = await suite.browser.newContext({ viewport: VIEWPORT });
+    const adminContext = await suite.browser.newContext({ viewport: VIEWPORT });
+    const newcomerContext = await suite.browser.newContext({ viewport: VIEWPORT });
+    const darkContext = await suite.browser.newContext({ viewport: VIEWPORT, colorScheme: 'dark' });
 
     // ── The instructor opens the demo class's roster from the Classes page. ──
     const teacher = await signIn(teacherContext, DEMO_INSTRUCTOR);
     watch(teacher, 'instructor', problems);
-    await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await teacher.goto(`${suite.server.url}/classes`, { waitUntil: 'networkidle' });
     const rosterLink = teacher.getByRole('row', { name: DEMO_CLASS.name }).getByRole('link', { name: '3 students: open the roster' });
     await rosterLink.waitFor();
     await shootBoth(teacher, 'classes-roster-link');
@@ -190,7 +168,7 @@ describe('class rosters and invitations in a real browser', () => {
     expect(theirClasses).toBe(0);
 
     // ── The labs page links to the roster for staff only. ──
-    await teacher.goto(`${server.url}/classes/${classId}/labs`, { waitUntil: 'networkidle' });
+    await teacher.goto(`${suite.server.url}/classes/${classId}/labs`, { waitUntil: 'networkidle' });
     await shoot(teacher, 'class-labs-staff-light.png');
     await teacher.getByRole('link', { name: 'Students' }).click();
     await teacher.waitForURL(new RegExp(`/classes/${classId}/students$`));
@@ -201,10 +179,10 @@ describe('class rosters and invitations in a real browser', () => {
 
   it('lets the admin invite an instructor, shows a refused address under the field, and the mail arrives', async () => {
     const problems: string[] = [];
-    const context = await browser.newContext({ viewport: VIEWPORT });
+    const context = await suite.browser.newContext({ viewport: VIEWPORT });
     const admin = await signIn(context, DEMO_ADMIN);
     watch(admin, 'admin', problems, [/instructor-invitations 409/]);
-    await admin.goto(`${server.url}/admin`, { waitUntil: 'networkidle' });
+    await admin.goto(`${suite.server.url}/admin`, { waitUntil: 'networkidle' });
 
     await admin.getByLabel('Instructor e-mail').fill(DEMO_INSTRUCTOR.email);
     await admin.getByRole('button', { name: 'Send invitation' }).click();
@@ -234,10 +212,10 @@ describe('class rosters and invitations in a real browser', () => {
   }, 120_000);
   it('names a roster without its header line, and sends someone who got an account meanwhile to sign in', async () => {
     const problems: string[] = [];
-    const context = await browser.newContext({ viewport: VIEWPORT });
+    const context = await suite.browser.newContext({ viewport: VIEWPORT });
     const teacher = await signIn(context, DEMO_INSTRUCTOR);
     watch(teacher, 'instructor', problems, [/\/roster 400/]);
-    await teacher.goto(`${server.url}/classes`, { waitUntil: 'networkidle' });
+    await teacher.goto(`${suite.server.url}/classes`, { waitUntil: 'networkidle' });
     await teacher.getByRole('row', { name: DEMO_CLASS.name }).getByRole('link', { name: /students: open the roster$/ }).click();
     await teacher.waitForURL(/\/students$/);
 
@@ -250,10 +228,10 @@ describe('class rosters and invitations in a real browser', () => {
     await expect.poll(() => teacher.getByTestId('roster-invited').innerText()).toMatch(/^Invited 1/);
 
     // Kai signs up with the join code before opening the invitation.
-    const visitor = await browser.newContext({ viewport: VIEWPORT });
+    const visitor = await suite.browser.newContext({ viewport: VIEWPORT });
     const page = await visitor.newPage();
     watch(page, 'kai', problems, [/^GET \/api\/me 401/, /invitations\/accept 409/]);
-    await page.goto(`${server.url}/join`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/join`, { waitUntil: 'networkidle' });
     await page.getByLabel('Join code').fill(DEMO_CLASS.joinCode);
     await page.getByLabel('Your name').fill(kai.name);
     await page.getByLabel('E-mail').fill(kai.email);
@@ -264,7 +242,7 @@ describe('class rosters and invitations in a real browser', () => {
     await page.goto('about:blank');
     await visitor.clearCookies();
 
-    const adminContext = await browser.newContext();
+    const adminContext = await suite.browser.newContext();
     const admin = await signIn(adminContext, DEMO_ADMIN);
     await expect.poll(async () => (await mailTo(admin, kai.email)).length, { timeout: 10_000 }).toBe(1);
     await page.goto(invitationLink((await mailTo(admin, kai.email))[0]!), { waitUntil: 'networkidle' });

@@ -1,29 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { mkdirSync } from 'node:fs';
-import { launchChromium } from './support/chromium';
-import { startServer, type RunningServer } from './support/server';
+import { describe, expect, it } from 'vitest';
+import { SHOTS, useBrowserSuite } from './support/browserSuite';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchChromium();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const suite = useBrowserSuite();
 
 describe('the sign-in page in a real browser', () => {
   it('shows the product name in Inter and loads nothing from outside this machine', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 720 } });
+    const page = await suite.browser.newPage({ viewport: { width: 1280, height: 720 } });
     const requested: string[] = [];
     page.on('request', (request) => requested.push(request.url()));
 
-    await page.goto(`${server.url}/`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/`, { waitUntil: 'networkidle' });
 
     await expect.poll(() => page.url()).toMatch(/\/sign-in$/);
     expect(await page.getByRole('heading', { name: 'Rungwright' }).isVisible()).toBe(true);
@@ -40,14 +26,13 @@ describe('the sign-in page in a real browser', () => {
     expect(requested.length).toBeGreaterThan(2);
     expect(outside).toEqual([]);
 
-    mkdirSync('tests/e2e/screenshots', { recursive: true });
-    await page.screenshot({ path: 'tests/e2e/screenshots/sign-in.png' });
+    await page.screenshot({ path: `${SHOTS}/sign-in.png` });
     await page.close();
   });
 
   it('answers an unknown page with the app\'s own 404 view', async () => {
-    const page = await browser.newPage();
-    await page.goto(`${server.url}/no/such/page`, { waitUntil: 'networkidle' });
+    const page = await suite.browser.newPage();
+    await page.goto(`${suite.server.url}/no/such/page`, { waitUntil: 'networkidle' });
     expect(await page.getByText('Page not found').first().isVisible()).toBe(true);
     await page.close();
   });

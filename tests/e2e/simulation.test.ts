@@ -5,30 +5,18 @@
  * their states are read from the page's "Rung states as text" list and the canvas's pixels. A
  * screenshot at each point goes to tests/e2e/screenshots/ (git-ignored) to be looked at.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { mkdirSync } from 'node:fs';
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
 import { layoutProgram } from '@/editor/layout';
 import { threeWireProgram } from '@/simulation/demoPrograms';
-import { launchChromium } from './support/chromium';
-import { startServer, type RunningServer } from './support/server';
+import { SHOTS, useBrowserSuite } from './support/browserSuite';
 
-let server: RunningServer;
-let browser: Browser;
+const suite = useBrowserSuite();
 let page: Page;
-const SHOTS = 'tests/e2e/screenshots';
 
 beforeAll(async () => {
-  mkdirSync(SHOTS, { recursive: true });
-  server = await startServer();
-  browser = await launchChromium();
-  page = await browser.newPage({ viewport: { width: 1280, height: 720 } });
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  page = await suite.browser.newPage({ viewport: { width: 1280, height: 720 } });
 });
 
 const shot = (name: string) => page.screenshot({ path: `${SHOTS}/${name}.png` });
@@ -59,7 +47,7 @@ const amberAtCoil = (coilId: string) => {
 };
 
 async function openDemo(id: string): Promise<void> {
-  await page.goto(`${server.url}/simulator/${id}`, { waitUntil: 'networkidle' });
+  await page.goto(`${suite.server.url}/simulator/${id}`, { waitUntil: 'networkidle' });
   await page.getByRole('button', { name: '▶ Run' }).waitFor();
 }
 
@@ -172,7 +160,7 @@ describe('the simulator on the default panel in a real browser', () => {
 
   it('runs the program being edited from the workbench dock and paints its power flow on the canvas', async () => {
     const student = DEMO_STUDENTS[0]!;
-    await page.goto(`${server.url}/sign-in`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/sign-in`, { waitUntil: 'networkidle' });
     await page.getByLabel('E-mail').fill(student.email);
     await page.getByLabel('Password').fill(student.password);
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -183,7 +171,7 @@ describe('the simulator on the default panel in a real browser', () => {
       if (!res.ok) throw new Error(`create answered ${res.status}: ${await res.text()}`);
       return ((await res.json()) as { program: { id: string } }).program.id;
     }, doc);
-    await page.goto(`${server.url}/programs/${id}`, { waitUntil: 'networkidle' });
+    await page.goto(`${suite.server.url}/programs/${id}`, { waitUntil: 'networkidle' });
     await page.locator('[data-testid="rung-canvas"]').waitFor();
     await shot('simulation-9-workbench-stopped');
     await page.locator('.simulation-dock').getByRole('button', { name: '▶ Run' }).click();
