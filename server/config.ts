@@ -26,6 +26,19 @@ export const ConfigSchema = z.object({
   LOG_LEVEL: LogLevelSchema.default('info'),
   /** Attempts per IP per 15 minutes on sign-in, sign-up and password reset. */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  /**
+   * Which proxies may set X-Forwarded-For (Express's `trust proxy`): unset or `false` trusts none, so
+   * a client cannot choose the address it is throttled by; `loopback`, a hop count or a list of
+   * addresses/CIDRs when the server runs behind a reverse proxy.
+   */
+  TRUST_PROXY: z.string().min(1).default('false'),
+  /**
+   * Host names the server answers to (comma-separated); any other Host header is refused, against DNS
+   * rebinding. Defaults to the localhost names plus HOST and PUBLIC_URL's host.
+   */
+  ALLOWED_HOSTS: z.string().min(1).optional(),
+  /** `on` seeds the demo accounts and data on an empty database; `off` starts with none. */
+  DEMO: z.enum(['on', 'off']).default('on'),
   /** Where links in e-mails point; defaults to http://HOST:PORT. */
   PUBLIC_URL: z.url().optional(),
 });

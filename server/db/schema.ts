@@ -38,6 +38,8 @@ export const users = pgTable(
     demo: boolean('demo').notNull().default(false),
     createdAt: createdAt(),
     lastSignInAt: timestamp('last_sign_in_at', { withTimezone: true, mode: 'date' }),
+    /** Set while an admin has deactivated the account: it cannot sign in and its sessions are ended. */
+    deactivatedAt: timestamp('deactivated_at', { withTimezone: true, mode: 'date' }),
   },
   (t) => [
     uniqueIndex('users_email_lower_idx').on(sql`lower(${t.email})`),
@@ -280,6 +282,57 @@ export const oneTimeTokens = pgTable(
   (t) => [uniqueIndex('one_time_tokens_hash_idx').on(t.tokenHash)],
 );
 
+/**
+ * A signed-in session. The cookie's token names its row (`sid`), so signing out, a password change
+ * or reset, "sign out everywhere" and deactivation end sessions by revoking rows, and every app
+ * process sharing the database sees it at once.
+ */
+export const sessions = pgTable(
+  'sessions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    revokedAt: timestamp('revoked_at', { withTimezone: true, mode: 'date' }),
+  },
+  (t) => [index('sessions_user_idx').on(t.userId)],
+);
+
+/**
+ * Throttling counters (failed sign-ins per account and per address, expensive calls per user), in
+ * the database so that several app processes count together. `key` says what is counted, e.g.
+ * `signin-account:<user id>`; `count` attempts since `windowStart`; `blockedUntil` a back-off.
+ */
+export const rateCounters = pgTable('rate_counters', {
+  key: text('key').primaryKey(),
+  windowStart: timestamp('window_start', { withTimezone: true, mode: 'date' }).notNull(),
+  count: integer('count').notNull(),
+  blockedUntil: timestamp('blocked_until', { withTimezone: true, mode: 'date' }),
+});
+
+/**
+ * Unsaved editor state kept on the server, one per user and program: never a version. Offered back
+ * when it is newer than the program's head; `baseVersion` is the version the edits started from.
+ */
+export const drafts = pgTable(
+  'drafts',
+  {
+    programId: uuid('program_id')
+      .notNull()
+      .references(() => programs.id, { onDelete: 'cascade' }),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    baseVersion: integer('base_version').notNull(),
+    document: jsonb('document').notNull(),
+    updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.programId, t.userId] })],
+);
+
 /** Mail the local fake SMTP server received (only when SMTP_URL is unset). */
 export const sentMail = pgTable('sent_mail', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -301,3 +354,6 @@ export type LabRow = typeof labs.$inferSelect;
 export type LabAttachmentRow = typeof labAttachments.$inferSelect;
 export type SubmissionRowDb = typeof submissions.$inferSelect;
 export type GradeHistoryRow = typeof gradeHistory.$inferSelect;
+export type SessionRow = typeof sessions.$inferSelect;
+export type RateCounterRow = typeof rateCounters.$inferSelect;
+export type DraftRow = typeof drafts.$inferSelect;
