@@ -1,5 +1,6 @@
-// ESLint flat config: JavaScript + TypeScript + Vue recommended rules, and the one rule that keeps
-// the architecture honest: `shared/` imports nothing from the UI, the server, the DOM or Node.
+// ESLint flat config: JavaScript + TypeScript + Vue recommended rules, and the rules that keep the
+// architecture honest: `shared/` imports nothing from the UI, the server, the DOM or Node; `src/`
+// never imports the standard labs, whose check scripts and reference solutions stay on the server.
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import pluginVue from 'eslint-plugin-vue';
@@ -41,6 +42,26 @@ export default tseslint.config(
         },
       ],
       'no-restricted-globals': ['error', 'window', 'document', 'process', 'localStorage'],
+    },
+  },
+  {
+    // The browser bundle is public (the sign-in page names its chunks): of `shared/labs/` it may
+    // load only the modules that carry no answers. tests/unit/labs/answersNotBundled.test.ts
+    // builds the client and searches it for the labs' hidden checks and reference rungs.
+    files: ['src/**'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              // `@shared/labs`, `../shared/labs/twoWire`…; not the three modules named below.
+              regex: '(^|[/@])shared/labs(/(?!(safetyCaution|build|conveyorTags)(\\.ts)?$).*)?$',
+              message: 'The standard labs hold hidden checks and reference solutions: server-only. The browser may import @shared/labs/safetyCaution, build and conveyorTags; anything else about standard labs comes from the API.',
+            },
+          ],
+        },
+      ],
     },
   },
 );

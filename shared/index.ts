@@ -6,4 +6,6 @@ export * from './ladder';
 export * from './engine';
 export * from './field';
 export * from './checks';
-export { STANDARD_LABS, standardLab, SAFETY_CAUTION, type Lab } from './labs';
+// The standard labs (their check scripts and reference solutions) are server-only: import them
+// from `labs/` where they are needed, never through this facade, which the browser may use.
+export { SAFETY_CAUTION } from './labs/safetyCaution';
