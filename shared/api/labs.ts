@@ -203,8 +203,8 @@ export const CheckResultSchema = z.object({
   steps: z.array(z.string()),
   note: z.string().optional(),
 });
-/** A hidden check as a student sees it. */
-export const HiddenCheckViewSchema = z.strictObject({ index: z.number().int(), passed: z.boolean(), points: z.number(), hidden: z.literal(true) });
+/** A hidden check as a student sees it: pass or fail and points, not where it sits. */
+export const HiddenCheckViewSchema = z.strictObject({ passed: z.boolean(), points: z.number(), hidden: z.literal(true) });
 
 /** The fields of a grade report the screens use; events, trace and diagnostics pass through as they are. */
 export const GradeReportSchema = z.looseObject({
@@ -250,15 +250,14 @@ export const FromTemplateResponseSchema = z.object({ lab: LabDetailSchema, solut
 export const OpenLabResponseSchema = z.object({ program: ProgramSummarySchema, head: VersionDetailSchema, created: z.boolean() });
 
 /**
- * `GET /api/labs/:id/self-check-script`. `script` holds every step up to the last visible check,
- * with the hidden checks' expect steps removed (an expect step only reads, so the visible checks
- * see the same states as in grading); steps after the last visible check are left out, so the
- * actions that lead only to hidden checks stay on the server. `stepMap[i]` is the step number in
- * the full script of self-check step `i + 1`, so results can be matched with a graded report.
+ * `GET /api/labs/:id/self-check-script`: the student's script (`studentScript` in
+ * `shared/checks`): every step up to the last visible check, without the hidden checks' expect
+ * steps (an expect step only reads, so the visible checks see the same states as in grading) and
+ * with two waits a hidden check kept apart joined into one, so nothing shows where a hidden check
+ * sat. Its step numbers are the ones the student's grade reports use.
  */
 export const SelfCheckScriptSchema = z.object({
   script: z.unknown(),
-  stepMap: z.array(z.number().int()),
   withheld: z.object({ hiddenChecks: z.number().int(), hiddenPoints: z.number().int() }),
 });
 export type SelfCheckScript = z.infer<typeof SelfCheckScriptSchema>;

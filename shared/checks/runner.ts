@@ -12,7 +12,8 @@ import type { DeviceAction } from '../field/devices/model';
 import { checkScriptAgainstPanel } from './againstPanel';
 import { parseCheckScript } from './parseScript';
 import { REPORT_FORMAT, type Actual, type CheckResult, type GradeReport, type ReportEvent } from './report';
-import { stepAction, type CheckScript, type ExpectStep, type Expectation, type Step } from './script';
+import { stepAction, type CheckScript, type ExpectStep, type Expectation } from './script';
+import { describeStep } from './stepWords';
 import { createChangeTrace, type ChangeTrace } from './trace';
 
 export interface CheckLimits {
@@ -36,25 +37,6 @@ export interface RunChecksOptions {
 }
 
 export type RunChecksResult = { ok: true; report: GradeReport } | { ok: false; errors: string[] };
-
-/** Words for the steps list of a check. */
-function describeStep(step: Step): string {
-  const s = step as Record<string, unknown>;
-  switch (stepAction(step)) {
-    case 'set':
-      return `set ${String(s.set)} to ${String(s.to)}`;
-    case 'load':
-      return `load ${String(s.load)} at ${String(s.factor)} × FLA`;
-    case 'wait':
-      return `wait ${String(s.wait)} ms`;
-    case 'expect':
-      return 'check';
-    default: {
-      const action = stepAction(step);
-      return `${action} ${String(s[action])}`;
-    }
-  }
-}
 
 /** "K1 closed, M1 forward, %QX1 true": a label for a check that has none. */
 function defaultLabel(expect: Record<string, Expectation>): string {
@@ -92,10 +74,6 @@ export function runChecks(options: RunChecksOptions): RunChecksResult {
   return { ok: true, report: grade(created.simulation, script, limits, created.warnings) };
 }
 
-function expectSteps(script: CheckScript): { step: ExpectStep; index: number }[] {
-  return script.steps.flatMap((step, i) => ('expect' in step ? [{ step, index: i + 1 }] : []));
-}
-
 function failedCheck(step: ExpectStep, index: number, atMs: number, note: string, steps: string[]): CheckResult {
   return {
     index,
@@ -118,11 +96,21 @@ function summarise(checks: CheckResult[]): Pick<GradeReport, 'passed' | 'score' 
 }
 
 function unrunnable(script: CheckScript, panel: PanelLayout, error: string, diagnostics: GradeReport['diagnostics']): GradeReport {
-  const checks = expectSteps(script).map(({ step, index }) => failedCheck(step, index, 0, error, []));
+  // Each check still lists the steps that lead to it: a student's view is numbered from them.
+  const checks: CheckResult[] = [];
+  let pending: string[] = [];
+  script.steps.forEach((step, i) => {
+    if (stepAction(step) !== 'expect') pending.push(describeStep(step));
+    else {
+      checks.push(failedCheck(step as ExpectStep, i + 1, 0, error, pending));
+      pending = [];
+    }
+  });
   return {
     format: REPORT_FORMAT,
     version: 1,
     panel: panel.id,
+    scanMs: script.scanMs,
     ...summarise(checks),
     checks,
     events: [],
@@ -184,7 +172,12 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
     const number = i + 1;
     const action = stepAction(step);
     if (stoppedBy !== null) {
-      if (action === 'expect') checks.push(failedCheck(step as ExpectStep, number, sim.timeMs, `not reached: ${stoppedBy}`, pending));
+      // Nothing runs any more, but each check still lists the steps that lead to it.
+      if (action !== 'expect') pending.push(describeStep(step));
+      else {
+        checks.push(failedCheck(step as ExpectStep, number, sim.timeMs, `not reached: ${stoppedBy}`, pending));
+        pending = [];
+      }
       return;
     }
     if (action === 'expect') {
@@ -222,6 +215,7 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
     format: REPORT_FORMAT,
     version: 1,
     panel: sim.panel.id,
+    scanMs: sim.scanMs,
     ...summarise(checks),
     checks,
     events,

@@ -143,8 +143,3 @@ export function presentReport(report: AnyReport): PresentedReport {
     failedCount: report.checks.filter((c) => !c.passed).length,
   };
 }
-
-/** A script with only its visible checks: what a student's self-check runs (hidden checks stay on the server). */
-export function visibleOnly<S extends { steps: readonly unknown[] }>(script: S): S {
-  return { ...script, steps: script.steps.filter((s) => !(typeof s === 'object' && s !== null && (s as { hidden?: unknown }).hidden === true)) };
-}
