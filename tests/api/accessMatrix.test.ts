@@ -117,7 +117,11 @@ const ROWS: Row[] = [
   },
   { route: 'GET /api/dev/mail', send: (t, c) => call(t, 'get', '/api/dev/mail', c), expect: adminOnly(200) },
   // Labs (issue 8).
-  { route: 'GET /api/lab-templates', send: (t, c) => call(t, 'get', '/api/lab-templates', c), expect: all(200) },
+  {
+    route: 'GET /api/lab-templates',
+    send: (t, c) => call(t, 'get', '/api/lab-templates', c),
+    expect: { anonymous: 401, studentA: 403, studentB: 403, instructor: 200, otherInstructor: 200, admin: 200 },
+  },
   { route: 'GET /api/classes/:id/labs', send: (t, c, s) => call(t, 'get', `/api/classes/${s.classId}/labs`, c), expect: viewLab(200) },
   {
     route: 'POST /api/classes/:id/labs',
