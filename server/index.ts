@@ -7,7 +7,7 @@ import { readConfig } from './config';
 import { systemClock } from './clock';
 import { acquireDataDirLock } from './dataDirLock';
 import { openDatabase } from './db/client';
-import { seedIfEmpty } from './db/seed';
+import { seedOnFirstStart } from './db/seed';
 import { openMailer } from './mail/openMailer';
 import { createLogger } from './http/logging';
 import { loadSessionKey } from './auth/sessionKey';
@@ -35,7 +35,11 @@ const logger = createLogger(config.LOG_LEVEL);
 const database = await openDatabase({ kind: 'directory', dataDir: config.DATA_DIR }).catch((err: unknown) =>
   fail(`Cannot open the database in ${config.DATA_DIR}: ${err instanceof Error ? err.message : String(err)}`),
 );
-if (await seedIfEmpty(database.orm, systemClock)) logger.info('seeded the demo data on a first start');
+const firstStart = await seedOnFirstStart(database.orm, systemClock, config.DEMO);
+if (firstStart === 'seeded') logger.info('seeded the demo data on a first start (DEMO=off starts without it)');
+if (firstStart === 'no-accounts') {
+  console.log('Rungwright has no accounts yet (DEMO=off): create the first admin with `npm run cli -- create-admin --email you@example.org`.');
+}
 const mailer = await openMailer(config, database.orm, systemClock);
 const sessionKey = loadSessionKey(config);
 
