@@ -12,7 +12,8 @@ import type { AppContext } from './context';
 import { readVersion } from './version';
 import { DEFAULT_SCRYPT, type ScryptParams } from './auth/passwords';
 import { createLogger, requestLogging } from './http/logging';
-import { requireSameOrigin, securityHeaders } from './http/security';
+import { noStore, requireSameOrigin, securityHeaders } from './http/security';
+import { refuseUnknownHosts } from './http/allowedHosts';
 import { apiNotFound, errorHandler, sendFailure } from './http/errorHandler';
 import { clientFiles } from './http/clientFiles';
 import { healthRouter } from './routes/health';
@@ -67,8 +68,10 @@ export function createApp(deps: AppDependencies): Express {
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders());
   app.use(requestLogging(logger));
+  app.use(refuseUnknownHosts(deps.config));
 
   const api = express.Router();
+  api.use(noStore);
   api.use(requireSameOrigin);
   api.use(authenticate(ctx));
   api.use(healthRouter(ctx));
