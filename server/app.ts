@@ -19,6 +19,7 @@ import { clientFiles } from './http/clientFiles';
 import { healthRouter } from './routes/health';
 import { authRouter } from './routes/auth';
 import { adminRouter } from './routes/admin';
+import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
 import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
@@ -82,6 +83,7 @@ export function createApp(deps: AppDependencies): Express {
   api.use(express.json({ limit: '1mb' }));
   api.use(authRouter(ctx));
   api.use(adminRouter(ctx));
+  api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));
   api.use(classesRouter(ctx));
   api.use(labsRouter(ctx));
