@@ -12,6 +12,7 @@ import { openMailer } from './mail/openMailer';
 import { createLogger } from './http/logging';
 import { loadSessionKey } from './auth/sessionKey';
 import { createApp } from './app';
+import { allowedHostNames, LOOPBACK_NAMES } from './http/allowedHosts';
 import { createGradingPool } from './grading/pool';
 
 function fail(message: string): never {
@@ -45,6 +46,13 @@ const sessionKey = loadSessionKey(config);
 
 // Made here, not inside createApp, so shutdown can stop its worker threads.
 const grader = createGradingPool();
+// Listening everywhere while answering only to loopback names serves nobody else: say so.
+if ((config.HOST === '0.0.0.0' || config.HOST === '::') && allowedHostNames(config).size === LOOPBACK_NAMES.length) {
+  console.warn(
+    `HOST=${config.HOST} listens on every network, but requests are answered only for ${LOOPBACK_NAMES.join(', ')}: ` +
+      'set ALLOWED_HOSTS (or PUBLIC_URL) to the names or addresses people type.',
+  );
+}
 const app = createApp({ db: database, mailer, clock: systemClock, config, logger, sessionKey, clientDir: 'dist', grader });
 const server = app.listen(config.PORT, config.HOST, () => {
   const { port } = server.address() as AddressInfo;

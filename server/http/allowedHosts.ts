@@ -19,7 +19,8 @@ import type { RequestHandler } from 'express';
 import type { Config } from '../config';
 import { sendFailure } from './errorHandler';
 
-const LOOPBACK_NAMES = ['localhost', '127.0.0.1', '::1'];
+/** Always allowed: a remote page cannot make a browser send them as Host. */
+export const LOOPBACK_NAMES: readonly string[] = ['localhost', '127.0.0.1', '::1'];
 const WILDCARD_ADDRESSES = new Set(['0.0.0.0', '::', '[::]']);
 
 /** A Host header's parts: lower-case name (IPv6 without brackets, no trailing dot) and port. */
@@ -60,7 +61,7 @@ function nameOf(entry: string): string | null {
 
 /** The set of names this configuration answers to. */
 export function allowedHostNames(config: Pick<Config, 'HOST' | 'PUBLIC_URL' | 'ALLOWED_HOSTS'>): Set<string> {
-  const names = new Set(LOOPBACK_NAMES);
+  const names = new Set<string>(LOOPBACK_NAMES);
   const add = (entry: string | undefined) => {
     const name = entry === undefined ? null : nameOf(entry);
     if (name && !WILDCARD_ADDRESSES.has(name)) names.add(name);
