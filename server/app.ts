@@ -12,12 +12,14 @@ import type { AppContext } from './context';
 import { readVersion } from './version';
 import { DEFAULT_SCRYPT, type ScryptParams } from './auth/passwords';
 import { createLogger, requestLogging } from './http/logging';
-import { requireSameOrigin, securityHeaders } from './http/security';
+import { noStore, requireSameOrigin, securityHeaders } from './http/security';
+import { refuseUnknownHosts } from './http/allowedHosts';
 import { apiNotFound, errorHandler, sendFailure } from './http/errorHandler';
 import { clientFiles } from './http/clientFiles';
 import { healthRouter } from './routes/health';
 import { authRouter } from './routes/auth';
 import { adminRouter } from './routes/admin';
+import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
 import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
@@ -67,8 +69,10 @@ export function createApp(deps: AppDependencies): Express {
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders());
   app.use(requestLogging(logger));
+  app.use(refuseUnknownHosts(deps.config));
 
   const api = express.Router();
+  api.use(noStore);
   api.use(requireSameOrigin);
   api.use(authenticate(ctx));
   api.use(healthRouter(ctx));
@@ -79,6 +83,7 @@ export function createApp(deps: AppDependencies): Express {
   api.use(express.json({ limit: '1mb' }));
   api.use(authRouter(ctx));
   api.use(adminRouter(ctx));
+  api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));
   api.use(classesRouter(ctx));
   api.use(labsRouter(ctx));

@@ -33,8 +33,9 @@ export const ConfigSchema = z.object({
    */
   TRUST_PROXY: z.string().min(1).default('false'),
   /**
-   * Host names the server answers to (comma-separated); any other Host header is refused, against DNS
-   * rebinding. Defaults to the localhost names plus HOST and PUBLIC_URL's host.
+   * Host names the server answers to (comma-separated) besides the ones it always answers to: the
+   * localhost names, HOST and PUBLIC_URL's host. Any other Host header is refused (421), against DNS
+   * rebinding; see `http/allowedHosts.ts`.
    */
   ALLOWED_HOSTS: z.string().min(1).optional(),
   /** `on` seeds the demo accounts and data on an empty database; `off` starts with none. */

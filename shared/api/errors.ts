@@ -20,6 +20,7 @@ export const ApiErrorCodeSchema = z.enum([
   'unsupported_media_type',
   'rate_limited',
   'mail_disabled',
+  'unknown_host',
   'internal',
 ]);
 export type ApiErrorCode = z.infer<typeof ApiErrorCodeSchema>;
@@ -40,6 +41,7 @@ export const API_ERROR_STATUS = {
   unsupported_media_type: 415,
   rate_limited: 429,
   mail_disabled: 404,
+  unknown_host: 421,
   internal: 500,
 } as const satisfies Record<ApiErrorCode, number>;
 
@@ -59,6 +61,7 @@ export const API_ERROR_SUMMARY = {
   unsupported_media_type: 'That kind of content is not accepted here.',
   rate_limited: 'Too many attempts; wait a few minutes and try again.',
   mail_disabled: 'The local mail box is off because real mail is configured.',
+  unknown_host: 'This server does not answer to that host name.',
   internal: 'Something went wrong on the server.',
 } as const satisfies Record<ApiErrorCode, string>;
 

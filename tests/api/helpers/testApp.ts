@@ -39,6 +39,8 @@ export interface TestApp {
 export interface TestAppOptions {
   /** Grades the app's submissions; default a fresh worker pool. Closed by `close()` either way. */
   grader?: Grader;
+  /** A built client to serve after the API, as `npm start` does with `dist`. */
+  clientDir?: string;
 }
 
 /** Loads the template dump written by globalSetup into a new in-memory database. */
@@ -64,6 +66,7 @@ export async function createTestApp(env: Record<string, string> = {}, options: T
     logger: createLogger('silent'),
     sessionKey: new TextEncoder().encode('test-session-key-0123456789abcdef'),
     passwordParams: TEST_SCRYPT,
+    clientDir: options.clientDir,
   });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
