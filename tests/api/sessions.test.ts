@@ -7,7 +7,8 @@ import { SignJWT } from 'jose';
 import { createTestApp, type TestApp } from './helpers/testApp';
 import { addUser, call, PASSWORD, person, sessionCookieOf, signIn, type Person } from './helpers/fixtures';
 import { tokenIn, waitForMail } from './helpers/mailbox';
-import { countOpenSessions, insertSession, revokeSession } from '../../server/db/sessions';
+import { countOpenSessions, findSessionUser, insertSession, revokeSession } from '../../server/db/sessions';
+import { setDeactivatedAt } from '../../server/db/users';
 import { sessions } from '../../server/db/schema';
 import { eq } from 'drizzle-orm';
 
@@ -65,6 +66,8 @@ describe('signing out everywhere', () => {
     await addUser(t, 'everywhere@test.example', 'student');
     const here = await signIn(t, 'everywhere@test.example');
     const there = await signIn(t, 'everywhere@test.example');
+    // Both sessions in use (and so in the server's session cache) before they end.
+    expect((await me(there)).status).toBe(200);
     const res = await call(t, 'post', '/api/auth/sign-out-everywhere', here);
     expect(res.status).toBe(204);
     expect(String(res.headers['set-cookie'])).toMatch(/rw_session=;/);
@@ -98,6 +101,7 @@ describe('changing one\'s own password', () => {
   it('ends every other session and the old token of this one, and keeps this one going under a new token', async () => {
     const who = await person(t, 'changer.c@test.example', 'student');
     const elsewhere = await signIn(t, 'changer.c@test.example');
+    expect((await me(elsewhere)).status).toBe(200);
     const res = await call(t, 'post', '/api/auth/password', who.cookie).send({ currentPassword: PASSWORD, newPassword: 'the-new-password-1' });
     expect(res.status).toBe(200);
     expect(res.body.user.email).toBe('changer.c@test.example');
@@ -121,6 +125,7 @@ describe('a password reset', () => {
   it('ends every session of the account', async () => {
     const who = await person(t, 'reset.sessions@test.example', 'student');
     const second = await signIn(t, 'reset.sessions@test.example');
+    expect((await me(second)).status).toBe(200);
     await call(t, 'post', '/api/auth/password-reset').send({ email: 'reset.sessions@test.example' });
     const token = tokenIn(await waitForMail(t, admin.cookie, 'reset.sessions@test.example'));
     expect((await call(t, 'post', '/api/auth/password-reset/confirm').send({ token, password: 'after-the-reset-1' })).status).toBe(204);
@@ -230,6 +235,29 @@ describe('tokens without an open session', () => {
     expect((await t.http.get('/api/health').set('Cookie', bad)).status).toBe(200);
     expect((await call(t, 'post', '/api/auth/sign-out', bad)).status).toBe(204);
     expect((await call(t, 'post', '/api/auth/sign-in', bad).send({ email: 'admin@test.example', password: PASSWORD })).status).toBe(200);
+  });
+});
+
+describe('the session check where several processes share the database (no row caches)', () => {
+  it('reads the row joined with its user: open passes; revoked, expired, another user\'s or a deactivated user\'s does not', async () => {
+    const who = await addUser(t, 'joined@test.example', 'student');
+    const other = await addUser(t, 'joined.other@test.example', 'student');
+    const now = t.clock.now();
+    const hour = new Date(now.getTime() + 3_600_000);
+    const open = await insertSession(t.database.orm, { userId: who.id, now, expiresAt: hour });
+    const revoked = await insertSession(t.database.orm, { userId: who.id, now, expiresAt: hour });
+    await revokeSession(t.database.orm, revoked, now);
+    // A transaction's handle never has the row caches: the same path a shared database takes.
+    const seen = await t.database.orm.transaction(async (tx) => ({
+      open: await findSessionUser(tx, open, who.id, now),
+      revoked: await findSessionUser(tx, revoked, who.id, now),
+      expired: await findSessionUser(tx, open, who.id, hour),
+      otherUser: await findSessionUser(tx, open, other.id, now),
+    }));
+    expect(seen.open?.email).toBe('joined@test.example');
+    expect(seen).toMatchObject({ revoked: null, expired: null, otherUser: null });
+    await setDeactivatedAt(t.database.orm, who.id, now);
+    expect(await t.database.orm.transaction((tx) => findSessionUser(tx, open, who.id, now))).toBeNull();
   });
 });
 
