@@ -13,11 +13,12 @@ export function accountColumns(): DataTableColumns<AccountView> {
     {
       title: 'Status',
       key: 'deactivatedAt',
+      width: 120,
       render: (row) =>
         row.deactivatedAt
           ? h(NTag, { size: 'small', type: 'warning', bordered: false, title: `Deactivated ${formatWhen(row.deactivatedAt)}` }, () => 'Deactivated')
           : h(NTag, { size: 'small', bordered: false }, () => 'Active'),
     },
-    { title: 'Actions', key: 'actions', render: (row) => h(AccountActions, { account: row }) },
+    { title: 'Actions', key: 'actions', width: 220, render: (row) => h(AccountActions, { account: row }) },
   ];
 }
