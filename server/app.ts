@@ -25,6 +25,7 @@ import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
+import { trustProxySetting } from './http/trustProxy';
 import { createGradingPool, type Grader } from './grading/pool';
 import { labsRouter } from './routes/labs';
 import { labAttachmentsRouter } from './routes/labAttachments';
@@ -66,7 +67,7 @@ export function createApp(deps: AppDependencies): Express {
 
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxySetting(deps.config.TRUST_PROXY));
   app.use(securityHeaders());
   app.use(requestLogging(logger));
   app.use(refuseUnknownHosts(deps.config));

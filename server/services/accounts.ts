@@ -1,16 +1,18 @@
 /**
  * Accounts: sign-in, student sign-up with a join code, invitations (instructors by an admin,
- * students from a roster), password reset. Each function returns an Outcome; no HTTP here.
+ * students from a roster). Passwords after sign-up are in `passwords.ts`. Each function returns
+ * an Outcome; no HTTP here.
  */
 import type { AcceptInvitationRequest, InvitationSent, InvitationView, SignInRequest, SignUpRequest } from '@shared/api';
 import type { AppContext } from '../context';
 import { publicUrl } from '../config';
 import { hashPassword, verifyPassword } from '../auth/passwords';
-import { hashToken, INVITE_TOKEN_MS, newToken, RESET_TOKEN_MS } from '../auth/oneTimeTokens';
-import { findCredentials, findUserByEmail, insertUser, setLastSignIn, setPasswordHash, type User } from '../db/users';
+import { hashToken, INVITE_TOKEN_MS, newToken } from '../auth/oneTimeTokens';
+import { addressFailed, checkAddress, passwordAccepted, sweepSignInCounters, takeAccountAttempt, throttledFailure } from '../auth/signInThrottle';
+import { findCredentials, findUserByEmail, insertUser, setLastSignIn, type User } from '../db/users';
 import { enrol, findClass, findClassByJoinCode } from '../db/classes';
 import { findUsableToken, insertToken, markTokenUsed } from '../db/oneTimeTokens';
-import { invitationMail, passwordResetMail } from '../mail/templates';
+import { invitationMail } from '../mail/templates';
 import { failure, success, type Outcome } from '../http/failure';
 import { iso } from './views';
 
@@ -20,11 +22,29 @@ import { iso } from './views';
  */
 const NO_ACCOUNT_HASH = 'scrypt$32768$8$1$AAAAAAAAAAAAAAAAAAAAAA$AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA';
 
-export async function signIn(ctx: AppContext, req: SignInRequest): Promise<Outcome<User>> {
-  const found = await findCredentials(ctx.orm, req.email);
-  const matches = await verifyPassword(req.password, found?.passwordHash ?? NO_ACCOUNT_HASH);
-  if (!found || !matches) return failure('bad_credentials', 'The e-mail or password is wrong');
+/** Said only after the right password, so it tells nothing to someone guessing. */
+export const DEACTIVATED_MESSAGE = 'This account has been deactivated. Ask your instructor or an administrator to reactivate it.';
+
+/**
+ * Checks an e-mail and password from `address`, within the throttle of `auth/signInThrottle.ts`
+ * (failures only count: per account with back-off, per address); opening the session is the
+ * caller's next step.
+ */
+export async function signIn(ctx: AppContext, req: SignInRequest, address: string): Promise<Outcome<User>> {
   const now = ctx.clock.now();
+  const byAddress = await checkAddress(ctx.orm, address, ctx.config.AUTH_RATE_LIMIT, now);
+  if (!byAddress.allowed) return throttledFailure(byAddress, now);
+  const byAccount = await takeAccountAttempt(ctx.orm, req.email, now);
+  if (!byAccount.allowed) return throttledFailure(byAccount, now);
+  const found = await findCredentials(ctx.orm, { email: req.email });
+  const matches = await verifyPassword(req.password, found?.passwordHash ?? NO_ACCOUNT_HASH);
+  if (!found || !matches) {
+    await addressFailed(ctx.orm, address, now);
+    return failure('bad_credentials', 'The e-mail or password is wrong');
+  }
+  await passwordAccepted(ctx.orm, req.email);
+  await sweepSignInCounters(ctx.orm, now);
+  if (found.user.deactivatedAt) return failure('forbidden', DEACTIVATED_MESSAGE);
   await setLastSignIn(ctx.orm, found.user.id, now);
   return success({ ...found.user, lastSignInAt: now });
 }
@@ -83,26 +103,4 @@ export async function acceptInvitation(ctx: AppContext, req: AcceptInvitationReq
   if (row.classId) await enrol(ctx.orm, row.classId, user.id, now);
   await setLastSignIn(ctx.orm, user.id, now);
   return success({ ...user, lastSignInAt: now });
-}
-
-/** The same answer whether or not the address has an account (no account discovery). */
-export const RESET_ACCEPTED = 'If this address has an account, a reset link is on its way. It works once, for one hour.';
-
-export async function requestPasswordReset(ctx: AppContext, email: string): Promise<void> {
-  const user = await findUserByEmail(ctx.orm, email);
-  if (!user) return;
-  const now = ctx.clock.now();
-  const { token, hash } = newToken();
-  await insertToken(ctx.orm, { kind: 'reset', tokenHash: hash, email: user.email, userId: user.id, expiresAt: new Date(now.getTime() + RESET_TOKEN_MS), now });
-  await ctx.mailer.send(passwordResetMail({ to: user.email, baseUrl: publicUrl(ctx.config), token }));
-}
-
-export async function confirmPasswordReset(ctx: AppContext, token: string, password: string): Promise<Outcome<null>> {
-  const now = ctx.clock.now();
-  const row = await findUsableToken(ctx.orm, 'reset', hashToken(token), now);
-  if (!row?.userId || !(await markTokenUsed(ctx.orm, row.id, now))) {
-    return failure('validation', 'This reset link cannot be used', BAD_LINK);
-  }
-  await setPasswordHash(ctx.orm, row.userId, await hashPassword(password, ctx.passwordParams));
-  return success(null);
 }

@@ -90,4 +90,8 @@ export type InviteInstructorRequest = z.infer<typeof InviteInstructorRequestSche
 export const InvitationSentSchema = z.object({ email: z.string(), role: RoleSchema, expiresAt: z.string() });
 export type InvitationSent = z.infer<typeof InvitationSentSchema>;
 
-export const UserListSchema = z.object({ users: z.array(UserViewSchema) });
+/** A user as an administrator sees them: with whether the account is deactivated (and since when). */
+export const AccountViewSchema = UserViewSchema.extend({ deactivatedAt: z.string().nullable() });
+export type AccountView = z.infer<typeof AccountViewSchema>;
+
+export const UserListSchema = z.object({ users: z.array(AccountViewSchema) });

@@ -2,6 +2,7 @@
 export * from './errors';
 export * from './health';
 export * from './auth';
+export * from './accounts';
 export * from './programs';
 export * from './classes';
 export * from './mail';

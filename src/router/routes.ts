@@ -100,6 +100,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: ['instructor', 'admin'], title: 'Submission' },
   },
   {
+    path: '/account',
+    name: 'account',
+    component: () => import('../views/AccountView.vue'),
+    meta: { title: 'Your account' },
+  },
+  {
     path: '/admin',
     name: 'admin',
     component: () => import('../views/AdminView.vue'),

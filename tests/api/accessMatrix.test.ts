@@ -6,7 +6,7 @@
  * unpublished one, so deleting or unpublishing in one case changes nothing for the next.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Test } from 'supertest';
+import type { Response, Test } from 'supertest';
 import { exportPlcopen } from '@shared/ladder/plcopen';
 import { THREE_WIRE_DEMO } from '../../server/db/demoPrograms';
 import { enrol } from '../../server/db/classes';
@@ -14,7 +14,8 @@ import { insertAttachment, insertLab } from '../../server/db/labs';
 import { insertSubmission } from '../../server/db/submissions';
 import { FORWARD_REVERSE } from '@shared/labs';
 import { createTestApp, type TestApp } from './helpers/testApp';
-import { call, createCast, createProgramAs, documentWithRungs, type Cast } from './helpers/fixtures';
+import { addUser, call, createCast, createProgramAs, documentWithRungs, signIn, type Cast } from './helpers/fixtures';
+import { setDeactivatedAt } from '../../server/db/users';
 
 const ACTORS = ['anonymous', 'studentA', 'studentB', 'instructor', 'otherInstructor', 'admin'] as const;
 type Actor = (typeof ACTORS)[number];
@@ -36,7 +37,7 @@ interface Scene {
 
 interface Row {
   route: string;
-  send: (t: TestApp, cookie: string | null, s: Scene) => Test;
+  send: (t: TestApp, cookie: string | null, s: Scene) => Test | Promise<Response>;
   expect: Expected;
 }
 
@@ -59,10 +60,49 @@ const PNG = Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a
 
 const xml = exportPlcopen(THREE_WIRE_DEMO);
 
+/** The e-mail of the cast member whose session `cookie` is; null for anonymous. */
+function emailOf(s: Scene, cookie: string | null): string | null {
+  return Object.values(s.cast).find((p) => typeof p === 'object' && p.cookie === cookie)?.user.email ?? null;
+}
+
+/** Another session of the same person, so that ending it leaves the cast's own session alone. */
+async function secondSession(t: TestApp, s: Scene, cookie: string | null): Promise<string | null> {
+  const email = emailOf(s, cookie);
+  return email ? signIn(t, email) : null;
+}
+
+/** After a row that ended all of a cast member's sessions: sign them in again for the next cases. */
+async function renewSession(t: TestApp, s: Scene, cookie: string | null): Promise<void> {
+  const member = Object.values(s.cast).find((p) => typeof p === 'object' && p.cookie === cookie);
+  if (member && typeof member === 'object') member.cookie = await signIn(t, member.user.email);
+}
+
+/** A fresh account for an administrator's action to act on. */
+const spareAccount = (t: TestApp, s: Scene) => addUser(t, `spare${s.n}@test.example`, 'student');
+
 const ROWS: Row[] = [
   { route: 'GET /api/health', send: (t) => call(t, 'get', '/api/health'), expect: { ...all(200), anonymous: 200 } },
   { route: 'GET /api/me', send: (t, c) => call(t, 'get', '/api/me', c), expect: all(200) },
-  { route: 'POST /api/auth/sign-out', send: (t, c) => call(t, 'post', '/api/auth/sign-out', c).send({}), expect: { ...all(204), anonymous: 204 } },
+  {
+    route: 'POST /api/auth/sign-out',
+    send: async (t, c, s) => call(t, 'post', '/api/auth/sign-out', await secondSession(t, s, c)),
+    expect: { ...all(204), anonymous: 204 },
+  },
+  {
+    route: 'POST /api/auth/sign-out-everywhere',
+    send: async (t, c, s) => {
+      const res = await call(t, 'post', '/api/auth/sign-out-everywhere', c);
+      await renewSession(t, s, c);
+      return res;
+    },
+    expect: all(204),
+  },
+  {
+    // A wrong current password: who may try (400 names the field) without changing anything.
+    route: 'POST /api/auth/password',
+    send: (t, c) => call(t, 'post', '/api/auth/password', c).send({ currentPassword: 'not-the-password', newPassword: 'some-new-password' }),
+    expect: all(400),
+  },
   { route: 'GET /api/programs', send: (t, c) => call(t, 'get', '/api/programs', c), expect: all(200) },
   { route: 'GET /api/programs?ownerId=A', send: (t, c, s) => call(t, 'get', `/api/programs?ownerId=${s.cast.studentA.user.id}`, c), expect: readA(200) },
   { route: 'POST /api/programs', send: (t, c) => call(t, 'post', '/api/programs', c).send({ title: 'Mine' }), expect: all(201) },
@@ -110,6 +150,25 @@ const ROWS: Row[] = [
     expect: manage(200),
   },
   { route: 'GET /api/admin/users', send: (t, c) => call(t, 'get', '/api/admin/users', c), expect: adminOnly(200) },
+  {
+    route: 'POST /api/admin/users/:id/deactivate',
+    send: async (t, c, s) => call(t, 'post', `/api/admin/users/${(await spareAccount(t, s)).id}/deactivate`, c),
+    expect: adminOnly(200),
+  },
+  {
+    route: 'POST /api/admin/users/:id/reactivate',
+    send: async (t, c, s) => {
+      const spare = await spareAccount(t, s);
+      await setDeactivatedAt(t.database.orm, spare.id, t.clock.now());
+      return call(t, 'post', `/api/admin/users/${spare.id}/reactivate`, c);
+    },
+    expect: adminOnly(200),
+  },
+  {
+    route: 'POST /api/admin/users/:id/password-reset',
+    send: async (t, c, s) => call(t, 'post', `/api/admin/users/${(await spareAccount(t, s)).id}/password-reset`, c),
+    expect: adminOnly(202),
+  },
   {
     route: 'POST /api/admin/instructor-invitations',
     send: (t, c, s) => call(t, 'post', '/api/admin/instructor-invitations', c).send({ email: `invitee${s.n}@test.example` }),
