@@ -1,13 +1,6 @@
-/** `/api/auth/*` and `/api/me`: sessions, sign-up, invitations, password reset. */
+/** `/api/auth/*` and `/api/me`: sessions and password reset (sign-up and invitations: `signUp.ts`, `invitations.ts`). */
 import express, { type Response, type Router } from 'express';
-import {
-  AcceptInvitationRequestSchema,
-  InvitationLookupRequestSchema,
-  PasswordResetConfirmSchema,
-  PasswordResetRequestSchema,
-  SignInRequestSchema,
-  SignUpRequestSchema,
-} from '@shared/api';
+import { PasswordResetConfirmSchema, PasswordResetRequestSchema, SignInRequestSchema } from '@shared/api';
 import type { AppContext } from '../context';
 import type { User } from '../db/users';
 import { clearSessionCookie, setSessionCookie, signSession } from '../auth/session';
@@ -22,7 +15,6 @@ import type { Outcome } from '../http/failure';
 export function authRouter(ctx: AppContext): Router {
   const router = express.Router();
   const signInLimit = authRateLimit(ctx.config.AUTH_RATE_LIMIT);
-  const signUpLimit = authRateLimit(ctx.config.AUTH_RATE_LIMIT);
   const resetLimit = authRateLimit(ctx.config.AUTH_RATE_LIMIT);
 
   /** Starts a session for the user and answers `{ user }`. */
@@ -36,12 +28,6 @@ export function authRouter(ctx: AppContext): Router {
     const body = parse(SignInRequestSchema, req.body);
     if (!body.ok) return reply(res, body);
     await startSession(res, await accounts.signIn(ctx, body.value), 200);
-  });
-
-  router.post('/auth/sign-up', signUpLimit, async (req, res) => {
-    const body = parse(SignUpRequestSchema, req.body);
-    if (!body.ok) return reply(res, body);
-    await startSession(res, await accounts.signUp(ctx, body.value), 201);
   });
 
   router.post('/auth/sign-out', (_req, res) => {
@@ -64,18 +50,6 @@ export function authRouter(ctx: AppContext): Router {
     const body = parse(PasswordResetConfirmSchema, req.body);
     if (!body.ok) return reply(res, body);
     reply(res, await accounts.confirmPasswordReset(ctx, body.value.token, body.value.password), 204);
-  });
-
-  router.post('/auth/invitations/lookup', signUpLimit, async (req, res) => {
-    const body = parse(InvitationLookupRequestSchema, req.body);
-    if (!body.ok) return reply(res, body);
-    reply(res, await accounts.lookupInvitation(ctx, body.value.token), 200, (invitation) => ({ invitation }));
-  });
-
-  router.post('/auth/invitations/accept', signUpLimit, async (req, res) => {
-    const body = parse(AcceptInvitationRequestSchema, req.body);
-    if (!body.ok) return reply(res, body);
-    await startSession(res, await accounts.acceptInvitation(ctx, body.value), 201);
   });
 
   return router;

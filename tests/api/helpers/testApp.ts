@@ -39,6 +39,8 @@ export interface TestApp {
 export interface TestAppOptions {
   /** Grades the app's submissions; default a fresh worker pool. Closed by `close()` either way. */
   grader?: Grader;
+  /** Wraps the real mailer the app sends through (e.g. to hold mail back and see what waits for it). */
+  wrapMailer?: (mailer: Mailer) => Mailer;
 }
 
 /** Loads the template dump written by globalSetup into a new in-memory database. */
@@ -58,7 +60,7 @@ export async function createTestApp(env: Record<string, string> = {}, options: T
   const app = createApp({
     grader,
     db: database,
-    mailer,
+    mailer: options.wrapMailer ? options.wrapMailer(mailer) : mailer,
     clock,
     config,
     logger: createLogger('silent'),
