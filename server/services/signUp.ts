@@ -60,7 +60,7 @@ export async function lookupSignUp(ctx: AppContext, token: string): Promise<Outc
   const found = await usableSignUp(ctx, token);
   if (!found) return BAD_SIGN_UP_LINK;
   const { row, cls } = found;
-  return success({ email: row.email, name: row.invitedName ?? '', className: cls.name, expiresAt: iso(row.expiresAt) });
+  return success({ email: row.email, name: row.invitedName ?? '', classId: cls.id, className: cls.name, expiresAt: iso(row.expiresAt) });
 }
 
 /** Creates the student account with the chosen password, enrols it in the class and signs it in. */

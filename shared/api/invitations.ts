@@ -28,6 +28,7 @@ export type LinkTokenRequest = z.infer<typeof LinkTokenRequestSchema>;
 export const SignUpViewSchema = z.object({
   email: z.string(),
   name: z.string(),
+  classId: z.string(),
   className: z.string(),
   expiresAt: z.string(),
 });
