@@ -33,9 +33,12 @@ interface Scene extends StudentWork {
   draftLabA: string;
   /** An attachment of lab A. */
   attachmentA: string;
-  /** Open class-A invitations to studentNone's and to teacher B's address. */
+  /** Open class-A invitations to studentNone's address, teacher B's and an address with no account. */
   inviteStudentNone: string;
   inviteTeacherB: string;
+  inviteNew: string;
+  /** An open link to finish signing up an address with no account into class A. */
+  signUpNew: string;
   n: number;
 }
 
@@ -171,6 +174,25 @@ const ROWS: Row[] = [
     send: (t, c, s) => call(t, 'post', `/api/classes/${s.classA}/roster`, c).attach('file', Buffer.from(`email,name\nr${s.n}@test.example,Row ${s.n}\n`), { filename: 'r.csv', contentType: 'text/csv' }),
     expect: manageA(200),
   },
+  // Links from e-mails: whoever holds the link may use it, signed in or not (an account is made for the link's address).
+  { route: 'POST /api/auth/invitations/lookup', send: (t, c, s) => call(t, 'post', '/api/auth/invitations/lookup', c).send({ token: s.inviteNew }), expect: { ...all(200), anonymous: 200 } },
+  {
+    route: 'POST /api/auth/invitations/accept',
+    send: (t, c, s) => call(t, 'post', '/api/auth/invitations/accept', c).send({ token: s.inviteNew, name: 'New Person', password: 'long-enough-pw' }),
+    expect: { ...all(201), anonymous: 201 },
+  },
+  {
+    // Class B's code: the join-code row draws class A a new one.
+    route: 'POST /api/auth/sign-up',
+    send: (t, c, s) => call(t, 'post', '/api/auth/sign-up', c).send({ email: `asked${s.n}@test.example`, name: 'Asked', joinCode: s.room.classB.joinCode }),
+    expect: { ...all(202), anonymous: 202 },
+  },
+  { route: 'POST /api/auth/sign-up/lookup', send: (t, c, s) => call(t, 'post', '/api/auth/sign-up/lookup', c).send({ token: s.signUpNew }), expect: { ...all(200), anonymous: 200 } },
+  {
+    route: 'POST /api/auth/sign-up/finish',
+    send: (t, c, s) => call(t, 'post', '/api/auth/sign-up/finish', c).send({ token: s.signUpNew, name: 'Signed Up', password: 'long-enough-pw' }),
+    expect: { ...all(201), anonymous: 201 },
+  },
   {
     // Accepted only by the invited account itself, signed in; anyone else is told it is another address's.
     route: 'POST /api/auth/invitations/join (to studentNone)',
@@ -269,11 +291,11 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-/** An open invitation to class A for `email`; answers the token. */
-async function invitation(email: string): Promise<string> {
+/** An open invitation (or sign-up link) to class A for `email`; answers the token. */
+async function invitation(email: string, kind: 'invite' | 'signup' = 'invite'): Promise<string> {
   const { token } = newToken();
   const now = t.clock.now();
-  await issueScopedToken(t.database.orm, { kind: 'invite', tokenHash: hashToken(token), email, role: 'student', classId: room.classA.id, expiresAt: new Date(now.getTime() + INVITE_TOKEN_MS), now });
+  await issueScopedToken(t.database.orm, { kind, tokenHash: hashToken(token), email, role: 'student', classId: room.classA.id, invitedName: 'New Person', expiresAt: new Date(now.getTime() + INVITE_TOKEN_MS), now });
   return token;
 }
 
@@ -291,6 +313,8 @@ async function scene(n: number): Promise<Scene> {
     attachmentA: attachment.id,
     inviteStudentNone: await invitation(room.people.studentNone.user.email),
     inviteTeacherB: await invitation(room.people.teacherB.user.email),
+    inviteNew: await invitation(`invited${n}@test.example`),
+    signUpNew: await invitation(`signing.up${n}@test.example`, 'signup'),
     n,
   };
 }
