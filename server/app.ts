@@ -18,6 +18,8 @@ import { apiNotFound, errorHandler, sendFailure } from './http/errorHandler';
 import { clientFiles } from './http/clientFiles';
 import { healthRouter } from './routes/health';
 import { authRouter } from './routes/auth';
+import { signUpRouter } from './routes/signUp';
+import { invitationsRouter } from './routes/invitations';
 import { adminRouter } from './routes/admin';
 import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
@@ -83,6 +85,8 @@ export function createApp(deps: AppDependencies): Express {
   api.use(requireJsonBody);
   api.use(express.json({ limit: '1mb' }));
   api.use(authRouter(ctx));
+  api.use(signUpRouter(ctx));
+  api.use(invitationsRouter(ctx));
   api.use(adminRouter(ctx));
   api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));

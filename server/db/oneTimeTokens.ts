@@ -133,3 +133,52 @@ async function endResetTokens(tx: Db, userId: string, now: Date): Promise<void> 
     .set({ usedAt: now })
     .where(and(eq(oneTimeTokens.kind, 'reset'), eq(oneTimeTokens.userId, userId), isNull(oneTimeTokens.usedAt)));
 }
+
+/**
+ * The tokens one invitation or sign-up link stands with: same kind, same address (any letter case)
+ * and same class (an instructor invitation has none). Issuing a new link or using one ends every
+ * other open link of its scope, so an older e-mail can never be used after a newer one.
+ */
+export interface InvitationScope {
+  kind: 'invite' | 'signup';
+  email: string;
+  classId: string | null;
+}
+
+function openInScope(scope: InvitationScope, now: Date) {
+  return and(
+    eq(oneTimeTokens.kind, scope.kind),
+    sql`lower(${oneTimeTokens.email}) = lower(${scope.email})`,
+    scope.classId === null ? isNull(oneTimeTokens.classId) : eq(oneTimeTokens.classId, scope.classId),
+    isNull(oneTimeTokens.usedAt),
+    gt(oneTimeTokens.expiresAt, now),
+  );
+}
+
+/** Inserts an invitation or sign-up link after ending the open ones of its scope, in one transaction. */
+export async function issueScopedToken(db: Db, t: NewToken & { kind: InvitationScope['kind'] }): Promise<OneTimeToken> {
+  return db.transaction(async (tx) => {
+    // Ended links expire now rather than count as used: nobody used them.
+    await tx.update(oneTimeTokens).set({ expiresAt: t.now }).where(openInScope({ kind: t.kind, email: t.email, classId: t.classId ?? null }, t.now));
+    return insertToken(tx, t);
+  });
+}
+
+/**
+ * Marks an invitation or sign-up link used and ends the other open links of its scope, in one
+ * transaction; false if it was used or ended meanwhile (single use, even under a race).
+ */
+export async function useScopedToken(db: Db, token: OneTimeToken, now: Date): Promise<boolean> {
+  if (token.kind === 'reset') throw new Error('useScopedToken is for invitations and sign-ups');
+  const scope: InvitationScope = { kind: token.kind, email: token.email, classId: token.classId };
+  return db.transaction(async (tx) => {
+    const used = await tx
+      .update(oneTimeTokens)
+      .set({ usedAt: now })
+      .where(and(eq(oneTimeTokens.id, token.id), isNull(oneTimeTokens.usedAt), gt(oneTimeTokens.expiresAt, now)))
+      .returning({ id: oneTimeTokens.id });
+    if (used.length !== 1) return false;
+    await tx.update(oneTimeTokens).set({ expiresAt: now }).where(openInScope(scope, now));
+    return true;
+  });
+}

@@ -1,14 +1,6 @@
-/** `/api/auth/*` and `/api/me`: sessions, sign-up, invitations, passwords. */
+/** `/api/auth/*` and `/api/me`: sessions and passwords (sign-up and invitations: `signUp.ts`, `invitations.ts`). */
 import express, { type Response, type Router } from 'express';
-import {
-  AcceptInvitationRequestSchema,
-  ChangePasswordRequestSchema,
-  InvitationLookupRequestSchema,
-  PasswordResetConfirmSchema,
-  PasswordResetRequestSchema,
-  SignInRequestSchema,
-  SignUpRequestSchema,
-} from '@shared/api';
+import { ChangePasswordRequestSchema, PasswordResetConfirmSchema, PasswordResetRequestSchema, SignInRequestSchema } from '@shared/api';
 import type { AppContext } from '../context';
 import type { User } from '../db/users';
 import { clearSessionCookie, setSessionCookie } from '../auth/session';
@@ -31,7 +23,6 @@ function sendRefusal(res: Response, failure: Failure): void {
 
 export function authRouter(ctx: AppContext): Router {
   const router = express.Router();
-  const signUpLimit = addressLimit(ctx, 'signup', ctx.config.AUTH_RATE_LIMIT);
   const resetLimit = addressLimit(ctx, 'reset', ctx.config.AUTH_RATE_LIMIT);
 
   /** Opens a session for the user and answers `{ user }`. */
@@ -45,12 +36,6 @@ export function authRouter(ctx: AppContext): Router {
     const body = parse(SignInRequestSchema, req.body);
     if (!body.ok) return reply(res, body);
     await startSession(res, await accounts.signIn(ctx, body.value, req.ip ?? 'unknown'), 200);
-  });
-
-  router.post('/auth/sign-up', signUpLimit, async (req, res) => {
-    const body = parse(SignUpRequestSchema, req.body);
-    if (!body.ok) return reply(res, body);
-    await startSession(res, await accounts.signUp(ctx, body.value), 201);
   });
 
   // Open to anyone: signing out twice, or with a session that already ended, is not an error.
@@ -93,18 +78,6 @@ export function authRouter(ctx: AppContext): Router {
     const body = parse(PasswordResetConfirmSchema, req.body);
     if (!body.ok) return reply(res, body);
     reply(res, await passwords.confirmPasswordReset(ctx, body.value.token, body.value.password), 204);
-  });
-
-  router.post('/auth/invitations/lookup', signUpLimit, async (req, res) => {
-    const body = parse(InvitationLookupRequestSchema, req.body);
-    if (!body.ok) return reply(res, body);
-    reply(res, await accounts.lookupInvitation(ctx, body.value.token), 200, (invitation) => ({ invitation }));
-  });
-
-  router.post('/auth/invitations/accept', signUpLimit, async (req, res) => {
-    const body = parse(AcceptInvitationRequestSchema, req.body);
-    if (!body.ok) return reply(res, body);
-    await startSession(res, await accounts.acceptInvitation(ctx, body.value), 201);
   });
 
   return router;

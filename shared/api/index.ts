@@ -7,3 +7,4 @@ export * from './programs';
 export * from './classes';
 export * from './mail';
 export * from './labs';
+export * from './invitations';

@@ -1,11 +1,12 @@
 /**
  * Who is signed in. Loaded once from `GET /api/me` (a 401 there simply means "nobody"), then kept
- * up to date by sign-in, sign-up and sign-out. Route guards read it (see `router/guards.ts`).
- * Forgetting the user also empties the query cache (`SessionWatcher` → `cacheOwner.ts`).
+ * up to date by sign-in, accepted invitations, finished sign-ups and sign-out. Route guards read it
+ * (see `router/guards.ts`). Forgetting the user also empties the query cache (`SessionWatcher` →
+ * `cacheOwner.ts`).
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
-import type { SignInRequest, SignUpRequest, UserView } from '@shared/api';
+import type { SignInRequest, UserView } from '@shared/api';
 import { api } from '@/api/instance';
 import { accountsApi } from '@/api/authAccounts';
 import { bootReads } from '@/api/bootReads';
@@ -40,13 +41,7 @@ export const useSessionStore = defineStore('session', () => {
     return user.value;
   }
 
-  async function signUp(request: SignUpRequest): Promise<UserView> {
-    user.value = (await api.signUp(request)).user;
-    checked.value = true;
-    return user.value;
-  }
-
-  /** Another call signed this user in (accepting an invitation answers with the new user). */
+  /** Another call signed this user in (accepting an invitation or finishing a sign-up answers with the new user). */
   function signedInAs(signedIn: UserView): void {
     user.value = signedIn;
     checked.value = true;
@@ -85,5 +80,5 @@ export const useSessionStore = defineStore('session', () => {
     forget();
   }
 
-  return { user, checked, signedIn, refresh, ensure, signIn, signUp, signedInAs, signOut, signOutEverywhere, expire };
+  return { user, checked, signedIn, refresh, ensure, signIn, signedInAs, signOut, signOutEverywhere, expire };
 });
