@@ -125,6 +125,21 @@ export const TagSchema = z.object({
 });
 export type Tag = z.infer<typeof TagSchema>;
 
+/**
+ * How big a program may be, so that every tool that walks it (validation, layout, compile, export,
+ * the zod schema itself, which recurses once per level) does bounded work. Checked by
+ * `checkDocumentBounds` (`bounds.ts`) on the raw JSON before the schema runs, and by the editor
+ * after every edit. A lab program uses a few levels and tens of elements per rung.
+ */
+export const DOCUMENT_LIMITS = {
+  /** Series and parallel branches nested in one another; the rung's root series is level 1. */
+  depth: 32,
+  /** Network nodes (elements, series and parallel branches) in one rung. */
+  nodesPerRung: 500,
+  /** Network nodes in the whole program (5,000 rungs of ten nodes). */
+  nodesPerProgram: 50_000,
+} as const;
+
 export const ProgramSchema = z.object({
   format: z.literal(PROGRAM_FORMAT),
   version: z.literal(PROGRAM_VERSION),
