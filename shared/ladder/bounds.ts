@@ -56,6 +56,32 @@ function findNul(root: unknown, prefix: readonly (string | number)[]): BoundsPro
   return null;
 }
 
+/** Nodes in one rung's network, or the first limit it passes (`nodesSoFar`: nodes in the rungs before). */
+export function measureRung(rung: unknown, index: number, nodesSoFar = 0): { nodes: number; problem: BoundsProblem | null } {
+  if (!isObject(rung)) return { nodes: 0, problem: null };
+  const root: Pending = { value: rung.network, depth: 0, key: 'network', parent: { value: rung, depth: 0, key: index, parent: { value: null, depth: 0, key: 'rungs', parent: null } } };
+  const stack: Pending[] = [root];
+  let nodes = 0;
+  while (stack.length > 0) {
+    const entry = stack.pop()!;
+    if (!isObject(entry.value)) continue;
+    nodes += 1;
+    const children = childrenOf(entry.value);
+    const depth = children ? entry.depth + 1 : entry.depth;
+    let message: string | null = null;
+    if (depth > DOCUMENT_LIMITS.depth) message = `branches nest more than ${DOCUMENT_LIMITS.depth} levels deep in rung ${index + 1}`;
+    else if (nodes > DOCUMENT_LIMITS.nodesPerRung) message = `rung ${index + 1} has more than ${DOCUMENT_LIMITS.nodesPerRung} elements and branches`;
+    else if (nodesSoFar + nodes > DOCUMENT_LIMITS.nodesPerProgram) message = `the program has more than ${DOCUMENT_LIMITS.nodesPerProgram} elements and branches`;
+    if (message) return { nodes, problem: { path: pathOf(entry), message } };
+    if (children) {
+      for (let i = children.list.length - 1; i >= 0; i -= 1) {
+        stack.push({ value: children.list[i], depth, key: i, parent: { value: children.list, depth, key: children.key, parent: entry } });
+      }
+    }
+  }
+  return { nodes, problem: null };
+}
+
 /**
  * Checks `json` (a document as parsed from JSON, not yet trusted) against `DOCUMENT_LIMITS` and for
  * NUL characters; null when within bounds. Anything that is not shaped like a document is left for
@@ -63,37 +89,12 @@ function findNul(root: unknown, prefix: readonly (string | number)[]): BoundsPro
  */
 export function checkDocumentBounds(json: unknown): BoundsProblem | null {
   if (!isObject(json)) return null;
-  const rungs = json.rungs;
-  let total = 0;
-  if (Array.isArray(rungs)) {
-    for (let r = 0; r < rungs.length; r += 1) {
-      const rung = rungs[r];
-      if (!isObject(rung)) continue;
-      const root: Pending = { value: rung.network, depth: 0, key: 'network', parent: { value: rung, depth: 0, key: r, parent: { value: rungs, depth: 0, key: 'rungs', parent: null } } };
-      const stack: Pending[] = [root];
-      let inRung = 0;
-      while (stack.length > 0) {
-        const entry = stack.pop()!;
-        if (!isObject(entry.value)) continue;
-        inRung += 1;
-        total += 1;
-        const children = childrenOf(entry.value);
-        const depth = children ? entry.depth + 1 : entry.depth;
-        if (depth > DOCUMENT_LIMITS.depth) {
-          return { path: pathOf(entry), message: `branches nest more than ${DOCUMENT_LIMITS.depth} levels deep in rung ${r + 1}` };
-        }
-        if (inRung > DOCUMENT_LIMITS.nodesPerRung) {
-          return { path: pathOf(entry), message: `rung ${r + 1} has more than ${DOCUMENT_LIMITS.nodesPerRung} elements and branches` };
-        }
-        if (total > DOCUMENT_LIMITS.nodesPerProgram) {
-          return { path: pathOf(entry), message: `the program has more than ${DOCUMENT_LIMITS.nodesPerProgram} elements and branches` };
-        }
-        if (children) {
-          for (let i = children.list.length - 1; i >= 0; i -= 1) {
-            stack.push({ value: children.list[i], depth, key: i, parent: { value: children.list, depth, key: children.key, parent: entry } });
-          }
-        }
-      }
+  if (Array.isArray(json.rungs)) {
+    let total = 0;
+    for (let r = 0; r < json.rungs.length; r += 1) {
+      const measured = measureRung(json.rungs[r], r, total);
+      if (measured.problem) return measured.problem;
+      total += measured.nodes;
     }
   }
   return findNul(json, []);
