@@ -5,7 +5,9 @@
  *   (`perf_hooks.monitorEventLoopDelay`) while the export runs on the main thread, as the route
  *   did before (the same `exportJob` the worker runs, called in-process), and while it runs
  *   through the API with the worker pool (an in-process app on an in-memory database, so the
- *   monitor sees the server's own event loop). Target: under 50 ms through the API.
+ *   monitor sees the server's own event loop; another process asks for the file). The median of
+ *   three runs, beside the longest delay of an idle 2 s (the machine's own noise). Target: under
+ *   50 ms through the API.
  * - **`/api/health` while 20 heavy jobs run**: the real server process, four accounts each
  *   exporting their 5,000-rung program five times at once (20 PLCopen exports, ~1 s of CPU each),
  *   while a probe asks `/api/health` every 20 ms until they are done. Latency p50/p99/max of the
@@ -14,6 +16,7 @@
  * The 5,000-rung programs are written to the database directly: as JSON they are larger than the
  * API's 1 MB body limit.
  */
+import { spawn } from 'node:child_process';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { rmSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
@@ -86,6 +89,23 @@ async function longestBlock(work: () => Promise<unknown>): Promise<{ blockMs: nu
   return { blockMs: monitor.max / 1e6, wallMs };
 }
 
+/**
+ * The same export asked for by another process, so that receiving the 11.5 MB file does not run on
+ * the event loop being measured; resolves with the status.
+ */
+function exportFromChild(url: string, cookie: string, programId: string): Promise<number> {
+  const script = `fetch(${JSON.stringify(`${url}/api/programs/${programId}/versions/1/export?format=plcopen`)}, { headers: { cookie: ${JSON.stringify(cookie)} } }).then(async (r) => { await r.arrayBuffer(); process.stdout.write(String(r.status)); })`;
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, ['-e', script], { stdio: ['ignore', 'pipe', 'inherit'] });
+    let out = '';
+    child.stdout.on('data', (chunk: Buffer) => (out += chunk.toString()));
+    child.on('error', reject);
+    child.on('exit', () => resolve(Number(out)));
+  });
+}
+
+const RUNS = 3;
+
 async function eventLoopCase(): Promise<BenchCase> {
   const database = await openDatabase({ kind: 'memory' });
   const owned = await seedHeavyPrograms(database);
@@ -111,17 +131,31 @@ async function eventLoopCase(): Promise<BenchCase> {
       const file = exportJob({ documentJson: JSON.stringify(document), title: 'Bench plant', version: 1, format: 'plcopen', now: new Date().toISOString() });
       if (!file.ok) throw new Error(file.failure.message);
     });
-    const throughApi = await longestBlock(() => exportPlcopen(url, cookie, programId));
+    // The machine's own noise: the longest delay while nothing runs.
+    const idle = await longestBlock(() => sleep(2000));
+    const throughApi: { blockMs: number; wallMs: number }[] = [];
+    for (let run = 0; run < RUNS; run += 1) {
+      throughApi.push(
+        await longestBlock(async () => {
+          const status = await exportFromChild(url, cookie, programId);
+          if (status !== 200) throw new Error(`export answered ${status}`);
+        }),
+      );
+    }
+    const blocks = throughApi.map((r) => r.blockMs).sort((a, b) => a - b);
+    const medianBlockMs = blocks[Math.floor(blocks.length / 2)]!;
     return {
       case: 'health: event-loop block of one 5,000-rung PLCopen export',
       rungs: RUNGS,
       xmlBytes: first.bytes,
       mainThreadBlockMs: round(onMain.blockMs, 1),
       mainThreadWallMs: round(onMain.wallMs, 0),
-      workerPoolBlockMs: round(throughApi.blockMs, 1),
-      workerPoolWallMs: round(throughApi.wallMs, 0),
+      workerPoolBlockMs: round(medianBlockMs, 1),
+      workerPoolBlockRunsMs: throughApi.map((r) => round(r.blockMs, 1)).join(' '),
+      workerPoolWallMs: round(throughApi[0]!.wallMs, 0),
+      idleBlockMs: round(idle.blockMs, 1),
       targetBlockMs: BLOCK_TARGET_MS,
-      meetsTarget: throughApi.blockMs < BLOCK_TARGET_MS,
+      meetsTarget: medianBlockMs < BLOCK_TARGET_MS,
     };
   } finally {
     await new Promise<void>((resolve) => server.close(() => resolve()));
