@@ -123,9 +123,10 @@ async function eventLoopCase(): Promise<BenchCase> {
     const [email, programId] = [...owned.entries()][0]!;
     const cookie = await signIn(url, email);
     await pool.warm();
-    // Once through the API first: the version row is then in the row cache for both runs.
+    // Once through the API first: the version row is then in the row cache for both runs. On a
+    // machine busy enough to stretch the export past the worker's 5 s, it answers 422 (stopped):
+    // the statuses are reported with the figures.
     const first = await exportPlcopen(url, cookie, programId);
-    if (first.status !== 200) throw new Error(`export answered ${first.status}`);
     const document = documentWithRungs(RUNGS, 'Bench plant (5,000 rungs)');
     const onMain = await longestBlock(async () => {
       const file = exportJob({ documentJson: JSON.stringify(document), title: 'Bench plant', version: 1, format: 'plcopen', now: new Date().toISOString() });
@@ -134,20 +135,15 @@ async function eventLoopCase(): Promise<BenchCase> {
     // The machine's own noise: the longest delay while nothing runs.
     const idle = await longestBlock(() => sleep(2000));
     const throughApi: { blockMs: number; wallMs: number }[] = [];
-    for (let run = 0; run < RUNS; run += 1) {
-      throughApi.push(
-        await longestBlock(async () => {
-          const status = await exportFromChild(url, cookie, programId);
-          if (status !== 200) throw new Error(`export answered ${status}`);
-        }),
-      );
-    }
+    const statuses: number[] = [first.status];
+    for (let run = 0; run < RUNS; run += 1) throughApi.push(await longestBlock(async () => statuses.push(await exportFromChild(url, cookie, programId))));
     const blocks = throughApi.map((r) => r.blockMs).sort((a, b) => a - b);
     const medianBlockMs = blocks[Math.floor(blocks.length / 2)]!;
     return {
       case: 'health: event-loop block of one 5,000-rung PLCopen export',
       rungs: RUNGS,
       xmlBytes: first.bytes,
+      exportStatuses: statuses.join(' '),
       mainThreadBlockMs: round(onMain.blockMs, 1),
       mainThreadWallMs: round(onMain.wallMs, 0),
       workerPoolBlockMs: round(medianBlockMs, 1),
@@ -194,7 +190,7 @@ async function healthUnderLoadCase(): Promise<BenchCase> {
     const url = server.url;
     const cookies = new Map<string, string>();
     for (const email of owned.keys()) cookies.set(email, await signIn(url, email));
-    // Warm the pool and the row caches with one export per account.
+    // Warm the pool and the row caches with one export per account (a 422 on a busy machine too).
     for (const [email, id] of owned) await exportPlcopen(url, cookies.get(email)!, id);
 
     const idle = await probeHealth(url, sleep(3000));
