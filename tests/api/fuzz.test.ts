@@ -69,6 +69,8 @@ beforeAll(async () => {
     'submissions:id': [submitted.body.submission.id as string],
     attachmentId: [attachmentId],
     userId: [cast.studentB.user.id],
+    // Admin actions on an account (deactivate, reset link) act on a spare one, not on a caller.
+    'users:id': [leaver.id],
   };
   throwaway = { ...ids, 'programs:id': [spareProgram], 'labs:id': [spare.labId], attachmentId: [spareAttachment], 'classes:id': [cast.otherClassId], userId: [leaver.id] };
   const version = { programId: ref.programId, version: ref.version };
@@ -80,6 +82,17 @@ beforeAll(async () => {
     'POST /api/auth/password-reset/confirm': { token: 'x'.repeat(43), password: 'a-long-enough-password' },
     'POST /api/auth/invitations/lookup': { token: 'x'.repeat(43) },
     'POST /api/auth/invitations/accept': { token: 'x'.repeat(43), name: 'Invited', password: 'a-long-enough-password' },
+    // Ends the caller's sessions when it succeeds: later cases of that caller then fuzz as a stranger.
+    'POST /api/auth/sign-out-everywhere': {},
+    // A wrong current password: valid in shape, changes nothing.
+    'POST /api/auth/password': { currentPassword: 'not-the-password', newPassword: 'a-long-enough-password' },
+    'POST /api/auth/sign-up/lookup': { token: 'x'.repeat(43) },
+    'POST /api/auth/sign-up/finish': { token: 'x'.repeat(43), name: 'New Student', password: 'a-long-enough-password' },
+    'POST /api/auth/invitations/join': { token: 'x'.repeat(43) },
+    'POST /api/classes/:id/invitations': { email: 'hand.added@test.example', name: 'Hand Added' },
+    'POST /api/admin/users/:id/deactivate': {},
+    'POST /api/admin/users/:id/reactivate': {},
+    'POST /api/admin/users/:id/password-reset': {},
     'POST /api/admin/instructor-invitations': { email: 'new.teacher@test.example', name: 'New Teacher' },
     'POST /api/programs': { title: 'Fuzzed', document: documentWithRungs(2), labId },
     'PATCH /api/programs/:id': { title: 'Renamed' },
