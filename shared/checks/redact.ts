@@ -102,6 +102,8 @@ function renumber(report: GradeReport, scanMs: number | null): Renumbered {
       return;
     }
     studentStep += 1;
+    // A check that spans time (a `during`, an `until`) logs the events of its span under its own step.
+    stepOf.set(check.index, studentStep);
     visible.push({ ...check, index: studentStep, steps: words });
     words = [];
     lastWait = null;
