@@ -1,5 +1,5 @@
 /**
- * The check-script format (DESIGN.md "Check scripts"): JSON that presses buttons, waits in virtual
+ * The check-script format (docs/check-scripts.md): JSON that presses buttons, waits in virtual
  * time and asserts what the panel and the program show. The zod schemas are the contract and give
  * the TypeScript types; `parseCheckScript` reads a script step by step so that every error names
  * the step, the field and what was expected (`step 4: "wait" needs a whole number of ms …`).

@@ -136,7 +136,7 @@ describe('redactReport', () => {
   });
 });
 
-describe('the example script of DESIGN.md', () => {
+describe('the example script of docs/check-scripts.md', () => {
   it('passes on the three-wire reference solution, the hidden overload check included', () => {
     const example = {
       panel: 'reversing-conveyor',

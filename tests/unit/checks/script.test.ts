@@ -16,7 +16,7 @@ const fit = (json: unknown): string[] => {
 };
 
 describe('parseCheckScript', () => {
-  it('accepts the example of DESIGN.md and fills in the defaults', () => {
+  it('accepts the example of docs/check-scripts.md and fills in the defaults', () => {
     const r = parseCheckScript({
       panel: 'reversing-conveyor',
       scanMs: 10,
