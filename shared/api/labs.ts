@@ -162,7 +162,7 @@ export const CreateLabRequestSchema = z.strictObject({
   brief: LabBriefSchema.optional(),
   panel: LabPanelSchema.optional(),
   starter: LabStarterChoiceSchema.optional(),
-  /** A check script (DESIGN.md "Check scripts"), checked step by step and against the panel. */
+  /** A check script (docs/check-scripts.md), checked step by step and against the panel. */
   script: z.unknown().refine((v) => v !== undefined, 'a lab needs a check script'),
   totalPoints: TotalPointsSchema.optional(),
   dueAt: DueAtSchema.optional(),
