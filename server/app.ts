@@ -35,6 +35,8 @@ import { labsRouter } from './routes/labs';
 import { labAttachmentsRouter } from './routes/labAttachments';
 import { submissionsRouter } from './routes/submissions';
 import { gradebookRouter } from './routes/gradebook';
+import { teachingRouter } from './routes/teaching';
+import { adminConsoleRouter } from './routes/adminConsole';
 
 /** What `createApp` needs. */
 export interface AppDependencies {
@@ -72,6 +74,7 @@ export function createApp(deps: AppDependencies): Express {
     passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
     grader,
     documents,
+    backup: deps.db.driver === 'pglite' ? () => deps.db.dump() : null,
   };
 
   const app = express();
@@ -103,6 +106,8 @@ export function createApp(deps: AppDependencies): Express {
   api.use(labsRouter(ctx));
   api.use(submissionsRouter(ctx));
   api.use(gradebookRouter(ctx));
+  api.use(teachingRouter(ctx));
+  api.use(adminConsoleRouter(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -22,4 +22,6 @@ export interface AppContext {
   grader: Grader;
   /** Exports and imports program files off the main thread (the same pool). */
   documents: DocumentWork;
+  /** A tar of the whole database (PGlite's dump of its data directory) for the admin's backup; null where the database is elsewhere. */
+  backup: (() => Promise<Blob>) | null;
 }

@@ -111,3 +111,10 @@ export async function countUsers(db: Db): Promise<number> {
 export async function listUsers(db: Db): Promise<User[]> {
   return db.select(publicColumns).from(users).orderBy(users.email);
 }
+
+/** Gives an account another role; the user as it now is, or null when there is no such user. */
+export async function setRole(db: Db, id: string, role: User['role']): Promise<User | null> {
+  const rows = await db.update(users).set({ role }).where(eq(users.id, id)).returning(publicColumns);
+  rowCachesOf(db)?.users.drop(id);
+  return rows[0] ?? null;
+}

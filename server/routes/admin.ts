@@ -4,6 +4,7 @@
  */
 import express, { type Router } from 'express';
 import { InviteInstructorRequestSchema } from '@shared/api';
+import { MailSearchQuerySchema } from '@shared/api/administration';
 import type { AppContext } from '../context';
 import { currentUser, requireRole } from '../http/authenticate';
 import { parse, parseId, reply } from '../http/reply';
@@ -46,12 +47,14 @@ export function adminRouter(ctx: AppContext): Router {
     reply(res, await inviteInstructor(ctx, body.value.email, body.value.name ?? null), 201, (invitation) => ({ invitation }));
   });
 
-  router.get('/dev/mail', requireRole('admin'), async (_req, res) => {
+  router.get('/dev/mail', requireRole('admin'), async (req, res) => {
     if (ctx.mailer.kind !== 'local-fake') {
       sendFailure(res, { code: 'mail_disabled', message: 'SMTP_URL is set, so mail goes to the real server and no local copy is kept' });
       return;
     }
-    const mail = await listSentMail(ctx.orm);
+    const query = parse(MailSearchQuerySchema, req.query);
+    if (!query.ok) return reply(res, query);
+    const mail = await listSentMail(ctx.orm, 200, query.value.q?.trim() || null);
     res.json({ mail: mail.map((m) => ({ ...m, receivedAt: iso(m.receivedAt) })) });
   });
 

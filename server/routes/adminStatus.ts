@@ -1,6 +1,7 @@
 /**
- * `GET /api/admin/status` (admin only): the demo accounts that can still sign in. Their passwords
- * are in the README, so the admin page warns while any exists.
+ * `GET /api/admin/status` (admin only): the demo accounts that can still sign in (their passwords
+ * are in the README, so the admin page warns while any exists), where mail goes and whether the
+ * database can be backed up from here.
  */
 import express, { type Router } from 'express';
 import type { AdminStatus } from '@shared/api/adminStatus';
@@ -11,7 +12,11 @@ import { listActiveDemoUsers } from '../db/demoUsers';
 export function adminStatusRouter(ctx: AppContext): Router {
   const router = express.Router();
   router.get('/admin/status', requireRole('admin'), async (_req, res) => {
-    const body: AdminStatus = { demoAccounts: await listActiveDemoUsers(ctx.orm) };
+    const body: AdminStatus = {
+      demoAccounts: await listActiveDemoUsers(ctx.orm),
+      mailbox: ctx.mailer.kind === 'local-fake' ? 'local' : 'smtp',
+      backup: ctx.backup !== null,
+    };
     res.json(body);
   });
   return router;

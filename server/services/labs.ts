@@ -69,6 +69,10 @@ export async function createLab(ctx: AppContext, actor: User, classId: string, r
   const starter = await resolveStarter(ctx, actor, req.starter ?? { kind: 'empty' });
   if (!starter.ok) return starter;
   const now = ctx.clock.now();
+  // A lab weighs what its checks are worth unless the instructor scales it: a default of 100 for
+  // checks worth 5 would outweigh every other lab in the class total.
+  const run = labRun(panel, req.script);
+  const checkPoints = run.ok ? countChecks(run.value.script).maxScore : 0;
   const lab = await db.insertLab(ctx.orm, {
     classId,
     authorId: actor.id,
@@ -78,7 +82,7 @@ export async function createLab(ctx: AppContext, actor: User, classId: string, r
     panel,
     ...starter.value,
     checkScript: req.script,
-    totalPoints: req.totalPoints ?? 100,
+    totalPoints: req.totalPoints ?? Math.min(1000, Math.max(1, checkPoints)),
     dueAt: req.dueAt ? new Date(req.dueAt) : null,
     latePolicy: req.latePolicy ?? { kind: 'accept' },
     createdAt: now,

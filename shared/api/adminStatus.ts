@@ -13,5 +13,9 @@ export type DemoAccountView = z.infer<typeof DemoAccountViewSchema>;
 export const AdminStatusSchema = z.object({
   /** Demo accounts that are not deactivated, admins first; empty on a real install. */
   demoAccounts: z.array(DemoAccountViewSchema),
+  /** `local`: mail goes to the local mailbox (SMTP_URL unset), which the console shows; `smtp`: to a real relay. */
+  mailbox: z.enum(['local', 'smtp']),
+  /** Whether `GET /api/admin/backup` can dump the database (PGlite); a PostgreSQL server is backed up there. */
+  backup: z.boolean(),
 });
 export type AdminStatus = z.infer<typeof AdminStatusSchema>;

@@ -155,7 +155,7 @@ export const LabListItemSchema = z.object({
 export type LabListItem = z.infer<typeof LabListItemSchema>;
 export const LabListSchema = z.object({ labs: z.array(LabListItemSchema) });
 
-/** `POST /api/classes/:id/labs`. Defaults: empty brief, built-in default panel, empty starter, 100 points, no due date, accept late. */
+/** `POST /api/classes/:id/labs`. Defaults: empty brief, built-in default panel, empty starter, total points = the checks' points (the sum of their `points`), no due date, accept late. */
 export const CreateLabRequestSchema = z.strictObject({
   title: LabTitleSchema,
   summary: LabSummarySchema.optional(),
@@ -386,7 +386,18 @@ export const RegradeResponseSchema = z.object({ regraded: z.number().int(), limi
 
 // ── Gradebook ─────────────────────────────────────────────────────────────────────────────────
 
-export const GradebookLabSchema = z.object({ id: z.string(), title: z.string(), totalPoints: z.number().int(), dueAt: z.string().nullable(), published: z.boolean() });
+/**
+ * A lab's column. Its weight in the class total is `totalPoints`, which defaults to what its checks
+ * are worth (`checkPoints`); an instructor who sets another total scales the lab.
+ */
+export const GradebookLabSchema = z.object({
+  id: z.string(),
+  title: z.string(),
+  totalPoints: z.number().int(),
+  checkPoints: z.number().int(),
+  dueAt: z.string().nullable(),
+  published: z.boolean(),
+});
 /** One student × lab: the final score of the newest submission, or null when none. */
 export const GradebookCellSchema = z.object({
   labId: z.string(),
@@ -394,6 +405,10 @@ export const GradebookCellSchema = z.object({
   finalScore: z.number().nullable(),
   status: SubmissionStatusSchema.nullable(),
   late: z.boolean(),
+  /** Whole days (each started one) after the due date; 0 when on time or nothing was submitted. */
+  lateDays: z.number().int(),
+  /** The late penalty taken from the auto score, in %. */
+  penaltyPercent: z.number(),
 });
 export const GradebookRowSchema = z.object({
   student: SubmissionStudentSchema,
@@ -402,7 +417,7 @@ export const GradebookRowSchema = z.object({
   total: z.number(),
   possible: z.number().int(),
 });
-/** `GET /api/classes/:id/gradebook`: `cells` are in the order of `labs`. CSV: `GET /api/classes/:id/gradebook.csv`. */
+/** `GET /api/classes/:id/gradebook`: labs in due order (undated last); `cells` in the order of `labs`. CSV: `GET /api/classes/:id/gradebook.csv`. */
 export const GradebookSchema = z.object({
   class: z.object({ id: z.string(), name: z.string(), term: z.string() }),
   labs: z.array(GradebookLabSchema),

@@ -22,7 +22,7 @@ describe('GET /api/admin/status on a real install (no demo data)', () => {
   it('lists no demo account, and is never cached', async () => {
     const res = await call(t, 'get', '/api/admin/status', admin.cookie);
     expect(res.status).toBe(200);
-    expect(AdminStatusSchema.parse(res.body)).toEqual({ demoAccounts: [] });
+    expect(AdminStatusSchema.parse(res.body)).toEqual({ demoAccounts: [], mailbox: 'local', backup: true });
     expect(res.headers['cache-control']).toBe('no-store');
   });
 

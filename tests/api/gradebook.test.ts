@@ -37,10 +37,12 @@ describe('gradebook', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="?gradebook-motor-control-1-fall-2026\.csv"?$/);
-    expect(res.text).toContain('"Fwd/Rev, ""interlocked"" (14)"');
+    expect(res.text).toContain('"Fwd/Rev, ""interlocked"" (/14)"');
     const parsed = Papa.parse<string[]>(res.text.trim());
-    expect(parsed.data[0]).toEqual(['Student', 'E-mail', 'Fwd/Rev, "interlocked" (14)', 'Total', 'Possible']);
-    expect(parsed.data.find((r) => r[1] === cast.studentA.user.email)).toEqual(['student.a', cast.studentA.user.email, '14', '14', '14']);
+    // Keyed by e-mail in the first column, as grade imports match accounts; late days and penalty beside each score.
+    expect(parsed.data[0]).toEqual(['Email', 'Student', 'Fwd/Rev, "interlocked" (/14)', 'Fwd/Rev, "interlocked": late days', 'Fwd/Rev, "interlocked": late penalty %', 'Total', 'Possible']);
+    expect(parsed.data.find((r) => r[0] === cast.studentA.user.email)).toEqual([cast.studentA.user.email, 'student.a', '14', '0', '0', '14', '14']);
+    expect(parsed.data.find((r) => r[0] === cast.studentB.user.email)).toEqual([cast.studentB.user.email, 'student.b', '', '', '', '0', '14']);
   });
 });
 

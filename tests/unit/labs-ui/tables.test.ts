@@ -9,15 +9,15 @@ import { filterSubmissions } from '@/components/labs/submissionTable';
 const book: Gradebook = {
   class: { id: 'c1', name: 'Motor Control 1 (demo)', term: 'Demo term' },
   labs: [
-    { id: 'l1', title: 'Two-wire control', totalPoints: 10, dueAt: null, published: true },
-    { id: 'l2', title: 'Three-wire, sealed', totalPoints: 20, dueAt: null, published: true },
+    { id: 'l1', title: 'Two-wire control', totalPoints: 10, checkPoints: 5, dueAt: null, published: true },
+    { id: 'l2', title: 'Three-wire, sealed', totalPoints: 20, checkPoints: 20, dueAt: null, published: true },
   ],
   rows: [
     {
       student: { id: 's1', name: 'Reyes, Ana', email: 'ana@larch-hollow.example' },
       cells: [
-        { labId: 'l1', submissionId: 'x', finalScore: 9.5, status: 'returned', late: false },
-        { labId: 'l2', submissionId: null, finalScore: null, status: null, late: false },
+        { labId: 'l1', submissionId: 'x', finalScore: 9.5, status: 'returned', late: true, lateDays: 2, penaltyPercent: 10 },
+        { labId: 'l2', submissionId: null, finalScore: null, status: null, late: false, lateDays: 0, penaltyPercent: 0 },
       ],
       total: 9.5,
       possible: 30,
@@ -26,19 +26,30 @@ const book: Gradebook = {
 };
 
 describe('the gradebook export', () => {
-  it('has a column per lab in the gradebook’s order, then the total and the possible points', () => {
+  it('is keyed by e-mail, with score, late days and penalty per lab in the gradebook’s order, then the total and the possible points', () => {
     expect(gradebookTable(book)).toEqual([
-      ['Student', 'E-mail', 'Two-wire control (/10)', 'Three-wire, sealed (/20)', 'Total', 'Possible'],
-      ['Reyes, Ana', 'ana@larch-hollow.example', 9.5, '', 9.5, 30],
+      [
+        'Email',
+        'Student',
+        'Two-wire control (/10)',
+        'Two-wire control: late days',
+        'Two-wire control: late penalty %',
+        'Three-wire, sealed (/20)',
+        'Three-wire, sealed: late days',
+        'Three-wire, sealed: late penalty %',
+        'Total',
+        'Possible',
+      ],
+      ['ana@larch-hollow.example', 'Reyes, Ana', 9.5, 2, 10, '', '', '', 9.5, 30],
     ]);
   });
 
   it('quotes fields with commas as RFC 4180 section 2 requires, and reads back the same cells', () => {
     const csv = gradebookToCsv(book);
-    expect(csv.split('\r\n')[1]).toBe('"Reyes, Ana",ana@larch-hollow.example,9.5,,9.5,30');
+    expect(csv.split('\r\n')[1]).toBe('ana@larch-hollow.example,"Reyes, Ana",9.5,2,10,,,,9.5,30');
     const back = Papa.parse<string[]>(csv, { skipEmptyLines: true }).data;
-    expect(back[0]![3]).toBe('Three-wire, sealed (/20)');
-    expect(back[1]).toEqual(['Reyes, Ana', 'ana@larch-hollow.example', '9.5', '', '9.5', '30']);
+    expect(back[0]![5]).toBe('Three-wire, sealed (/20)');
+    expect(back[1]).toEqual(['ana@larch-hollow.example', 'Reyes, Ana', '9.5', '2', '10', '', '', '', '9.5', '30']);
   });
 });
 

@@ -11,14 +11,14 @@ import { gradebookToCsv } from '@/components/labs/gradebookCsv';
 
 const student = (name: string, email = 'student@larch-hollow.example') => ({
   student: { id: name, name, email },
-  cells: [{ labId: 'l1', submissionId: null, finalScore: 7, status: 'graded' as const, late: false }],
+  cells: [{ labId: 'l1', submissionId: 's1', finalScore: 7, status: 'graded' as const, late: false, lateDays: 0, penaltyPercent: 0 }],
   total: 7,
   possible: 10,
 });
 
 const book: Gradebook = {
   class: { id: 'c1', name: 'Motor Control 1 (demo)', term: 'Demo term' },
-  labs: [{ id: 'l1', title: '=Lab 1', totalPoints: 10, dueAt: null, published: true }],
+  labs: [{ id: 'l1', title: '=Lab 1', totalPoints: 10, checkPoints: 10, dueAt: null, published: true }],
   rows: [
     student('=HYPERLINK("http://evil.example","x")'),
     student('+1+1'),
@@ -43,7 +43,7 @@ describe.each([
   const rows = cells(toCsv(book));
 
   it('writes every name starting with =, +, -, @, tab or CR as text behind a single quote', () => {
-    expect(rows.slice(1, 7).map((r) => r[0])).toEqual([
+    expect(rows.slice(1, 7).map((r) => r[1])).toEqual([
       '\'=HYPERLINK("http://evil.example","x")',
       "'+1+1",
       "'-2+3",
@@ -54,14 +54,15 @@ describe.each([
   });
 
   it('guards e-mail addresses and lab titles in the header too, and quotes each guarded cell', () => {
-    expect(rows[7]![1]).toBe("'=cmd@larch-hollow.example");
-    expect(rows[0]![2]).toMatch(/^'=Lab 1 \(\/?10\)$/);
+    expect(rows[7]![0]).toBe("'=cmd@larch-hollow.example");
+    expect(rows[0]![2]).toBe("'=Lab 1 (/10)");
+    expect(rows[0]![3]).toBe("'=Lab 1: late days");
     expect(toCsv(book)).toContain('"\'+1+1"');
   });
 
   it('leaves ordinary names and the scores as they are', () => {
-    expect(rows[8]![0]).toBe('Plain Name');
-    expect(rows[7]![0]).toBe('Reyes, Ana');
-    expect(rows[8]!.slice(2)).toEqual(['7', '7', '10']);
+    expect(rows[8]![1]).toBe('Plain Name');
+    expect(rows[7]![1]).toBe('Reyes, Ana');
+    expect(rows[8]!.slice(2)).toEqual(['7', '0', '0', '7', '10']);
   });
 });
