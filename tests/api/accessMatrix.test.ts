@@ -40,6 +40,9 @@ interface Scene extends StudentWork {
   inviteNew: string;
   /** An open link to finish signing up an address with no account into class A. */
   signUpNew: string;
+  /** Ids of an open class-A invitation to an address with no account, and of an open instructor invitation. */
+  classInvitationId: string;
+  instructorInvitationId: string;
   n: number;
 }
 
@@ -248,6 +251,13 @@ const ROWS: Row[] = [
   { route: 'GET /api/classes/:id/gradebook', send: (t, c, s) => call(t, 'get', `/api/classes/${s.classA}/gradebook`, c), expect: gradesA(200) },
   { route: 'GET /api/classes/:id/gradebook.csv', send: (t, c, s) => call(t, 'get', `/api/classes/${s.classA}/gradebook.csv`, c), expect: gradesA(200) },
   { route: 'GET /api/classes/:id/gradebook (class B)', send: (t, c, s) => call(t, 'get', `/api/classes/${s.classB}/gradebook`, c), expect: gradesB(200) },
+  { route: 'GET /api/classes/:id/overview', send: (t, c, s) => call(t, 'get', `/api/classes/${s.classA}/overview`, c), expect: gradesA(200) },
+  { route: 'GET /api/classes/:id/overview (class B)', send: (t, c, s) => call(t, 'get', `/api/classes/${s.classB}/overview`, c), expect: gradesB(200) },
+  // Resending or cancelling an invitation: the class's (its instructor and admins); an account invitation is the admins'.
+  { route: 'POST /api/invitations/:id/resend (class A)', send: (t, c, s) => call(t, 'post', `/api/invitations/${s.classInvitationId}/resend`, c).send({}), expect: only(201, ['teacherA', 'admin']) },
+  { route: 'POST /api/invitations/:id/cancel (class A)', send: (t, c, s) => call(t, 'post', `/api/invitations/${s.classInvitationId}/cancel`, c).send({}), expect: only(200, ['teacherA', 'admin']) },
+  { route: 'POST /api/invitations/:id/resend (instructor)', send: (t, c, s) => call(t, 'post', `/api/invitations/${s.instructorInvitationId}/resend`, c).send({}), expect: only(201, ['admin']) },
+  { route: 'POST /api/invitations/:id/cancel (instructor)', send: (t, c, s) => call(t, 'post', `/api/invitations/${s.instructorInvitationId}/cancel`, c).send({}), expect: only(200, ['admin']) },
 
   // Administration.
   { route: 'GET /api/admin/users', send: (t, c) => call(t, 'get', '/api/admin/users', c), expect: adminOnly(200) },
@@ -257,6 +267,15 @@ const ROWS: Row[] = [
     expect: adminOnly(201),
   },
   { route: 'GET /api/dev/mail', send: (t, c) => call(t, 'get', '/api/dev/mail', c), expect: adminOnly(200) },
+  { route: 'GET /api/dev/mail?q=', send: (t, c) => call(t, 'get', '/api/dev/mail?q=invited', c), expect: adminOnly(200) },
+  { route: 'GET /api/admin/usage', send: (t, c) => call(t, 'get', '/api/admin/usage', c), expect: adminOnly(200) },
+  { route: 'GET /api/admin/invitations', send: (t, c) => call(t, 'get', '/api/admin/invitations', c), expect: adminOnly(200) },
+  { route: 'GET /api/admin/backup', send: (t, c) => call(t, 'get', '/api/admin/backup', c), expect: adminOnly(200) },
+  {
+    route: 'POST /api/admin/users/:id/role',
+    send: async (t, c, s) => call(t, 'post', `/api/admin/users/${(await spareAccount(t, s)).id}/role`, c).send({ role: 'instructor' }),
+    expect: adminOnly(200),
+  },
   {
     route: 'POST /api/admin/users/:id/deactivate',
     send: async (t, c, s) => call(t, 'post', `/api/admin/users/${(await spareAccount(t, s)).id}/deactivate`, c),
@@ -321,6 +340,15 @@ const ROWS: Row[] = [
   { route: 'GET /api/labs/:id/submissions', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labA}/submissions`, c), expect: gradesA(200) },
   { route: 'GET /api/labs/:id/submissions (lab B)', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labB}/submissions`, c), expect: gradesB(200) },
   { route: 'POST /api/labs/:id/regrade', send: (t, c, s) => call(t, 'post', `/api/labs/${s.labA}/regrade`, c).send({}), expect: gradesA(200) },
+  { route: 'GET /api/labs/:id/students', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labA}/students`, c), expect: gradesA(200) },
+  { route: 'GET /api/labs/:id/students (lab B)', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labB}/students`, c), expect: gradesB(200) },
+  { route: 'POST /api/labs/:id/return-graded', send: (t, c, s) => call(t, 'post', `/api/labs/${s.labA}/return-graded`, c).send({ note: 'Well done' }), expect: gradesA(200) },
+  { route: 'GET /api/labs/:id/similar', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labA}/similar`, c), expect: gradesA(200) },
+  {
+    route: 'GET /api/labs/:id/similar/pair',
+    send: (t, c, s) => call(t, 'get', `/api/labs/${s.labA}/similar/pair?a=${s.submissionA}&b=${s.submissionA}`, c),
+    expect: gradesA(200),
+  },
   {
     route: 'POST /api/labs/:id/attachments',
     send: (t, c, s) => call(t, 'post', `/api/labs/${s.labA}/attachments`, c).attach('file', PNG, { filename: 'wiring.png', contentType: 'image/png' }),
@@ -356,10 +384,15 @@ afterAll(() => t.close());
 
 /** An open invitation (or sign-up link) to class A for `email`; answers the token. */
 async function invitation(email: string, kind: 'invite' | 'signup' = 'invite'): Promise<string> {
+  return (await invitationRow(email, kind, room.classA.id)).token;
+}
+
+/** An open invitation to class A (or, with `classId` null, to an instructor account); its token and row id. */
+async function invitationRow(email: string, kind: 'invite' | 'signup', classId: string | null): Promise<{ token: string; id: string }> {
   const { token } = newToken();
   const now = t.clock.now();
-  await issueScopedToken(t.database.orm, { kind, tokenHash: hashToken(token), email, role: 'student', classId: room.classA.id, invitedName: 'New Person', expiresAt: new Date(now.getTime() + INVITE_TOKEN_MS), now });
-  return token;
+  const row = await issueScopedToken(t.database.orm, { kind, tokenHash: hashToken(token), email, role: classId ? 'student' : 'instructor', classId, invitedName: 'New Person', expiresAt: new Date(now.getTime() + INVITE_TOKEN_MS), now });
+  return { token, id: row.id };
 }
 
 async function scene(n: number): Promise<Scene> {
@@ -378,6 +411,8 @@ async function scene(n: number): Promise<Scene> {
     inviteTeacherB: await invitation(room.people.teacherB.user.email),
     inviteNew: await invitation(`invited${n}@test.example`),
     signUpNew: await invitation(`signing.up${n}@test.example`, 'signup'),
+    classInvitationId: (await invitationRow(`by.hand${n}@test.example`, 'invite', room.classA.id)).id,
+    instructorInvitationId: (await invitationRow(`new.teacher${n}@test.example`, 'invite', null)).id,
     n,
   };
 }

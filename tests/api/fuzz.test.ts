@@ -60,6 +60,9 @@ beforeAll(async () => {
   const spareAttachment = await uploadAttachment(spare.labId);
   const spareProgram = await createProgramAs(t, cast.studentB, 'Spare');
   const leaver = await addUser(t, 'leaver@test.example', 'student');
+  const invited = await call(t, 'post', `/api/classes/${cast.classId}/invitations`, cast.instructor.cookie).send({ email: 'fuzz.invited@test.example', name: 'Fuzz Invited' });
+  expect(invited.status, invited.text).toBe(201);
+  const invitationId = ((await call(t, 'get', '/api/admin/invitations', cast.admin.cookie)).body.invitations as { id: string; email: string }[]).find((i) => i.email === 'fuzz.invited@test.example')!.id;
   await enrol(t.database.orm, cast.otherClassId, leaver.id, t.clock.now());
   ids = {
     'programs:id': [solutionId, ref.programId],
@@ -71,6 +74,7 @@ beforeAll(async () => {
     userId: [cast.studentB.user.id],
     // Admin actions on an account (deactivate, reset link) act on a spare one, not on a caller.
     'users:id': [leaver.id],
+    'invitations:id': [invitationId],
   };
   throwaway = { ...ids, 'programs:id': [spareProgram], 'labs:id': [spare.labId], attachmentId: [spareAttachment], 'classes:id': [cast.otherClassId], userId: [leaver.id] };
   const version = { programId: ref.programId, version: ref.version };
@@ -124,6 +128,10 @@ beforeAll(async () => {
     'POST /api/submissions/:id/override': { score: 5, reason: 'fuzz' },
     'PUT /api/submissions/:id/feedback': { feedback: 'fine' },
     'POST /api/submissions/:id/return': { feedback: 'fine' },
+    'POST /api/admin/users/:id/role': { role: 'student' },
+    'POST /api/labs/:id/return-graded': { note: 'fine' },
+    'POST /api/invitations/:id/resend': {},
+    'POST /api/invitations/:id/cancel': {},
   };
 }, 120_000);
 afterAll(async () => {
