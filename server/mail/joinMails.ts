@@ -6,6 +6,7 @@
  * never do.
  */
 import type { OutgoingMail } from './mailer';
+import { mailDate } from './dates';
 import { compose } from './templates';
 
 /** A class invitation to an address with an account: the link joins the class once signed in as it. */
@@ -16,7 +17,7 @@ export function classInvitationForAccountMail(a: { to: string; baseUrl: string; 
     [
       `You have been invited to join the class "${a.className}" on Rungwright.`,
       'This address has a Rungwright account already: open the link, sign in with this address if you are not signed in, and choose to join the class. Nothing changes until you do.',
-      `The link works once and until ${a.expiresAt.toISOString()}.`,
+      `The link works once and until ${mailDate(a.expiresAt)}.`,
     ],
     { url: `${a.baseUrl}/accept-invitation#token=${a.token}`, label: 'Join the class' },
   );
@@ -29,7 +30,7 @@ export function finishSignUpMail(a: { to: string; baseUrl: string; token: string
     'Finish creating your Rungwright account',
     [
       `Someone, probably you, asked to create a Rungwright account with this address and join the class "${a.className}".`,
-      `Open the link to choose your password; your account is made and joins the class then. The link works once and until ${a.expiresAt.toISOString()}.`,
+      `Open the link to choose your password; your account is made and joins the class then. The link works once and until ${mailDate(a.expiresAt)}.`,
       'If it was not you, ignore this message: no account is made.',
     ],
     { url: `${a.baseUrl}/join/finish#token=${a.token}`, label: 'Choose your password' },

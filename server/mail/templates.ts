@@ -4,6 +4,7 @@
  * out of access logs.
  */
 import type { OutgoingMail } from './mailer';
+import { mailDate } from './dates';
 
 function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
@@ -25,7 +26,7 @@ export function invitationMail(a: { to: string; baseUrl: string; token: string; 
   return compose(
     a.to,
     a.className ? `You are invited to ${a.className}` : 'Your Rungwright invitation',
-    [`You have been invited to ${what}.`, `The link works once and until ${a.expiresAt.toISOString()}.`],
+    [`You have been invited to ${what}.`, `The link works once and until ${mailDate(a.expiresAt)}.`],
     { url: `${a.baseUrl}/accept-invitation#token=${a.token}`, label: 'Set your password' },
   );
 }
@@ -40,7 +41,7 @@ export function passwordResetMail(a: { to: string; baseUrl: string; token: strin
 }
 
 export function labPublishedMail(a: { to: string; baseUrl: string; className: string; labTitle: string; labId: string; dueAt: Date | null }): OutgoingMail {
-  const due = a.dueAt ? `It is due ${a.dueAt.toISOString()}.` : 'It has no due date.';
+  const due = a.dueAt ? `It is due ${mailDate(a.dueAt)}.` : 'It has no due date.';
   return compose(a.to, `New lab in ${a.className}: ${a.labTitle}`, [`A new lab, "${a.labTitle}", is open in ${a.className}.`, due], {
     url: `${a.baseUrl}/labs/${a.labId}`,
     label: 'Open the lab',
@@ -48,7 +49,7 @@ export function labPublishedMail(a: { to: string; baseUrl: string; className: st
 }
 
 export function submissionReturnedMail(a: { to: string; baseUrl: string; labTitle: string; labId: string; finalScore: number | null; totalPoints: number; feedback: string | null }): OutgoingMail {
-  const score = a.finalScore === null ? 'It has no score.' : `Your score: ${a.finalScore} of ${a.totalPoints} points.`;
+  const score = a.finalScore === null ? 'It has no score.' : `Your score: ${a.finalScore} of ${a.totalPoints} ${a.totalPoints === 1 ? 'point' : 'points'}.`;
   const paragraphs = [`Your submission to "${a.labTitle}" was returned.`, score];
   if (a.feedback) paragraphs.push(`Feedback: ${a.feedback}`);
   return compose(a.to, `Returned: ${a.labTitle}`, paragraphs, { url: `${a.baseUrl}/labs/${a.labId}`, label: 'See the grade report' });
