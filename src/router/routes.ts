@@ -51,6 +51,25 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Workbench' },
   },
   {
+    path: '/overview',
+    name: 'overview',
+    component: () => import('../views/OverviewView.vue'),
+    meta: { roles: ['instructor', 'admin'], title: 'Your classes this week' },
+  },
+  {
+    path: '/labs/:labId/similar',
+    name: 'lab-similar',
+    component: () => import('../views/SimilarSubmissionsView.vue'),
+    props: true,
+    meta: { roles: ['instructor', 'admin'], title: 'Similar submissions' },
+  },
+  {
+    path: '/admin/mail',
+    name: 'admin-mail',
+    component: () => import('../views/MailboxView.vue'),
+    meta: { roles: ['admin'], title: 'Mailbox' },
+  },
+  {
     path: '/classes',
     name: 'classes',
     component: () => import('../views/ClassesView.vue'),

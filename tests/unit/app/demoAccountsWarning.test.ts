@@ -7,9 +7,9 @@ import DemoAccountsWarning from '@/components/app/DemoAccountsWarning.vue';
 import { adminStatusKey } from '@/api/adminStatus';
 
 /** Mounts the warning over a query cache already holding `status` (no request is made). */
-function mountWith(status: AdminStatus) {
+function mountWith(status: Pick<AdminStatus, 'demoAccounts'>) {
   const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false } } });
-  queryClient.setQueryData(adminStatusKey, status);
+  queryClient.setQueryData(adminStatusKey, { mailbox: 'local', backup: true, ...status } satisfies AdminStatus);
   return mount(DemoAccountsWarning, { global: { plugins: [[VueQueryPlugin, { queryClient }]] } });
 }
 

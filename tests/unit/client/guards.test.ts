@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decideAccess, HOME_ROUTE, safeNext } from '@/router/guards';
+import { decideAccess, HOME_ROUTE, homePathFor, safeNext } from '@/router/guards';
 import { ANA } from './fakeFetch';
 
 const instructor = { ...ANA, role: 'instructor' as const };
@@ -17,6 +17,12 @@ describe('decideAccess', () => {
   it('keeps signed-in users off the guest-only pages, sending them to their programs', () => {
     expect(decideAccess({ guestOnly: true }, null, '/sign-in')).toEqual({ allow: true });
     expect(decideAccess({ guestOnly: true }, ANA, '/sign-in')).toEqual({ allow: false, redirect: { name: HOME_ROUTE } });
+  });
+
+  it('lands each role on its own page: a student on their programs, an instructor on the class overview, an admin on the console', () => {
+    expect(decideAccess({ guestOnly: true }, instructor, '/sign-in')).toEqual({ allow: false, redirect: { name: 'overview' } });
+    expect(decideAccess({ guestOnly: true }, { ...ANA, role: 'admin' }, '/sign-in')).toEqual({ allow: false, redirect: { name: 'admin' } });
+    expect([homePathFor(ANA), homePathFor(instructor), homePathFor({ role: 'admin' })]).toEqual(['/programs', '/overview', '/admin']);
   });
 
   it('admits only the roles a page names', () => {
