@@ -112,9 +112,11 @@ export function demoProgram(id: string): Program | null {
   return id in table ? table[id as DemoProgramId]() : null;
 }
 
-/** What the simulator's program picker lists. */
+/**
+ * What the simulator's program picker lists: lab-sized programs a visitor can follow. The large
+ * generated program is for the benchmarks and stays reachable by its address only.
+ */
 export const DEMO_PROGRAMS: readonly { id: DemoProgramId; title: string }[] = [
   { id: 'three-wire', title: 'Three-wire reversing (demo)' },
   { id: 'two-wire', title: 'Two-wire (demo)' },
-  { id: 'large', title: 'Large generated program, 200 rungs (demo)' },
 ];
