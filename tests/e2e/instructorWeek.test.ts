@@ -50,7 +50,7 @@ describe('the instructor’s week', () => {
     // ── The landing page: the class overview. ──
     expect(new URL(page.url()).pathname).toBe('/overview');
     const card = page.getByRole('region', { name: DEMO_CLASS.name });
-    await card.getByRole('link', { name: FORWARD_REVERSE.title }).waitFor();
+    await card.getByRole('link', { name: FORWARD_REVERSE.title, exact: true }).waitFor();
     await shoot(page, 'overview-1280');
     await page.setViewportSize({ width: 1920, height: 1080 });
     await shoot(page, 'overview-1920');
@@ -66,7 +66,7 @@ describe('the instructor’s week', () => {
 
     // ── The forward/reverse lab: three to review. ──
     await page.goto(`${suite.server.url}/overview`, { waitUntil: 'networkidle' });
-    await card.getByRole('row', { name: new RegExp(FORWARD_REVERSE.title.replace(/[()/]/g, '.')) }).getByRole('link', { name: '3 to review' }).click();
+    await card.getByRole('row').filter({ has: page.getByRole('link', { name: FORWARD_REVERSE.title, exact: true }) }).getByRole('link', { name: '3 to review' }).click();
     await page.waitForURL(/\/submissions\?show=submitted$/);
     await list.getByRole('link', { name: 'Review' }).first().waitFor();
     await shoot(page, 'lab-students-to-review');
@@ -100,7 +100,7 @@ describe('the instructor’s week', () => {
     await page.goBack();
     await page.goBack();
     await page.goto(`${suite.server.url}/overview`, { waitUntil: 'networkidle' });
-    await card.getByRole('row', { name: new RegExp(FORWARD_REVERSE.title.replace(/[()/]/g, '.')) }).getByRole('link', { name: '3 to review' }).click();
+    await card.getByRole('row').filter({ has: page.getByRole('link', { name: FORWARD_REVERSE.title, exact: true }) }).getByRole('link', { name: '3 to review' }).click();
     await page.getByRole('button', { name: 'Return all graded (3)' }).click();
     await page.getByLabel('Note for everyone').fill('Bring your printout to Thursday’s bench session.');
     await shoot(page, 'return-all-graded');
