@@ -21,6 +21,7 @@ import { authRouter } from './routes/auth';
 import { adminRouter } from './routes/admin';
 import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
+import { draftsRouter } from './routes/drafts';
 import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
@@ -85,6 +86,7 @@ export function createApp(deps: AppDependencies): Express {
   api.use(adminRouter(ctx));
   api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));
+  api.use(draftsRouter(ctx));
   api.use(classesRouter(ctx));
   api.use(labsRouter(ctx));
   api.use(submissionsRouter(ctx));

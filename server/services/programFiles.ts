@@ -7,6 +7,7 @@ import type { ProgramDetail } from '@shared/api';
 import type { AppContext } from '../context';
 import type { User } from '../db/users';
 import { success, type Outcome } from '../http/failure';
+import { listProgramsByOwner } from '../db/programs';
 import { createProgram } from './programs';
 import { exportPlcopenXml, importPlcopenXml } from './ladderDocuments';
 
@@ -14,9 +15,23 @@ export async function importProgramFile(ctx: AppContext, actor: User, xml: strin
   const imported = importPlcopenXml(xml);
   if (!imported.ok) return imported;
   const { program, warnings } = imported.value;
-  const title = program.title.trim() || fileName.replace(/\.xml$/i, '') || 'Imported program';
+  const wanted = program.title.trim() || fileName.replace(/\.xml$/i, '') || 'Imported program';
+  const taken = new Set((await listProgramsByOwner(ctx.orm, actor.id)).map((p) => p.title));
+  const title = unusedTitle(wanted, taken);
   const created = await createProgram(ctx, actor, { title, document: program, message: `Imported from ${fileName}` });
   return created.ok ? success({ ...created.value, warnings }) : created;
+}
+
+/**
+ * The title, or the first of "title (2)", "title (3)"… not among `taken`: an import of a file
+ * exported from an existing program must not give a second program the very same name in the list.
+ */
+export function unusedTitle(title: string, taken: ReadonlySet<string>): string {
+  if (!taken.has(title)) return title;
+  for (let n = 2; ; n += 1) {
+    const candidate = `${title.slice(0, 190)} (${n})`;
+    if (!taken.has(candidate)) return candidate;
+  }
 }
 
 export interface ExportedFile {

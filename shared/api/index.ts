@@ -6,3 +6,4 @@ export * from './programs';
 export * from './classes';
 export * from './mail';
 export * from './labs';
+export * from './drafts';

@@ -45,6 +45,8 @@ const all = (status: number): Expected => ({ anonymous: 401, studentA: status, s
 const readA = (ok: number): Expected => ({ anonymous: 401, studentA: ok, studentB: 404, instructor: ok, otherInstructor: 404, admin: ok });
 /** Change a program of student A: the instructor may see it, not change it. */
 const writeA = (ok: number): Expected => ({ anonymous: 401, studentA: ok, studentB: 404, instructor: 403, otherInstructor: 404, admin: ok });
+/** A draft of student A's program: theirs alone; to anyone else (their instructor and admins too) it does not exist. */
+const ownerOnly = (ok: number): Expected => ({ anonymous: 401, studentA: ok, studentB: 404, instructor: 404, otherInstructor: 404, admin: 404 });
 /** Manage the class: its instructor and admins; enrolled students know it exists (403). */
 const manage = (ok: number): Expected => ({ anonymous: 401, studentA: 403, studentB: 403, instructor: ok, otherInstructor: 404, admin: ok });
 const adminOnly = (ok: number): Expected => ({ anonymous: 401, studentA: 403, studentB: 403, instructor: 403, otherInstructor: 403, admin: ok });
@@ -79,6 +81,13 @@ const ROWS: Row[] = [
   { route: 'GET /api/programs/:id/versions/:n/export', send: (t, c, s) => call(t, 'get', `/api/programs/${s.programId}/versions/1/export?format=plcopen`, c), expect: readA(200) },
   { route: 'GET /api/programs/:id/diff', send: (t, c, s) => call(t, 'get', `/api/programs/${s.programId}/diff?from=1&to=1`, c), expect: readA(200) },
   { route: 'POST /api/programs/:id/restore', send: (t, c, s) => call(t, 'post', `/api/programs/${s.programId}/restore`, c).send({ version: 1, baseVersion: 1 }), expect: writeA(201) },
+  { route: 'GET /api/programs/:id/draft', send: (t, c, s) => call(t, 'get', `/api/programs/${s.programId}/draft`, c), expect: ownerOnly(200) },
+  {
+    route: 'PUT /api/programs/:id/draft',
+    send: (t, c, s) => call(t, 'put', `/api/programs/${s.programId}/draft`, c).send({ baseVersion: 1, document: documentWithRungs(2) }),
+    expect: ownerOnly(200),
+  },
+  { route: 'DELETE /api/programs/:id/draft', send: (t, c, s) => call(t, 'delete', `/api/programs/${s.programId}/draft`, c), expect: ownerOnly(204) },
   {
     route: 'POST /api/programs/import',
     send: (t, c) => call(t, 'post', '/api/programs/import', c).attach('file', Buffer.from(xml), { filename: 'p.xml', contentType: 'application/xml' }),
