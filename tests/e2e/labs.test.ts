@@ -122,7 +122,7 @@ describe('labs in a real browser', () => {
     await teacher.getByLabel('Step 3 wait in ms').fill('-5');
     await teacher.getByLabel('Step 3 wait in ms').press('Tab');
     await expect.poll(() => teacher.getByTestId('step-3').innerText()).toMatch(/step 3: "wait" needs a whole number of ms/);
-    expect(await teacher.getByTestId('script-validity').innerText()).toBe('1 problem(s)');
+    expect(await teacher.getByTestId('script-validity').innerText()).toBe('1 problem');
     await teacher.getByTestId('step-3').screenshot({ path: `${SHOTS}/lab-author-step-error.png` });
     await teacher.getByLabel('Step 3 wait in ms').fill('100');
     await teacher.getByLabel('Step 3 wait in ms').press('Tab');

@@ -1,9 +1,11 @@
 /**
- * What the workbench and the lab workbench wire up the same way around the rung editor: the dock
- * tab, the error count, the view effects the commands call (zoom, text form, Enter/comment editing
- * in the inspector), and Ctrl/Cmd+S from anywhere on the page.
+ * What every editing surface wires up the same way around the rung editor: the dock tab, the error
+ * count, the view effects the commands call (zoom, text form, Enter/comment editing in the
+ * inspector), and the page's own keys: Ctrl/Cmd+S from anywhere, the other `page` commands (`?`)
+ * from anywhere outside a text field. Editor keys are the canvas's and the palette's business.
  */
 import { computed, onBeforeUnmount, onMounted, ref, type Ref } from 'vue';
+import { command, commandForKey } from '@/editor/commands/registry';
 import type { EditorEffects } from '@/editor/commands/types';
 import type RungCanvas from '@/components/editor/RungCanvas.vue';
 import type InspectorPanel from '@/components/editor/InspectorPanel.vue';
@@ -17,6 +19,12 @@ export interface EditorSurfaceOptions {
   effects: Pick<EditorEffects, 'save' | 'toggleMessages'> & Partial<EditorEffects>;
   /** Called on Ctrl/Cmd+S, even while a form field has the focus (the browser's own save is stopped). */
   onSaveKey: () => void;
+}
+
+/** True when a key goes to a text field (or a control that takes typing), where letters are text. */
+function typingIn(target: EventTarget | null): boolean {
+  const el = target as Partial<Pick<HTMLElement, 'closest'>> | null;
+  return typeof el?.closest === 'function' && el.closest('input, textarea, select, [contenteditable="true"], [role="textbox"]') !== null;
 }
 
 /** Which tab of the right dock is showing. */
@@ -46,14 +54,20 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
     ...options.effects,
   });
 
-  function onSaveKey(event: KeyboardEvent): void {
+  function onPageKey(event: KeyboardEvent): void {
     if ((event.ctrlKey || event.metaKey) && event.key.toLowerCase() === 's') {
       event.preventDefault();
       options.onSaveKey();
+      return;
     }
+    if (event.defaultPrevented || typingIn(event.target)) return;
+    const found = commandForKey(event);
+    if (!found || (command(found.name).area ?? 'editor') !== 'page') return;
+    event.preventDefault();
+    editor.dispatch(found.name, found.args);
   }
-  onMounted(() => window.addEventListener('keydown', onSaveKey));
-  onBeforeUnmount(() => window.removeEventListener('keydown', onSaveKey));
+  onMounted(() => window.addEventListener('keydown', onPageKey));
+  onBeforeUnmount(() => window.removeEventListener('keydown', onPageKey));
 
   return { dockTab, errorCount };
 }

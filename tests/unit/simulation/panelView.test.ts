@@ -15,8 +15,10 @@ function setup() {
   return { store, pinia };
 }
 
+/** A key pressed while the field panel has the focus (its keys act only then). */
 const key = (type: 'keydown' | 'keyup', k: string, init: KeyboardEventInit = {}) =>
-  window.dispatchEvent(new KeyboardEvent(type, { key: k, bubbles: true, ...init }));
+  (document.querySelector('[data-testid="field-panel"]') ?? window).dispatchEvent(new KeyboardEvent(type, { key: k, bubbles: true, ...init }));
+const mountPanel = (pinia: ReturnType<typeof createPinia>) => mount(PanelView, { global: { plugins: [pinia] }, attachTo: document.body });
 const word = (store: ReturnType<typeof useSimulationStore>, id: string) => store.devices.find((d) => d.id === id)!.word;
 
 describe('the field panel component', () => {
@@ -36,7 +38,7 @@ describe('the field panel component', () => {
 
   it('holds S2 closed while its key is down and lets it go on key-up, after a scan has seen it', async () => {
     const { store, pinia } = setup();
-    const wrapper = mount(PanelView, { global: { plugins: [pinia] } });
+    const wrapper = mountPanel(pinia);
     key('keydown', '2');
     expect(word(store, 'S2')).toBe('pressed');
     store.step();
@@ -47,7 +49,7 @@ describe('the field panel component', () => {
 
   it('pins a pushbutton with Shift and its key, and unpins it the same way', () => {
     const { store, pinia } = setup();
-    const wrapper = mount(PanelView, { global: { plugins: [pinia] } });
+    const wrapper = mountPanel(pinia);
     key('keydown', '3', { shiftKey: true });
     key('keyup', '3', { shiftKey: true });
     store.step();
@@ -71,7 +73,7 @@ describe('the field panel component', () => {
 
   it('latches the e-stop on its key and resets it on the next press; turns the selector; trips F1', () => {
     const { store, pinia } = setup();
-    const wrapper = mount(PanelView, { global: { plugins: [pinia] } });
+    const wrapper = mountPanel(pinia);
     key('keydown', '0');
     expect(word(store, 'S0')).toBe('pressed');
     key('keydown', '0');
@@ -80,6 +82,21 @@ describe('the field panel component', () => {
     expect(word(store, 'S4')).toBe('RUN');
     key('keydown', 't');
     expect(word(store, 'F1')).toBe('tripped');
+    wrapper.unmount();
+  });
+
+  it('takes no key while the focus is outside it (on the rungs, where T inserts a TON), and T on it trips F1', () => {
+    const { store, pinia } = setup();
+    const wrapper = mountPanel(pinia);
+    const canvas = document.createElement('div');
+    canvas.tabIndex = 0;
+    document.body.appendChild(canvas);
+    canvas.dispatchEvent(new KeyboardEvent('keydown', { key: 't', bubbles: true }));
+    document.body.dispatchEvent(new KeyboardEvent('keydown', { key: '2', bubbles: true }));
+    expect([word(store, 'F1'), word(store, 'S2')]).toEqual(['ok', 'released']);
+    key('keydown', 't');
+    expect(word(store, 'F1')).toBe('tripped');
+    canvas.remove();
     wrapper.unmount();
   });
 
