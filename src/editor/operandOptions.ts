@@ -38,18 +38,30 @@ export function addressNames(panel: Pick<PanelLayout, 'devices'> | null): Map<st
   return names;
 }
 
-/** Tags first, then every address of the panel, then block outputs. */
-export function operandOptions(doc: Program, panel: Pick<PanelLayout, 'devices'> | null, space: AddressSpace): OperandOption[] {
+/** A coil writes its bit: outputs and memory, never an input or a block's output. */
+const writable = (address: string) => /^%[QM]/i.test(address.trim());
+
+/**
+ * Tags first, then every address of the panel, then block outputs; for a coil (`forCoil`) only
+ * what a coil can write (tags on outputs and memory bits, and those addresses), so the lamp or
+ * contactor a student wants is near the top of a short list.
+ */
+export function operandOptions(doc: Program, panel: Pick<PanelLayout, 'devices'> | null, space: AddressSpace, forCoil = false): OperandOption[] {
   const names = addressNames(panel);
-  const tags = doc.tags.map((t) => {
-    const device = names.get(t.address.trim().toUpperCase());
-    return { value: t.name, label: `${t.name} — ${t.address}${device ? ` · ${device}` : ''}` };
-  });
-  const addresses = allAddresses(space).map((a) => {
-    const device = names.get(a);
-    return { value: a, label: device ? `${a} — ${device}` : a };
-  });
+  const tags = doc.tags
+    .filter((t) => !forCoil || writable(t.address))
+    .map((t) => {
+      const device = names.get(t.address.trim().toUpperCase());
+      return { value: t.name, label: `${t.name} — ${t.address}${device ? ` · ${device}` : ''}` };
+    });
+  const addresses = allAddresses(space)
+    .filter((a) => !forCoil || writable(a))
+    .map((a) => {
+      const device = names.get(a);
+      return { value: a, label: device ? `${a} — ${device}` : a };
+    });
   const members: OperandOption[] = [];
+  if (forCoil) return [...tags, ...addresses];
   for (const rung of doc.rungs) {
     visitNodes(rung.network, (node) => {
       if (node.kind === 'block' && node.instance) for (const out of BLOCK_SPECS[node.type].outputs) members.push({ value: `${node.instance}.${out.name}`, label: `${node.instance}.${out.name} — ${node.type} output` });
