@@ -216,7 +216,7 @@ describe('labs in a real browser', () => {
     await student.getByLabel('Version message').press('Enter');
     await expect.poll(() => student.getByTestId('save-status').innerText()).toMatch(/Saved · version 2/);
 
-    await student.getByRole('button', { name: 'Submit…' }).click();
+    await student.getByRole('button', { name: 'Save and submit…' }).click();
     await expect.poll(() => student.getByTestId('submit-confirm').innerText()).toMatch(/version 2/);
     await student.getByRole('button', { name: 'Submit version 2' }).click();
     await expect.poll(() => student.getByTestId('submission-status').innerText(), { timeout: 20_000 }).toMatch(/graded/);
