@@ -24,7 +24,7 @@ function draftView(d: db.Draft): DraftView {
 async function ownProgram(ctx: AppContext, actor: User, programId: string): Promise<Outcome<programsDb.Program>> {
   const program = await programsDb.findProgram(ctx.orm, programId);
   if (!program) return failure('not_found', 'This program does not exist or is not open to you');
-  return refusal(await programAccess(ctx.orm, actor, program.ownerId, 'draft'), 'program') ?? success(program);
+  return refusal(await programAccess(ctx.orm, actor, program, 'draft'), 'program') ?? success(program);
 }
 
 export async function getDraft(ctx: AppContext, actor: User, programId: string): Promise<Outcome<DraftView | null>> {
