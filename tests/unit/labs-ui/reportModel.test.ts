@@ -42,7 +42,7 @@ describe('the grade report on screen', () => {
 
   it('shows on the student\'s report the visible score a self-check of the same program shows', () => {
     for (const program of [THREE_WIRE.starter, THREE_WIRE.solution]) {
-      const self = runChecks({ program, panel: REVERSING_CONVEYOR, script: replayableScript(studentScript(THREE_WIRE.script).script)! });
+      const self = runChecks({ program, panel: REVERSING_CONVEYOR, script: studentScript(replayableScript(THREE_WIRE.script)!).script });
       if (!self.ok) throw new Error(self.errors.join('; '));
       const selfShown = presentReport(self.report);
       const reportShown = presentReport(redactReport(grade(program)));
