@@ -96,8 +96,8 @@ export const useEditorStore = defineStore('editor', () => {
     readOnly.value = options.readOnly ?? false;
   }
 
-  /** Validate against this panel's address space from now on (the panel the simulation runs). */
-  function usePanel(next: PanelLayout): void {
+  /** Validate against this panel's address space from now on (the panel the simulation runs); null: the default panel's. */
+  function usePanel(next: PanelLayout | null): void {
     panel.value = next;
   }
 

@@ -258,6 +258,27 @@ describe('a student\'s lab session', () => {
     expect(await sheet.locator('[data-area="panel"]').innerText()).toMatch(/T\s+F1 Motor overload: trip test/);
     expect(await sheet.locator('[data-area="page"]').innerText()).toMatch(/Save a version/);
     await page.screenshot({ path: `${SHOTS}/keys-sheet.png` });
+    await page.keyboard.press('Escape');
+
+    // Reloading with unsaved changes: the browser asks first, and the draft is offered after the reload.
+    const dialogs: string[] = [];
+    page.on('dialog', (d) => {
+      dialogs.push(d.type());
+      void d.accept();
+    });
+    await page.mouse.click(start.x, start.y);
+    await page.keyboard.press('t');
+    await expect.poll(() => page.getByTestId('draft-status').innerText(), { timeout: 10_000 }).toMatch(/draft kept/);
+    await page.reload({ waitUntil: 'networkidle' });
+    expect(dialogs).toEqual(['beforeunload']);
+    await page.getByTestId('draft-offer').waitFor();
+    await page.getByRole('button', { name: 'Discard' }).click();
+    await expect.poll(() => page.getByTestId('save-status').innerText()).toMatch(/Saved · version 1/);
+    // Discarded, it is gone: a second reload offers nothing and asks nothing.
+    await page.reload({ waitUntil: 'networkidle' });
+    await expect.poll(() => page.getByTestId('save-status').innerText()).toMatch(/Saved · version 1/);
+    expect(await page.getByTestId('draft-offer').count()).toBe(0);
+    expect(dialogs).toEqual(['beforeunload']);
 
     expect(problems).toEqual([]);
     await context.close();
