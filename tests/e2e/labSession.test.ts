@@ -259,6 +259,7 @@ describe('a student\'s lab session', () => {
     expect(await sheet.locator('[data-area="page"]').innerText()).toMatch(/Save a version/);
     await page.screenshot({ path: `${SHOTS}/keys-sheet.png` });
     await page.keyboard.press('Escape');
+    await sheet.waitFor({ state: 'hidden' });
 
     // Reloading with unsaved changes: the browser asks first, and the draft is offered after the reload.
     const dialogs: string[] = [];
@@ -268,6 +269,7 @@ describe('a student\'s lab session', () => {
     });
     await page.mouse.click(start.x, start.y);
     await page.keyboard.press('t');
+    await expect.poll(() => page.getByTestId('save-status').innerText()).toMatch(/Unsaved changes/);
     await expect.poll(() => page.getByTestId('draft-status').innerText(), { timeout: 10_000 }).toMatch(/draft kept/);
     await page.reload({ waitUntil: 'networkidle' });
     expect(dialogs).toEqual(['beforeunload']);
