@@ -1,5 +1,5 @@
 /**
- * Rungwright's look (DESIGN.md, "Look and feel"): warm paper, ink-navy rails and wires, amber power
+ * Rungwright's look (docs/names-and-rules.md, "How it looks"): warm paper, ink-navy rails and wires, amber power
  * flow, slate grey for de-energised, violet for forced values, teal selection, red errors.
  * The canvas reads the same palette from here, so the editor and naive-ui never disagree.
  */

@@ -1,6 +1,6 @@
 /**
  * Demo programs for the Larch Hollow Timber Co. reversing conveyor (invented scenario, demo data).
- * Addresses follow the default `reversing-conveyor` panel layout in DESIGN.md.
+ * Addresses follow the default `reversing-conveyor` panel layout in docs/names-and-rules.md.
  */
 import { PROGRAM_FORMAT, PROGRAM_VERSION, type Element, type Program, type Tag } from '@shared/ladder/schema';
 import { buildProgram, coil as labCoil, nc as labNc, no as labNo, par, rung } from '@shared/labs/build';

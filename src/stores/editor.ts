@@ -15,6 +15,7 @@ import { commandForKey, isEnabled, runCommand, type KeyChord } from '@/editor/co
 import type { Clipboard, CommandArgs, CommandName, CommandResult, EditorEffects, EditorState } from '@/editor/commands/types';
 import { canRedo, canUndo, commit, createHistory, redo as redoHistory, undo as undoHistory, withSelection } from '@/editor/history';
 import { layoutProgram } from '@/editor/layout';
+import { editPastLimits } from '@/editor/documentLimits';
 import type { ProgramLayout } from '@/editor/layoutTypes';
 import { NO_SELECTION, pruneSelection, sameSlot, type Selection } from '@/editor/selection';
 import { rungTextMap } from '@/editor/textForm';
@@ -58,6 +59,8 @@ export const useEditorStore = defineStore('editor', () => {
   const showTextForm = ref(false);
   /** Counts `load` calls: what was worked out for one opened document is not used for the next. */
   const opened = ref(0);
+  /** The last edit refused for passing a document size limit, with why (`at` tells repeats apart). */
+  const refusedEdit = shallowRef<{ message: string; at: number } | null>(null);
   /** The document as last saved or loaded: the editor is dirty while the present differs. */
   const savedDoc = shallowRef<Program | null>(history.value.present.doc);
 
@@ -122,6 +125,11 @@ export const useEditorStore = defineStore('editor', () => {
     let nextSelection = result.selection ?? selection.value;
     if (nextDoc !== doc.value) {
       if (readOnly.value) return;
+      const pastLimits = editPastLimits(nextDoc);
+      if (pastLimits) {
+        refusedEdit.value = { message: pastLimits, at: (refusedEdit.value?.at ?? 0) + 1 };
+        return;
+      }
       nextSelection = reconcileSelection(nextSelection, nextDoc, layoutProgram(nextDoc));
       history.value = commit(history.value, nextDoc, nextSelection, result.coalesceKey ?? null);
     } else if (nextSelection !== selection.value) {
@@ -181,6 +189,7 @@ export const useEditorStore = defineStore('editor', () => {
     clipboard,
     readOnly,
     opened,
+    refusedEdit,
     showTextForm,
     layout,
     panel,

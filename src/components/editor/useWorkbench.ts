@@ -72,6 +72,14 @@ export function useWorkbench(options: WorkbenchOptions) {
     onSaveKey: () => editor.dispatch('save'),
   });
 
+  // An edit that would pass a document size limit is not made; say why where the user is looking.
+  watch(
+    () => editor.refusedEdit,
+    (refused) => {
+      if (refused) message.warning(refused.message, { duration: 6000 });
+    },
+  );
+
   /** Load the program, then offer a draft newer than its head. */
   async function open(): Promise<void> {
     await persistence.load();
