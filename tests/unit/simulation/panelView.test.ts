@@ -96,7 +96,7 @@ describe('the field panel component', () => {
 });
 
 describe('the I/O status table', () => {
-  it('says why %QX1 is ON while K1 is open after the overload trips, and forces from a row', async () => {
+  it('says why %QX1 is ON while K1 is open when S2 is held on a tripped overload, and forces from a row', async () => {
     const { store, pinia } = setup();
     store.act('S4', 'set', { to: 'RUN' });
     store.press('S2');
@@ -104,6 +104,8 @@ describe('the I/O status table', () => {
     store.release('S2');
     for (let i = 0; i < 60; i += 1) store.step();
     store.act('F1', 'trip');
+    // The trip drops K1 and its auxiliary contact breaks the seal; holding S2 commands K1 again.
+    store.press('S2');
     for (let i = 0; i < 5; i += 1) store.step();
     const wrapper = mount(IoStatusTable, { global: { plugins: [pinia] } });
     expect(wrapper.find('td[data-reason="%QX1"]').text()).toBe('%QX1 ON, K1 open (F1 95-96 open)');
