@@ -6,6 +6,12 @@
 import type { GlobalThemeOverrides } from 'naive-ui';
 
 export const FONT_UI = "'Inter', system-ui, -apple-system, 'Segoe UI', sans-serif";
+/**
+ * No text on the rung canvas is painted smaller than this, in canvas pixels at zoom 1, and the
+ * canvas never zooms below 1 (DESIGN.md: canvas text is never below 11 px; a wide program scrolls
+ * sideways rather than shrink).
+ */
+export const MIN_CANVAS_TEXT_PX = 11;
 export const FONT_MONO = "'JetBrains Mono', ui-monospace, 'SFMono-Regular', monospace";
 
 export interface Palette {

@@ -6,7 +6,7 @@
  * wrong, is run too and shown to fail the script, so the script can tell the two apart.
  */
 import { describe, expect, it } from 'vitest';
-import { runChecks, type CheckScript } from '@shared/checks';
+import { runChecks, type CheckScriptInput } from '@shared/checks';
 import { builtInPanel } from '@shared/field';
 import { buildProgram, coil, no, par, rung } from '@shared/labs/build';
 import { conveyorTags } from '@shared/labs/conveyorTags';
@@ -17,7 +17,7 @@ import { largeProgram, threeWireProgram } from '@/simulation/demoPrograms';
 const panel = builtInPanel('reversing-conveyor')!;
 
 /** Start forward at RUN, trip F1, reset it, and expect the belt to stay stopped; S2 then starts it again. */
-const TRIP_AND_RESET: CheckScript = {
+const TRIP_AND_RESET: CheckScriptInput = {
   panel: 'reversing-conveyor',
   scanMs: 10,
   steps: [
