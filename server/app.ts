@@ -18,6 +18,8 @@ import { apiNotFound, errorHandler, sendFailure } from './http/errorHandler';
 import { clientFiles } from './http/clientFiles';
 import { healthRouter } from './routes/health';
 import { authRouter } from './routes/auth';
+import { signUpRouter } from './routes/signUp';
+import { invitationsRouter } from './routes/invitations';
 import { adminRouter } from './routes/admin';
 import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
@@ -25,6 +27,7 @@ import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
+import { trustProxySetting } from './http/trustProxy';
 import { createGradingPool, type Grader } from './grading/pool';
 import { labsRouter } from './routes/labs';
 import { labAttachmentsRouter } from './routes/labAttachments';
@@ -66,7 +69,7 @@ export function createApp(deps: AppDependencies): Express {
 
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxySetting(deps.config.TRUST_PROXY));
   app.use(securityHeaders());
   app.use(requestLogging(logger));
   app.use(refuseUnknownHosts(deps.config));
@@ -82,6 +85,8 @@ export function createApp(deps: AppDependencies): Express {
   api.use(requireJsonBody);
   api.use(express.json({ limit: '1mb' }));
   api.use(authRouter(ctx));
+  api.use(signUpRouter(ctx));
+  api.use(invitationsRouter(ctx));
   api.use(adminRouter(ctx));
   api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));

@@ -15,7 +15,7 @@ import { round2 } from './grading';
 import { iso } from './views';
 
 export async function gradebook(ctx: AppContext, actor: User, classId: string): Promise<Outcome<Gradebook>> {
-  const cls = await authorisedClass(ctx, actor, classId, 'manage');
+  const cls = await authorisedClass(ctx, actor, classId, 'grades');
   if (!cls.ok) return cls;
   const labs = await listLabsOfClass(ctx.orm, classId, false);
   const students = await listStudents(ctx.orm, classId);

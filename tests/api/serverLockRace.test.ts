@@ -69,7 +69,7 @@ const deadPid = (): number => spawnSync(process.execPath, ['-e', '']).pid;
 describe('two real servers started at the same instant on one DATA_DIR', () => {
   it(`lets exactly one serve and makes the other exit naming the directory and the winner's pid, ${TRIALS} times`, async () => {
     const report: string[] = [];
-    const lateMs: number[] = [];
+    const gapsMs: number[] = [];
     const problems: string[] = [];
     const stalePid = deadPid();
     for (let n = 0; n < TRIALS; n += 1) {
@@ -84,7 +84,9 @@ describe('two real servers started at the same instant on one DATA_DIR', () => {
       const winners = outcomes.filter((o) => o.kind === 'listening');
       const losers = outcomes.filter((o) => o.kind === 'exited');
       report.push(`${winners.length}`);
-      for (const o of outcomes) lateMs.push(Number(/reached the instant (\d+) ms late/.exec(o.stderr)?.[1] ?? NaN));
+      // How far apart the two reached the lock: the race is only real when this is small.
+      const [lateA, lateB] = outcomes.map((o) => Number(/reached the instant (\d+) ms late/.exec(o.stderr)?.[1] ?? NaN));
+      gapsMs.push(Math.abs(lateA! - lateB!));
       if (winners.length !== 1) problems.push(`trial ${n + 1}${stale ? ' (stale lock)' : ''}: ${winners.length} servers started`);
       for (const loser of losers) {
         if (winners.length !== 1) break;
@@ -99,7 +101,8 @@ describe('two real servers started at the same instant on one DATA_DIR', () => {
       }
       if (existsSync(path.join(dataDir, LOCK_FILE_NAME))) problems.push(`trial ${n + 1}: the lock file outlived its server`);
     }
-    console.log(`real servers: winners per trial ${report.join(' ')}; each reached the lock at most ${Math.max(...lateMs)} ms after the shared instant`);
+    const sorted = [...gapsMs].sort((a, b) => a - b);
+    console.log(`real servers: winners per trial ${report.join(' ')}; the two reached the lock ${sorted[Math.floor(sorted.length / 2)]} ms apart (median), ${sorted.at(-1)} ms at most`);
     expect(problems).toEqual([]);
-  }, 60_000 + TRIALS * 30_000);
+  }, 60_000 + TRIALS * 45_000);
 });

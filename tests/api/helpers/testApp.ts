@@ -41,6 +41,8 @@ export interface TestAppOptions {
   grader?: Grader;
   /** A built client to serve after the API, as `npm start` does with `dist`. */
   clientDir?: string;
+  /** Wraps the real mailer the app sends through (e.g. to hold mail back and see what waits for it). */
+  wrapMailer?: (mailer: Mailer) => Mailer;
 }
 
 /** Loads the template dump written by globalSetup into a new in-memory database. */
@@ -60,7 +62,7 @@ export async function createTestApp(env: Record<string, string> = {}, options: T
   const app = createApp({
     grader,
     db: database,
-    mailer,
+    mailer: options.wrapMailer ? options.wrapMailer(mailer) : mailer,
     clock,
     config,
     logger: createLogger('silent'),
