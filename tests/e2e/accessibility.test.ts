@@ -80,6 +80,7 @@ function visitsFor(who: Who, ids: DemoIds | null): Visit[] {
       return [
         { path: '/sign-in' },
         { path: '/join' },
+        { path: '/join/finish' },
         { path: '/reset-password' },
         { path: '/accept-invitation' },
         { path: '/simulator', ready: (p) => p.getByTestId('rung-canvas').waitFor() },
@@ -92,6 +93,7 @@ function visitsFor(who: Who, ids: DemoIds | null): Visit[] {
         { path: '/classes', ready: tableReady },
         { path: `/classes/${ids!.classId}/labs`, ready: tableReady },
         { path: `/labs/${ids!.threeWireLabId}`, ready: labReady },
+        { path: '/account' },
       ];
     case 'instructor':
       return [
@@ -102,11 +104,13 @@ function visitsFor(who: Who, ids: DemoIds | null): Visit[] {
         { path: `/labs/${ids!.threeWireLabId}/edit`, ready: (p) => p.getByTestId('script-validity').waitFor() },
         { path: `/labs/${ids!.forwardReverseLabId}/submissions`, ready: tableReady },
         { path: `/submissions/${ids!.submissionId}`, ready: (p) => p.getByTestId('grade-report').waitFor() },
+        { path: '/account' },
       ];
     case 'admin':
       return [
         { path: '/admin', ready: tableReady },
         { path: '/programs', ready: tableReady },
+        { path: '/account' },
       ];
   }
 }
