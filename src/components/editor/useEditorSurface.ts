@@ -37,6 +37,8 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
   const errorCount = computed(() => editor.diagnostics.filter((d) => d.severity === 'error').length);
 
   // An edit that leaves one element selected that the document before it did not have inserted it.
+  // Synchronous, so the selection read is the one that came with this very document (a load
+  // followed by a selection in the same tick is not an insertion).
   watch(
     () => editor.doc,
     (doc, previous) => {
@@ -45,6 +47,7 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
       const id = selection.ids[0]!;
       if (!allIds(previous).includes(id) && allIds(doc).includes(id)) dockTab.value = 'inspector';
     },
+    { flush: 'sync' },
   );
   watch(
     () => simulation.mode,

@@ -83,6 +83,36 @@ describe('the field panel component', () => {
     wrapper.unmount();
   });
 
+  it('makes F1\'s reset the blue main action only once F1 has tripped', async () => {
+    const { store, pinia } = setup();
+    const wrapper = mount(PanelView, { global: { plugins: [pinia] } });
+    const reset = () => wrapper.find('[data-device="F1"] button.reset');
+    expect(reset().classes()).not.toContain('main');
+    expect(reset().text()).toMatch(/^Reset F1/);
+    store.act('F1', 'trip');
+    await wrapper.vm.$nextTick();
+    expect(reset().classes()).toContain('main');
+    store.act('F1', 'reset');
+    await wrapper.vm.$nextTick();
+    expect(reset().classes()).not.toContain('main');
+    wrapper.unmount();
+  });
+
+  it('shows a pressed e-stop latched down with the word LATCHED, and released without it', async () => {
+    const { store, pinia } = setup();
+    const wrapper = mount(PanelView, { global: { plugins: [pinia] } });
+    const estop = () => wrapper.find('[data-device="S0"]');
+    expect(estop().classes()).not.toContain('latched');
+    expect(estop().find('[data-testid="estop-state"]').text()).toBe('released');
+    store.act('S0', 'press');
+    await wrapper.vm.$nextTick();
+    expect(estop().classes()).toContain('latched');
+    expect(estop().find('button.mushroom').classes()).toContain('latched');
+    expect(estop().find('button.mushroom').attributes('aria-pressed')).toBe('true');
+    expect(estop().find('[data-testid="estop-state"]').text()).toBe('LATCHED');
+    wrapper.unmount();
+  });
+
   it('leaves keys typed into a text field alone', () => {
     const { store, pinia } = setup();
     const wrapper = mount(PanelView, { global: { plugins: [pinia] }, attachTo: document.body });
