@@ -28,7 +28,9 @@ import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
 import { trustProxySetting } from './http/trustProxy';
-import { createGradingPool, type Grader } from './grading/pool';
+import { createGradingPool, type DocumentWork, type Grader } from './grading/pool';
+import { refuseDeepJson, refuseNulCharacters } from './http/bodyGuards';
+import { expensiveCallLimits } from './http/userLimits';
 import { labsRouter } from './routes/labs';
 import { labAttachmentsRouter } from './routes/labAttachments';
 import { submissionsRouter } from './routes/submissions';
@@ -49,11 +51,15 @@ export interface AppDependencies {
   passwordParams?: ScryptParams;
   /** Grades submissions; defaults to a pool of warm worker threads, started on first use. */
   grader?: Grader;
+  /** Exports and imports program files; defaults to `grader` when it is a pool, else a pool of its own. */
+  documents?: DocumentWork;
 }
 
 /** Builds the app: security headers, logging, the API under `/api`, then the client. */
 export function createApp(deps: AppDependencies): Express {
   const logger = deps.logger ?? createLogger(deps.config.LOG_LEVEL);
+  const grader = deps.grader ?? createGradingPool();
+  const documents = deps.documents ?? ('exportProgram' in grader ? (grader as Grader & DocumentWork) : createGradingPool());
   const ctx: AppContext = {
     orm: deps.db.orm,
     driver: deps.db.driver,
@@ -64,7 +70,8 @@ export function createApp(deps: AppDependencies): Express {
     version: readVersion(),
     sessionKey: deps.sessionKey,
     passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
-    grader: deps.grader ?? createGradingPool(),
+    grader,
+    documents,
   };
 
   const app = express();
@@ -78,12 +85,14 @@ export function createApp(deps: AppDependencies): Express {
   api.use(noStore);
   api.use(requireSameOrigin);
   api.use(authenticate(ctx));
+  api.use(expensiveCallLimits(ctx));
   api.use(healthRouter(ctx));
   // Uploads read multipart bodies, so they come before the JSON-only rule.
   api.use(uploadsRouter(ctx));
   api.use(labAttachmentsRouter(ctx));
   api.use(requireJsonBody);
-  api.use(express.json({ limit: '1mb' }));
+  api.use(express.json({ limit: '1mb', verify: refuseDeepJson }));
+  api.use(refuseNulCharacters);
   api.use(authRouter(ctx));
   api.use(signUpRouter(ctx));
   api.use(invitationsRouter(ctx));

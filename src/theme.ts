@@ -1,5 +1,5 @@
 /**
- * Rungwright's look (DESIGN.md, "Look and feel"): warm paper, ink-navy rails and wires, amber power
+ * Rungwright's look (docs/names-and-rules.md, "How it looks"): warm paper, ink-navy rails and wires, amber power
  * flow, slate grey for de-energised, violet for forced values, teal selection, red errors.
  * The canvas reads the same palette from here, so the editor and naive-ui never disagree.
  */
@@ -8,8 +8,8 @@ import type { GlobalThemeOverrides } from 'naive-ui';
 export const FONT_UI = "'Inter', system-ui, -apple-system, 'Segoe UI', sans-serif";
 /**
  * No text on the rung canvas is painted smaller than this, in canvas pixels at zoom 1, and the
- * canvas never zooms below 1 (DESIGN.md: canvas text is never below 11 px; a wide program scrolls
- * sideways rather than shrink).
+ * canvas never zooms below 1 (docs/names-and-rules.md: canvas text is never smaller than 11 px);
+ * a wide program scrolls sideways rather than shrink.
  */
 export const MIN_CANVAS_TEXT_PX = 11;
 export const FONT_MONO = "'JetBrains Mono', ui-monospace, 'SFMono-Regular', monospace";

@@ -22,13 +22,19 @@ Usage:
   npm run cli -- --help
 
 check     Grade a program with a check script; prints the grade report as JSON.
-          Exit 0 when every check passes, 1 when one fails, 2 on bad input.
-          A program that loads but does not compile fails every check (exit 1, with its diagnostics).
-validate  Print the program's diagnostics; exit 2 when it has errors.
+validate  Print the program's diagnostics.
 st        Print the program as IEC 61131-3 Structured Text.
+
 create-admin
           Create an administrator in DATA_DIR's database (stop the server first); see
           npm run cli -- create-admin --help. Exit 0 done, 1 a server holds DATA_DIR, 2 bad input.
+
+Exit codes (check, validate, st):
+  0  all good: every check passes, no errors
+  1  the program is at fault: a check fails, or it does not compile (then every
+     check fails, "passed" is false, and the diagnostics are printed on stderr too)
+  2  the inputs cannot be used: a file that cannot be read, bad JSON or XML, a bad
+     check script or one with no check, a bad panel layout; the message names the file
 
 --program P   the program: a Rungwright JSON document or a PLCopen TC6 XML 2.01 file (LD body)
 --script S    a check script (JSON)

@@ -1,9 +1,9 @@
 /**
  * Demo programs for the Larch Hollow Timber Co. reversing conveyor (invented scenario, demo data).
- * Addresses follow the default `reversing-conveyor` panel layout in DESIGN.md, with the tags every
- * lab starts from. Each direction seals in on its contactor's auxiliary contact (K1 13-14 on %IX7,
- * K2 13-14 on %IX8), the pattern the three-wire lab teaches: when the overload drops the
- * contactor, the seal breaks, so resetting F1 does not restart the belt by itself.
+ * Addresses follow the default `reversing-conveyor` panel layout in docs/names-and-rules.md, with
+ * the tags every lab starts from. Each direction seals in on its contactor's auxiliary contact (K1
+ * 13-14 on %IX7, K2 13-14 on %IX8), the pattern the three-wire lab teaches: when the overload drops
+ * the contactor, the seal breaks, so resetting F1 does not restart the belt by itself.
  */
 import type { Program } from '@shared/ladder/schema';
 import { buildProgram, coil, nc, no, par, rung } from '@shared/labs/build';

@@ -85,10 +85,25 @@ function renumber(report: GradeReport, scanMs: number | null): Renumbered {
     fullStep = check.index;
     if (check.hidden) {
       hidden.push(hiddenView(check));
+      if (check.spanMs !== undefined && check.spanMs > 0) {
+        // A hidden check that spans time reads as a wait (as in `studentScript`).
+        const joined = lastWait !== null ? joinWaits(lastWait, check.spanMs, scanMs) : null;
+        if (joined !== null) {
+          words[words.length - 1] = describeWait(joined);
+          lastWait = joined;
+        } else {
+          studentStep += 1;
+          words.push(describeWait(check.spanMs));
+          lastWait = check.spanMs;
+        }
+        stepOf.set(check.index, studentStep);
+      }
       afterHidden = true;
       return;
     }
     studentStep += 1;
+    // A check that spans time (a `during`, an `until`) logs the events of its span under its own step.
+    stepOf.set(check.index, studentStep);
     visible.push({ ...check, index: studentStep, steps: words });
     words = [];
     lastWait = null;
@@ -120,7 +135,9 @@ function droppedShown(bySteps: { step: number; count: number }[], stepOf: Map<nu
 }
 
 /** The report for a student; see the module comment. */
-export function redactReport(report: GradeReport): StudentReport {
+export function redactReport(full: GradeReport): StudentReport {
+  // Notes name steps of the full script; a self-check of the student's script gives its own.
+  const { notes: _notes, ...report } = full;
   const scanMs = scanPeriod(report);
   const { visible, hidden, stepOf } = renumber(report, scanMs);
   const lastVisible = report.checks.findLast((c) => !c.hidden);

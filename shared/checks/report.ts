@@ -28,6 +28,19 @@ export interface CheckResult {
   steps: string[];
   /** Why a check could not be evaluated (program did not compile, a limit stopped the run). */
   note?: string;
+  /**
+   * The kind of check when it is not a plain `expect`: `never`/`always` over a `during` interval
+   * (then `expected` is that condition), or `until` (then `expected` is the awaited condition).
+   */
+  kind?: 'never' | 'always' | 'until';
+  /** A `during` or `until` check: the virtual time it spans, in ms as written (its scans run whole). */
+  spanMs?: number;
+  /** A `never`/`always` check that failed: the first scan (count since the start) and its time, in ms; `actual` is read there. */
+  failedAt?: { scan: number; atMs: number };
+  /** An `until` check: the window it must first hold in, in ms from the step's start. */
+  within?: [number, number];
+  /** An `until` check: ms from the step's start to the first scan where it held, or null if it never did. */
+  tookMs?: number | null;
 }
 
 /** An event with the script step during which it happened (0 = the settling time before step 1). */
@@ -58,6 +71,8 @@ export interface GradeReport {
   diagnostics: Diagnostic[];
   /** Why the run stopped before the end of the script (a limit), or null. */
   stoppedBy: string | null;
+  /** Remarks on how the script ran (a wait rounded up to whole scans, a force the program has no bit for). */
+  notes?: string[];
   virtualMs: number;
   scans: number;
 }

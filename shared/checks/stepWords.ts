@@ -16,7 +16,15 @@ export function describeStep(step: Step): string {
     case 'wait':
       return describeWait(s.wait as number);
     case 'expect':
+    case 'during':
+    case 'until':
       return 'check';
+    case 'force':
+      return `force ${String(s.force)} to ${String(s.to)}`;
+    case 'unforce':
+      return s.unforce === 'all' ? 'remove every force' : `unforce ${String(s.unforce)}`;
+    case 'preheat':
+      return `preheat ${String(s.preheat)} at ${String(s.factor)} × its setting`;
     default: {
       const action = stepAction(step);
       return `${action} ${String(s[action])}`;

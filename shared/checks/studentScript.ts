@@ -5,11 +5,13 @@
  * From the full script: hidden checks' expect steps are removed, steps after the last visible
  * check are left out (they lead only to hidden checks), and two waits that a removed hidden
  * check kept apart become one wait, so neither the steps nor their numbers nor the times at
- * which they start show where a hidden check sat. Every other step stays: an expect step only
+ * which they start show where a hidden check sat. A hidden check that spans time (a `during`, or
+ * an `until`, which lasts its whole window) becomes a wait of that span, joined with the waits
+ * beside it, so the time runs on as in grading. Every other step stays: an expect step only
  * reads, and the actions before a hidden check may change what a later visible check sees, so
  * each visible check runs at the same virtual time, in the same state, as in grading.
  */
-import { MAX_WAIT_MS, type CheckScript, type ExpectStep, type Step } from './script';
+import { isCheckStep, MAX_WAIT_MS, stepSpanMs, type CheckScript, type Step } from './script';
 
 export interface StudentScript {
   script: CheckScript;
@@ -17,8 +19,7 @@ export interface StudentScript {
   withheld: { hiddenChecks: number; hiddenPoints: number };
 }
 
-const isExpect = (step: Step): step is ExpectStep => 'expect' in step;
-const isHidden = (step: Step): boolean => isExpect(step) && step.hidden === true;
+const isHidden = (step: Step): boolean => isCheckStep(step) && step.hidden === true;
 
 /**
  * One wait that runs exactly the scans of `wait firstMs` then `wait thenMs`, or null when it
@@ -34,7 +35,7 @@ export function joinWaits(firstMs: number, thenMs: number, scanMs: number | null
 
 /** The student's script of a (parsed) check script; see the module comment. */
 export function studentScript(script: CheckScript): StudentScript {
-  const lastVisible = script.steps.findLastIndex((step) => isExpect(step) && !step.hidden);
+  const lastVisible = script.steps.findLastIndex((step) => isCheckStep(step) && !step.hidden);
   const steps: Step[] = [];
   let hiddenChecks = 0;
   let hiddenPoints = 0;
@@ -43,7 +44,15 @@ export function studentScript(script: CheckScript): StudentScript {
   script.steps.forEach((step, i) => {
     if (isHidden(step)) {
       hiddenChecks += 1;
-      hiddenPoints += (step as ExpectStep).points ?? 1;
+      hiddenPoints += (isCheckStep(step) ? step.points : undefined) ?? 1;
+      const span = stepSpanMs(step);
+      if (span > 0 && i < lastVisible) {
+        // Its time still runs: as a wait, joined with a wait just before it when that fits.
+        const previous = steps.at(-1);
+        const joined = previous && 'wait' in previous ? joinWaits(previous.wait, span, script.scanMs) : null;
+        if (previous && joined !== null) steps[steps.length - 1] = { wait: joined };
+        else steps.push({ wait: span });
+      }
       afterHidden = true;
       return;
     }

@@ -1,5 +1,5 @@
 /**
- * The caution every lab shows (DESIGN.md "Safety cautions"): one plain line and the standards.
+ * The caution every lab shows (docs/names-and-rules.md, "Facts of the trade"): one plain line and the standards.
  * In a module of its own because the browser needs it (lab pages, a new lab's brief) and must
  * not load the standard labs to get it: their check scripts and reference solutions are
  * server-only (see README.md).

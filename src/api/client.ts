@@ -31,7 +31,7 @@ export function createApi(http: Http) {
     me: () => http.json(ENDPOINTS.me, SessionResponseSchema, { quiet401: true }),
     signIn: (body: SignInRequest) => http.json(ENDPOINTS.signIn, SessionResponseSchema, { method: 'POST', body, quiet401: true }),
     // A JSON body, even empty: the server refuses a POST whose body has no JSON type (a browser sends Content-Length: 0).
-    signOut: () => http.raw(ENDPOINTS.signOut, { method: 'POST', body: {}, quiet401: true }).then(() => undefined),
+    signOut: () => http.raw(ENDPOINTS.signOut, { method: 'POST', quiet401: true }).then(() => undefined),
     requestPasswordReset: (email: string) =>
       http.json(ENDPOINTS.passwordReset, PasswordResetAcceptedSchema, { method: 'POST', body: { email }, quiet401: true }),
     confirmPasswordReset: (token: string, password: string) =>

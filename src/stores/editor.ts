@@ -13,6 +13,7 @@ import { commandForKey, isEnabled, runCommand, type KeyChord } from '@/editor/co
 import type { Clipboard, CommandArgs, CommandName, CommandResult, EditorEffects, EditorState } from '@/editor/commands/types';
 import { canRedo, canUndo, commit, createHistory, redo as redoHistory, undo as undoHistory, withSelection } from '@/editor/history';
 import { layoutProgram } from '@/editor/layout';
+import { editPastLimits } from '@/editor/documentLimits';
 import type { ProgramLayout } from '@/editor/layoutTypes';
 import { NO_SELECTION, pruneSelection, sameSlot, type Selection } from '@/editor/selection';
 import { rungTextMap } from '@/editor/textForm';
@@ -51,6 +52,8 @@ export const useEditorStore = defineStore('editor', () => {
   const clipboard = shallowRef<Clipboard | null>(null);
   const readOnly = ref(false);
   const showTextForm = ref(false);
+  /** The last edit refused for passing a document size limit, with why (`at` tells repeats apart). */
+  const refusedEdit = shallowRef<{ message: string; at: number } | null>(null);
   /** The document as last saved or loaded: the editor is dirty while the present differs. */
   const savedDoc = shallowRef<Program | null>(history.value.present.doc);
 
@@ -93,6 +96,11 @@ export const useEditorStore = defineStore('editor', () => {
     let nextSelection = result.selection ?? selection.value;
     if (nextDoc !== doc.value) {
       if (readOnly.value) return;
+      const pastLimits = editPastLimits(nextDoc);
+      if (pastLimits) {
+        refusedEdit.value = { message: pastLimits, at: (refusedEdit.value?.at ?? 0) + 1 };
+        return;
+      }
       nextSelection = reconcileSelection(nextSelection, nextDoc, layoutProgram(nextDoc));
       history.value = commit(history.value, nextDoc, nextSelection, result.coalesceKey ?? null);
     } else if (nextSelection !== selection.value) {
@@ -151,6 +159,7 @@ export const useEditorStore = defineStore('editor', () => {
     selection,
     clipboard,
     readOnly,
+    refusedEdit,
     showTextForm,
     layout,
     diagnostics,

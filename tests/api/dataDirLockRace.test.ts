@@ -81,11 +81,12 @@ describe('the DATA_DIR lock raced by two processes at the same instant', () => {
       const dir = path.join(root, `free-${n}`);
       const { answers, winners } = await trial(dir);
       winnersPerTrial.push(winners.length);
-      late.push(...answers.map((a) => a.lateByMs));
+      // How far apart the two reached the lock: the race is only real when this is small.
+      late.push(Math.abs(answers[0]!.lateByMs - answers[1]!.lateByMs));
       const loser = answers.find((a) => !a.won);
       if (winners.length === 1 && !(loser?.error?.includes(path.resolve(dir)) && loser.error.includes(`pid ${winners[0]!.pid}`))) badMessages.push(loser?.error ?? '');
     }
-    console.log(`free directory: winners per trial ${JSON.stringify(tally(winnersPerTrial))}; contenders started at most ${Math.max(...late)} ms after the shared instant`);
+    console.log(`free directory: winners per trial ${JSON.stringify(tally(winnersPerTrial))}; the two reached the lock ${[...late].sort((a, b) => a - b)[Math.floor(late.length / 2)]} ms apart (median), ${Math.max(...late)} ms at most`);
     expect(winnersPerTrial).toEqual(Array(TRIALS).fill(1));
     // The loser names the directory and the winner's pid.
     expect(badMessages).toEqual([]);

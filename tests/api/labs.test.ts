@@ -58,7 +58,7 @@ const expectNoSecrets = (raw: string) => {
 
 describe('authoring', () => {
   it('names the step and field of a bad script and the field of a bad panel', async () => {
-    const bad = await call(t, 'post', `/api/classes/${cast.classId}/labs`, cast.instructor.cookie).send({ title: 'Bad', script: { steps: [{ wait: 10 }, { press: 'Z9' }] } });
+    const bad = await call(t, 'post', `/api/classes/${cast.classId}/labs`, cast.instructor.cookie).send({ title: 'Bad', script: { steps: [{ wait: 10 }, { press: 'Z9' }, { expect: { P2: 'lit' }, label: 'red lamp at rest' }] } });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields['script.steps.1']).toMatch(/step 2/);
     const badPanel = await call(t, 'post', `/api/classes/${cast.classId}/labs`, cast.instructor.cookie).send({ title: 'Bad', script: SCRIPT, panel: { kind: 'custom', layout: { format: 'nope' } } });

@@ -30,7 +30,7 @@ export function usePersistence(programId: () => string) {
 
   function documentFrom(raw: unknown): Program {
     const parsed = parseProgram(raw);
-    if (!parsed.ok) throw new Error(`This program's saved document cannot be opened: ${parsed.error}`);
+    if (!parsed.ok) throw new Error(`This program's saved document cannot be opened: ${parsed.error}. An earlier version can be opened or restored from History.`);
     return parsed.value;
   }
 

@@ -109,8 +109,21 @@ function rowOf(check: CheckResult): CheckRow {
     atMs: check.atMs,
     lines,
     steps: check.steps,
-    note: check.note ?? null,
+    note: [timedWords(check), check.note].filter(Boolean).join('; ') || null,
   };
+}
+
+/** What a check over time found, in words: the lines alone would read a `never` backwards. */
+function timedWords(check: CheckResult): string | null {
+  if (check.kind === 'never' || check.kind === 'always') {
+    const span = `${check.kind} over ${check.spanMs ?? 0} ms`;
+    return check.failedAt ? `${span}: first broken at ${check.failedAt.atMs} ms (scan ${check.failedAt.scan}), values read there` : `${span}: held at every scan`;
+  }
+  if (check.kind === 'until') {
+    const window = check.within ? ` (wanted between ${check.within[0]} and ${check.within[1]} ms)` : '';
+    return check.tookMs === null || check.tookMs === undefined ? `never held${window}` : `first held after ${check.tookMs} ms${window}`;
+  }
+  return null;
 }
 
 /** The report as rows; a redacted report's hidden checks become counts, never rows. */

@@ -59,7 +59,7 @@ describe('runChecks', () => {
     expect(r.checks[2]!.actual).toEqual({ 'T9.ET': null });
   });
   it('returns script and panel problems as errors, not as a report', () => {
-    const bad = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: { steps: [{ trip: 'K1' }] } });
+    const bad = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: { steps: [{ trip: 'K1' }, { expect: { K1: 'open' } }] } });
     expect(bad).toEqual({ ok: false, errors: ['step 1: "trip" needs the id of an overload relay, got "K1" (a contactor)'] });
     expect(runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: 'nope' })).toEqual({ ok: false, errors: ['a check script is a JSON object with "steps"'] });
   });
@@ -136,7 +136,7 @@ describe('redactReport', () => {
   });
 });
 
-describe('the example script of DESIGN.md', () => {
+describe('the example script of docs/check-scripts.md', () => {
   it('passes on the three-wire reference solution, the hidden overload check included', () => {
     const example = {
       panel: 'reversing-conveyor',

@@ -43,7 +43,7 @@ describe('painting the rungs', () => {
     expect(Math.min(...asked)).toBeLessThan(MIN_CANVAS_TEXT_PX);
   });
 
-  it('never paints text below 11 px (DESIGN.md: canvas text is never below 11 px at zoom 1, and the canvas never zooms below 1)', () => {
+  it('never paints text below 11 px (docs/names-and-rules.md: canvas text is never smaller than 11 px; the canvas never zooms below 1)', () => {
     const { ctx, sizes } = fontRecorder();
     paintOps(ctx, ops, LIGHT_PALETTE);
     expect(sizes).toHaveLength(asked.length);

@@ -100,3 +100,18 @@ describe('"show me": replaying a check run in the simulator', () => {
     expect(replayableScript({ steps: [] })).toBeNull();
   });
 });
+
+describe('a check over time in the report', () => {
+  it('says in words where a never/always broke and when an until held', () => {
+    const run = runChecks({
+      program: THREE_WIRE.solution,
+      panel: REVERSING_CONVEYOR,
+      script: { steps: [{ press: 'S2' }, { during: 500, never: { K1: 'closed' } }, { until: { K1: 'open' }, within: [0, 100] }, { release: 'S2' }, { press: 'S1' }, { until: { K1: 'open' }, within: [0, 200] }] },
+    });
+    if (!run.ok) throw new Error(run.errors.join());
+    const notes = presentReport(run.report).rows.map((r) => r.note);
+    expect(notes[0]).toMatch(/^never over 500 ms: first broken at \d+ ms \(scan \d+\), values read there$/);
+    expect(notes[1]).toBe('never held (wanted between 0 and 100 ms)');
+    expect(notes[2]).toMatch(/^first held after \d+ ms \(wanted between 0 and 200 ms\)$/);
+  });
+});
