@@ -100,6 +100,36 @@ describe('the field panel component', () => {
     wrapper.unmount();
   });
 
+  it('makes F1\'s reset the blue main action only once F1 has tripped', async () => {
+    const { store, pinia } = setup();
+    const wrapper = mount(PanelView, { global: { plugins: [pinia] } });
+    const reset = () => wrapper.find('[data-device="F1"] button.reset');
+    expect(reset().classes()).not.toContain('main');
+    expect(reset().text()).toMatch(/^Reset F1/);
+    store.act('F1', 'trip');
+    await wrapper.vm.$nextTick();
+    expect(reset().classes()).toContain('main');
+    store.act('F1', 'reset');
+    await wrapper.vm.$nextTick();
+    expect(reset().classes()).not.toContain('main');
+    wrapper.unmount();
+  });
+
+  it('shows a pressed e-stop latched down with the word LATCHED, and released without it', async () => {
+    const { store, pinia } = setup();
+    const wrapper = mount(PanelView, { global: { plugins: [pinia] } });
+    const estop = () => wrapper.find('[data-device="S0"]');
+    expect(estop().classes()).not.toContain('latched');
+    expect(estop().find('[data-testid="estop-state"]').text()).toBe('released');
+    store.act('S0', 'press');
+    await wrapper.vm.$nextTick();
+    expect(estop().classes()).toContain('latched');
+    expect(estop().find('button.mushroom').classes()).toContain('latched');
+    expect(estop().find('button.mushroom').attributes('aria-pressed')).toBe('true');
+    expect(estop().find('[data-testid="estop-state"]').text()).toBe('LATCHED');
+    wrapper.unmount();
+  });
+
   it('leaves keys typed into a text field alone', () => {
     const { store, pinia } = setup();
     const wrapper = mount(PanelView, { global: { plugins: [pinia] }, attachTo: document.body });
@@ -113,7 +143,7 @@ describe('the field panel component', () => {
 });
 
 describe('the I/O status table', () => {
-  it('says why %QX1 is ON while K1 is open after the overload trips, and forces from a row', async () => {
+  it('says why %QX1 is ON while K1 is open when S2 is held on a tripped overload, and forces from a row', async () => {
     const { store, pinia } = setup();
     store.act('S4', 'set', { to: 'RUN' });
     store.press('S2');
@@ -121,6 +151,8 @@ describe('the I/O status table', () => {
     store.release('S2');
     for (let i = 0; i < 60; i += 1) store.step();
     store.act('F1', 'trip');
+    // The trip drops K1 and its auxiliary contact breaks the seal; holding S2 commands K1 again.
+    store.press('S2');
     for (let i = 0; i < 5; i += 1) store.step();
     const wrapper = mount(IoStatusTable, { global: { plugins: [pinia] } });
     expect(wrapper.find('td[data-reason="%QX1"]').text()).toBe('%QX1 ON, K1 open (F1 95-96 open)');
