@@ -240,7 +240,9 @@ describe('a student\'s lab session', () => {
     await expect.poll(() => page.getByTestId('save-status').innerText()).toMatch(/Saved · version 1/);
     const before = await messages();
 
-    // The panel has the focus: T trips F1 and the program is what it was.
+    // Inserting the TON turned the dock to the inspector; back on the panel, with the focus in it,
+    // T trips F1 and the program is what it was.
+    await page.getByRole('tab', { name: 'Panel' }).click();
     await page.getByTestId('field-panel').focus();
     await page.keyboard.press('t');
     await expect.poll(f1).toBe('TRIPPED');
