@@ -11,6 +11,7 @@ import { BLOCK_SPECS, blockOutput, operandInputs, type BlockParam, type ParamTyp
 import { buildSymbolTable, operandKey, resolveOperand, symbolKey, type Operand, type SymbolTable } from '../ladder/operands';
 import type { Block, Coil, Contact, NetworkNode, Program } from '../ladder/schema';
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
+import { COIL_KINDS, CONTACT_KINDS } from './elements';
 import { bitLayout, type BitLayout, type Plan, type PlanBlockInput, type PlanEdge, type PlanInstance } from './plan';
 import type { PlanNode, PlanSeries, PlanSource } from './plan';
 
@@ -116,7 +117,7 @@ function lowerContact(contact: Contact, flow: number, path: number[], context: L
   if (!resolved.ok) report(resolved.error);
   else {
     source = sourceFor(resolved.value, 'BOOL', context, report) ?? UNUSABLE;
-    if (contact.variant === 'rising' || contact.variant === 'falling') {
+    if (CONTACT_KINDS[contact.variant].edge) {
       edge = context.edges.length;
       context.edges.push({ elementId: contact.id, operand: operandKey(resolved.value) });
     }
@@ -130,6 +131,7 @@ function lowerCoil(coil: Coil, flow: number, path: number[], context: Lowering):
   };
   const resolved = resolveOperand(coil.operand, context.symbols);
   let bit = -1;
+  let edge = -1;
   if (!resolved.ok) report(resolved.error);
   else if (resolved.value.kind !== 'bit') report(`a coil writes a bit (%QX or %MX); "${coil.operand.trim()}" is not one`);
   else if (resolved.value.address.area === 'I') {
@@ -138,8 +140,12 @@ function lowerCoil(coil: Coil, flow: number, path: number[], context: Lowering):
     const range = addressInRange(resolved.value.address, context.space);
     if (range !== null) report(range);
     else bit = bitIndex(resolved.value, context.layout);
+    if (COIL_KINDS[coil.variant].edge) {
+      edge = context.edges.length;
+      context.edges.push({ elementId: coil.id, operand: operandKey(resolved.value) });
+    }
   }
-  return { op: 'coil', id: coil.id, flow, variant: coil.variant, bit };
+  return { op: 'coil', id: coil.id, flow, variant: coil.variant, bit, edge };
 }
 
 function lowerBlock(block: Block, flow: number, path: number[], context: Lowering): PlanNode {
