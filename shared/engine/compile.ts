@@ -5,11 +5,13 @@
 import { DEFAULT_ADDRESS_SPACE, type AddressSpace } from '../ladder/addresses';
 import { hasErrors } from '../ladder/diagnostics';
 import { parseProgram } from '../ladder/restore';
+import { ok } from '../ladder/result';
 import type { Program } from '../ladder/schema';
 import { validateProgram } from '../ladder/validate';
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
 import { lowerProgram } from './lower';
 import type { Plan } from './plan';
+import { isParsedProgram } from './wellFormed';
 
 export type CompileResult =
   | { ok: true; plan: Plan; /** warnings only */ diagnostics: Diagnostic[] }
@@ -21,13 +23,14 @@ export interface CompileOptions {
 }
 
 /**
- * Validate and lower a program: the document is checked (`parseProgram`), then validated against
- * the panel's address space (`validateProgram`); any error stops compilation and is returned with
- * the warnings. Never throws for anything in the document.
+ * Validate and lower a program: the document is checked (a program that is already exactly what
+ * `parseProgram` returns passes a fast walk, anything else goes through `parseProgram`), then
+ * validated against the panel's address space (`validateProgram`); any error stops compilation
+ * and is returned with the warnings. Never throws for anything in the document.
  */
 export function compile(program: Program, options: CompileOptions = {}): CompileResult {
   const space = options.space ?? DEFAULT_ADDRESS_SPACE;
-  const parsed = parseProgram(program);
+  const parsed = isParsedProgram(program) ? ok(program) : parseProgram(program);
   if (!parsed.ok) return { ok: false, diagnostics: [engineDiagnostic(null, [], null, '', parsed.error)] };
   const diagnostics = validateProgram(parsed.value, space);
   if (hasErrors(diagnostics)) return { ok: false, diagnostics };
