@@ -10,8 +10,8 @@
 import { ByteWriter } from './byteWriter';
 import { ALIGN, OP, TYPE, WIDE, type Width } from './opcodes';
 
-export const I32_TEMPS = 10;
-export const F64_TEMPS = 4;
+const I32_TEMPS = 10;
+const F64_TEMPS = 4;
 
 /** Parameter index of `dt`, the scan period in ms (f64). */
 export const DT = 0;
