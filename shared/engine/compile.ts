@@ -9,6 +9,7 @@ import { ok } from '../ladder/result';
 import type { Program } from '../ladder/schema';
 import { validateProgram } from '../ladder/validate';
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
+import { MAX_MODULE_BYTES, moduleBytesBound } from './kernel';
 import { lowerProgram } from './lower';
 import type { Plan } from './plan';
 import { isParsedProgram } from './wellFormed';
@@ -36,5 +37,9 @@ export function compile(program: Program, options: CompileOptions = {}): Compile
   if (hasErrors(diagnostics)) return { ok: false, diagnostics };
   const lowered = lowerProgram(parsed.value, space);
   if (!lowered.ok) return { ok: false, diagnostics: [...diagnostics, ...lowered.diagnostics] };
+  if (moduleBytesBound(lowered.plan) > MAX_MODULE_BYTES) {
+    const reason = `the program is too large to run: ${lowered.plan.elementCount} elements in ${lowered.plan.rungs.length} rungs; split it, or remove rungs`;
+    return { ok: false, diagnostics: [...diagnostics, engineDiagnostic(null, [], null, '', reason)] };
+  }
   return { ok: true, plan: lowered.plan, diagnostics };
 }

@@ -37,7 +37,7 @@ function rememberValue({ code, edge, temp }: ContactEmit): void {
   code.op(OP.i32And);
   code.storeBase();
   code.get(temp);
-  code.endStore8(edge);
+  code.endStoreCell(edge);
 }
 
 export const CONTACT_KINDS = {
@@ -63,7 +63,7 @@ export const CONTACT_KINDS = {
     emit: (e) => {
       const { code } = e;
       code.tee(e.temp);
-      code.load8(e.edge);
+      code.loadCell(e.edge);
       code.op(OP.i32Eqz);
       code.op(OP.i32And);
       rememberValue(e);
@@ -77,7 +77,7 @@ export const CONTACT_KINDS = {
       const { code } = e;
       code.tee(e.temp);
       code.op(OP.i32Eqz);
-      code.load8(e.edge);
+      code.loadCell(e.edge);
       code.op(OP.i32And);
       rememberValue(e);
     },
@@ -133,7 +133,7 @@ export const COIL_KINDS = {
     writes: (p, old) => p | old,
     emit: ({ code, power, bit }) => {
       code.get(power);
-      code.load8(bit);
+      code.loadCell(bit);
       code.op(OP.i32Or);
     },
   },
@@ -142,7 +142,7 @@ export const COIL_KINDS = {
     edge: false,
     writes: (p, old) => old & (p ^ 1),
     emit: ({ code, power, bit }) => {
-      code.load8(bit);
+      code.loadCell(bit);
       code.get(power);
       code.op(OP.i32Eqz);
       code.op(OP.i32And);

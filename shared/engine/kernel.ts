@@ -20,7 +20,7 @@ import type { Plan, PlanBlock, PlanCoil, PlanContact, PlanNode, PlanOp, PlanRung
 import type { StateLayout } from './stateLayout';
 import { Code, DT } from './wasm/code';
 import { assembleModule } from './wasm/module';
-import { OP } from './wasm/opcodes';
+import { CELL, OP } from './wasm/opcodes';
 
 /** Elements per generated function: each function is compiled and optimised on its own. */
 const CHUNK_ELEMENTS = 400;
@@ -48,6 +48,9 @@ function checkedAddress(n: number): number {
   return n;
 }
 
+/** Byte address of bit `bit` of the image, and of its cell in an area of one cell per bit. */
+const bitAt = (bit: number, area = 0): number => checkedAddress(area + CELL * bit);
+
 /** Byte address of a field of an instance's record. */
 function fieldAddress(e: Emitting, instance: number, name: string): number {
   const record = e.layout.recordLayouts[instance];
@@ -60,11 +63,11 @@ function fieldAddress(e: Emitting, instance: number, name: string): number {
 function pushBool(e: Emitting, source: PlanSource): void {
   switch (source.kind) {
     case 'bit':
-      e.code.load8(checkedAddress(source.bit));
+      e.code.loadCell(bitAt(source.bit));
       return;
     case 'member':
       if (source.type !== 'BOOL') throw new TypeError('wasm: a BOOL is read from a BOOL member');
-      e.code.load8(fieldAddress(e, source.instance, source.member));
+      e.code.loadCell(fieldAddress(e, source.instance, source.member));
       return;
     case 'constant':
       e.code.i32(source.value !== 0 ? 1 : 0);
@@ -91,11 +94,11 @@ function pushNumber(e: Emitting, source: PlanSource): void {
  */
 function endStoreBit(e: Emitting, bit: number): void {
   const { code, layout } = e;
-  code.load8(layout.keep + bit);
+  code.loadCell(bitAt(bit, layout.keep));
   code.op(OP.i32And);
-  code.load8(layout.forced + bit);
+  code.loadCell(bitAt(bit, layout.forced));
   code.op(OP.i32Or);
-  code.endStore8(bit);
+  code.endStoreCell(bitAt(bit));
 }
 
 type Emitter<N extends PlanNode> = (node: N, depth: number, e: Emitting) => void;
@@ -123,22 +126,21 @@ const EMITTERS = {
   contact: (node: PlanContact, _depth, e) => {
     const kind = CONTACT_KINDS[node.variant];
     pushBool(e, node.source);
-    kind.emit({ code: e.code, edge: kind.edge ? checkedAddress(e.layout.edges + node.edge) : -1, temp: e.code.i32Temp(EDGE_VALUE) });
+    kind.emit({ code: e.code, edge: kind.edge ? bitAt(node.edge, e.layout.edges) : -1, temp: e.code.i32Temp(EDGE_VALUE) });
   },
   coil: (node: PlanCoil, _depth, e) => {
     const { code } = e;
     const kind = COIL_KINDS[node.variant];
     const power = code.i32Temp(COIL_POWER);
-    const bit = checkedAddress(node.bit);
-    const edge = kind.edge ? checkedAddress(e.layout.edges + node.edge) : -1;
+    const edge = kind.edge ? bitAt(node.edge, e.layout.edges) : -1;
     code.set(power);
     code.storeBase();
-    kind.emit({ code, power, bit, edge });
-    endStoreBit(e, bit);
+    kind.emit({ code, power, bit: bitAt(node.bit), edge });
+    endStoreBit(e, node.bit);
     if (kind.edge) {
       code.storeBase();
       code.get(power);
-      code.endStore8(edge);
+      code.endStoreCell(edge);
     }
     code.get(power);
   },
@@ -179,7 +181,7 @@ function emitBlock(node: PlanBlock, e: Emitting): void {
     f64: (n) => code.f64Temp(BLOCK_SCRATCH_F64 + n),
   };
   BLOCK_BEHAVIOURS[node.type].emit(context);
-  code.load8(fieldAddress(e, node.instance, BLOCK_SPECS[node.type].powerOut));
+  code.loadCell(fieldAddress(e, node.instance, BLOCK_SPECS[node.type].powerOut));
 }
 
 /** Store the power on the stack into a flow record byte, leaving it on the stack. */
@@ -189,14 +191,14 @@ function recordFlow(e: Emitting, address: number): void {
   code.set(temp);
   code.storeBase();
   code.get(temp);
-  code.endStore8(checkedAddress(address));
+  code.endStoreCell(checkedAddress(address));
   code.get(temp);
 }
 
 function emitNode(node: PlanNode, depth: number, e: Emitting): void {
-  if (e.recordFlow) recordFlow(e, e.layout.flowLeft + node.flow);
+  if (e.recordFlow) recordFlow(e, bitAt(node.flow, e.layout.flowLeft));
   (EMITTERS[node.op] as Emitter<PlanNode>)(node, depth, e);
-  if (e.recordFlow) recordFlow(e, e.layout.flowRight + node.flow);
+  if (e.recordFlow) recordFlow(e, bitAt(node.flow, e.layout.flowRight));
 }
 
 function countElements(node: PlanNode): number {
@@ -223,34 +225,13 @@ function chunkRungs(rungs: readonly PlanRung[]): PlanRung[][] {
   return chunks;
 }
 
-/**
- * Input image: each input bit = its field value, or its forced value (step 1 of the scan cycle).
- * Byte by byte, like the stores around it: a wide load over bytes just stored one at a time (the
- * field values) stalls the processor longer than the bytes take to copy.
- */
-/**
- * Input image: each input bit = its field value, or its forced value (step 1 of the scan cycle).
- * Four inputs at a time, as the runtime writes the field values (a wide load over bytes stored
- * one at a time would stall the processor longer than the copy takes), the rest byte by byte.
- */
+/** Input image: each input bit = its field value, or its forced value (step 1 of the scan cycle). */
 function emitInputImage(e: Emitting): void {
   const { code, plan, layout } = e;
-  const bits = plan.layout.inputs;
-  const words = Math.floor(plan.space.inputs / 4);
-  for (let w = 0; w < words; w += 1) {
-    const at = 4 * w;
+  for (let i = 0; i < plan.space.inputs; i += 1) {
     code.storeBase();
-    code.loadWide(4, layout.field + at);
-    code.loadWide(4, layout.keep + bits + at);
-    code.op(OP.i32And);
-    code.loadWide(4, layout.forced + bits + at);
-    code.op(OP.i32Or);
-    code.endStoreWide(4, bits + at);
-  }
-  for (let i = 4 * words; i < plan.space.inputs; i += 1) {
-    code.storeBase();
-    code.load8(layout.field + i);
-    endStoreBit(e, bits + i);
+    code.loadCell(bitAt(i, layout.field));
+    endStoreBit(e, plan.layout.inputs + i);
   }
 }
 
@@ -282,3 +263,29 @@ export function kernelModule(plan: Plan, layout: StateLayout, options: { recordF
   });
   return assembleModule([...functions, scan.code], functions.length, layout.pages);
 }
+
+/**
+ * Upper bounds of the bytes one node adds to the recording module (the larger variant): its two
+ * flow records, its own instructions, and for a block its inputs and its behaviour. Tested
+ * against real modules.
+ */
+const MAX_NODE_BYTES = { series: 32, parallel: 40, contact: 56, coil: 80, block: 512 } as const satisfies Record<PlanOp, number>;
+
+/** An upper bound of the size of a plan's recording module, in bytes. */
+export function moduleBytesBound(plan: Plan): number {
+  let bytes = 1024 + 64 * plan.space.inputs;
+  const visit = (node: PlanNode): void => {
+    bytes += MAX_NODE_BYTES[node.op];
+    if (node.op === 'series') node.items.forEach(visit);
+    else if (node.op === 'parallel') node.branches.forEach(visit);
+  };
+  for (const rung of plan.rungs) visit(rung.network);
+  return bytes;
+}
+
+/**
+ * The largest module compiled: a browser compiles a module on its main thread synchronously only
+ * up to 8 MB (Chromium's message: "WebAssembly.Compile is disallowed on the main thread, if the
+ * buffer size is larger than 8MB"; measured in Chromium 156).
+ */
+export const MAX_MODULE_BYTES = 8_000_000;

@@ -42,7 +42,7 @@ export function resolveReader(plan: Plan, text: string): Reader | null {
     case 'bit': {
       if (addressInRange(operand.address, plan.space) !== null) return null;
       const bit = bitIndex(operand, plan.layout);
-      return (machine) => machine.bytes[bit] === 1;
+      return (machine) => machine.cells[bit] === 1;
     }
     case 'member': {
       const instance = plan.instances.findIndex((i) => i.key === operand.instance);
@@ -53,7 +53,7 @@ export function resolveReader(plan: Plan, text: string): Reader | null {
       const { offset } = field;
       return field.kind === 'number'
         ? (machine) => machine.numbers[(machine.layout.records[instance]! + offset) / 8]
-        : (machine) => machine.bytes[machine.layout.records[instance]! + offset] === 1;
+        : (machine) => machine.cells[(machine.layout.records[instance]! + offset) / 4] === 1;
     }
     case 'bool':
       return () => operand.value;

@@ -34,15 +34,14 @@ class ScanRuntime implements Runtime {
   private flowValid = false;
   private flowCache: PowerFlowView | null = null;
   private readonly readers = new Map<string, Reader | null>();
-  /** The field values four inputs to a word (see the kernel's input image); null on a big-endian host. */
-  private readonly fieldWords: Uint32Array | null;
+  /** The field value cells, one per input (index 0 = %IX1). */
+  private readonly field: Int32Array;
 
   constructor(plan: Plan, scanMs: number, recordFlow: boolean) {
     this.plan = plan;
     this.scanMs = scanMs;
     this.machine = createMachine(plan);
-    const words = Math.floor(plan.space.inputs / 4);
-    this.fieldWords = LITTLE_ENDIAN ? new Uint32Array(this.machine.bytes.buffer, this.machine.layout.field, words) : null;
+    this.field = this.machine.cells.subarray(this.machine.layout.field / 4, this.machine.layout.field / 4 + plan.space.inputs);
     this.core = { plan, scanMs, machine: this.machine, forces: new Map(), scanCount: 0, timeMs: 0 };
     this.recording = recordFlow;
     this.kernel = this.machine.kernel(recordFlow);
@@ -59,28 +58,19 @@ class ScanRuntime implements Runtime {
   setInput(index: number, value: boolean): void {
     const inputs = this.plan.space.inputs;
     if (!(index >= 1 && index <= inputs && Number.isInteger(index))) checkIndex(index, inputs, 'setInput', '%IX');
-    this.machine.bytes[this.machine.layout.field + index - 1] = value ? 1 : 0;
+    this.field[index - 1] = value ? 1 : 0;
   }
 
   setInputs(values: ArrayLike<boolean>): void {
-    const { bytes, layout } = this.machine;
-    const inputs = this.plan.space.inputs;
-    const n = values.length < inputs ? values.length : inputs;
-    const field = layout.field;
-    const words = this.fieldWords;
-    let i = 0;
-    if (words !== null) {
-      for (; i + 4 <= n; i += 4) {
-        words[i >> 2] = (values[i] ? 1 : 0) | (values[i + 1] ? 0x100 : 0) | (values[i + 2] ? 0x10000 : 0) | (values[i + 3] ? 0x1000000 : 0);
-      }
-    }
-    for (; i < n; i += 1) bytes[field + i] = values[i] ? 1 : 0;
+    const field = this.field;
+    const n = values.length < field.length ? values.length : field.length;
+    for (let i = 0; i < n; i += 1) field[i] = values[i] ? 1 : 0;
   }
 
   getOutput(index: number): boolean {
     const outputs = this.plan.space.outputs;
     if (!(index >= 1 && index <= outputs && Number.isInteger(index))) checkIndex(index, outputs, 'getOutput', '%QX');
-    return this.machine.bytes[this.plan.layout.outputs + index - 1] === 1;
+    return this.machine.cells[this.plan.layout.outputs + index - 1] === 1;
   }
 
   read(operand: string): boolean | number | undefined {
@@ -144,11 +134,10 @@ class ScanRuntime implements Runtime {
     }
     const cached = this.flowCache;
     if (cached !== null && cached.scanCount === core.scanCount && cached.recorded === this.flowValid) return cached;
-    const { bytes, layout } = this.machine;
+    const { cells, layout } = this.machine;
     const nodes = this.plan.flowIds.length;
-    const record = this.flowValid
-      ? { left: bytes.slice(layout.flowLeft, layout.flowLeft + nodes), right: bytes.slice(layout.flowRight, layout.flowRight + nodes) }
-      : { left: new Uint8Array(nodes), right: new Uint8Array(nodes) };
+    const side = (at: number): Uint8Array => Uint8Array.from(cells.subarray(at / 4, at / 4 + nodes));
+    const record = this.flowValid ? { left: side(layout.flowLeft), right: side(layout.flowRight) } : { left: new Uint8Array(nodes), right: new Uint8Array(nodes) };
     this.flowCache = createPowerFlowView(this.plan, record, core.scanCount, this.flowValid);
     return this.flowCache;
   }
@@ -196,22 +185,19 @@ class ScanRuntime implements Runtime {
   }
 
   private forceBit(bit: number, value: boolean): void {
-    const { bytes, layout } = this.machine;
+    const { cells, layout } = this.machine;
     const v = value ? 1 : 0;
-    bytes[layout.keep + bit] = 0;
-    bytes[layout.forced + bit] = v;
-    bytes[bit] = v;
+    cells[layout.keep / 4 + bit] = 0;
+    cells[layout.forced / 4 + bit] = v;
+    cells[bit] = v;
   }
 
   private releaseBit(bit: number): void {
-    const { bytes, layout } = this.machine;
-    bytes[layout.keep + bit] = 1;
-    bytes[layout.forced + bit] = 0;
+    const { cells, layout } = this.machine;
+    cells[layout.keep / 4 + bit] = 1;
+    cells[layout.forced / 4 + bit] = 0;
   }
 }
-
-/** WebAssembly memory is little-endian; a typed array follows the host's order. */
-const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 
 function checkIndex(index: number, size: number, what: string, prefix: string): void {
   if (!Number.isInteger(index) || index < 1 || index > size) {

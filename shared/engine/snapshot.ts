@@ -48,9 +48,10 @@ export interface RestoreReport {
 export function takeSnapshot(core: RuntimeCore): RuntimeSnapshot {
   const { plan, machine } = core;
   const { layout } = plan;
-  const { bytes } = machine;
+  const { cells } = machine;
   const at = machine.layout;
-  const area = (from: number, to: number): number[] => Array.from(bytes.subarray(from, to));
+  /** Cells `[from, to)` counted from byte address `base`. */
+  const area = (from: number, to: number, base = 0): number[] => Array.from(cells.subarray(base / 4 + from, base / 4 + to));
   return {
     format: SNAPSHOT_FORMAT,
     version: 1,
@@ -58,14 +59,14 @@ export function takeSnapshot(core: RuntimeCore): RuntimeSnapshot {
     scanCount: core.scanCount,
     timeMs: core.timeMs,
     space: { ...plan.space },
-    field: area(at.field, at.field + plan.space.inputs),
+    field: area(0, plan.space.inputs, at.field),
     bits: {
       inputs: area(layout.inputs, layout.outputs),
       outputs: area(layout.outputs, layout.memory),
       memory: area(layout.memory, layout.size),
     },
     outputImage: area(layout.outputs, layout.memory),
-    edges: plan.edges.map((edge, i) => ({ elementId: edge.elementId, operand: edge.operand, value: bytes[at.edges + i]! })),
+    edges: plan.edges.map((edge, i) => ({ elementId: edge.elementId, operand: edge.operand, value: cells[at.edges / 4 + i]! })),
     instances: plan.instances.map((instance, i) => ({ name: instance.name, type: instance.type, state: readRecord(machine, i) })),
     forces: [...core.forces].map(([address, { value }]) => ({ address, value })),
   };
@@ -85,8 +86,9 @@ export function applySnapshot(
   }
   const { plan, machine } = core;
   const { layout } = plan;
-  const { bytes } = machine;
+  const { cells } = machine;
   const at = machine.layout;
+  const field = at.field / 4;
   const kept: string[] = [];
   const dropped: string[] = [];
 
@@ -97,16 +99,16 @@ export function applySnapshot(
       else if (v === 1) dropped.push(`${prefix}${i + 1}`);
     });
   };
-  bytes.fill(0, 0, layout.size);
-  bytes.fill(0, at.field, at.field + plan.space.inputs);
-  copyBits(snapshot.field, plan.space.inputs, (i, v) => (bytes[at.field + i] = v), '%IX');
-  copyBits(snapshot.bits?.inputs, plan.space.inputs, (i, v) => (bytes[layout.inputs + i] = v), '%IX');
-  copyBits(snapshot.bits?.outputs, plan.space.outputs, (i, v) => (bytes[layout.outputs + i] = v), '%QX');
-  copyBits(snapshot.bits?.memory, plan.space.memory, (i, v) => (bytes[layout.memory + i] = v), '%MX');
+  cells.fill(0, 0, layout.size);
+  cells.fill(0, field, field + plan.space.inputs);
+  copyBits(snapshot.field, plan.space.inputs, (i, v) => (cells[field + i] = v), '%IX');
+  copyBits(snapshot.bits?.inputs, plan.space.inputs, (i, v) => (cells[layout.inputs + i] = v), '%IX');
+  copyBits(snapshot.bits?.outputs, plan.space.outputs, (i, v) => (cells[layout.outputs + i] = v), '%QX');
+  copyBits(snapshot.bits?.memory, plan.space.memory, (i, v) => (cells[layout.memory + i] = v), '%MX');
 
   const edges = new Map((snapshot.edges ?? []).map((edge) => [`${edge.elementId}\u0000${edge.operand}`, edge.value]));
   plan.edges.forEach((edge, i) => {
-    bytes[at.edges + i] = edges.get(`${edge.elementId}\u0000${edge.operand}`) === 1 ? 1 : 0;
+    cells[at.edges / 4 + i] = edges.get(`${edge.elementId}\u0000${edge.operand}`) === 1 ? 1 : 0;
   });
 
   const saved = new Map((snapshot.instances ?? []).map((instance) => [symbolKey(instance.name), instance]));
@@ -123,8 +125,8 @@ export function applySnapshot(
   });
   for (const old of saved.values()) dropped.push(old.name);
 
-  bytes.fill(1, at.keep, at.keep + layout.size);
-  bytes.fill(0, at.forced, at.forced + layout.size);
+  cells.fill(1, at.keep / 4, at.keep / 4 + layout.size);
+  cells.fill(0, at.forced / 4, at.forced / 4 + layout.size);
   core.forces = new Map();
   for (const { address, value } of snapshot.forces ?? []) {
     const bit = bitOfAddress(address, plan);

@@ -12,6 +12,11 @@ export interface Subject {
   run(from: number, n: number): void;
 }
 
+/** A subject driven from outside its thread (a page driven from Node): each run is awaited. */
+export interface RemoteSubject {
+  run(from: number, n: number): void | Promise<void>;
+}
+
 /** The whole memory as both sides report it: 0/1 per bit and edge memory, block fields by instance. */
 export interface MemoryImage {
   inputs: ArrayLike<number>;
@@ -88,66 +93,76 @@ const median = (values: readonly number[]): number => {
 };
 
 export interface MeasureOptions {
-  /** Microseconds now (CPU time of the process in Node, `performance.now()` × 1000 in a page). */
-  clock: () => number;
+  /** Microseconds of CPU time now (of the process in Node, of the page's main thread in Chromium). */
+  clock: () => number | Promise<number>;
   /** Length of one sample, µs of the clock. */
   sampleUs: number;
   samples: number;
-  /** Warm-up: at least this long, then until a round's times are within 5 % of the round before (at most `maxWarmupUs`). */
+  /**
+   * Warm-up: at least this long, then until the last three rounds' times are within 3 % of each
+   * other on both sides (at most `maxWarmupUs`). A long program needs long: its code is optimised
+   * function by function in the background, each round a little faster until all are done.
+   */
   minWarmupUs: number;
   maxWarmupUs: number;
 }
 
 /**
  * Scans that take about `targetUs`: the shortest of three runs of a count that takes a quarter
- * of it, so one interruption (another process, a collection, a background compile counted in the
- * process's CPU time) does not shrink every sample after it.
+ * of it, so one interruption (a collection, a background compile counted in the process's CPU
+ * time) does not shrink every sample after it.
  */
-function calibrate(subject: Subject, clock: () => number, targetUs: number, from: number): number {
-  const timed = (n: number): number => {
-    const start = clock();
-    subject.run(from, n);
-    return clock() - start;
+async function calibrate(subject: RemoteSubject, clock: MeasureOptions['clock'], targetUs: number, from: number): Promise<number> {
+  const timed = async (n: number): Promise<number> => {
+    const start = await clock();
+    await subject.run(from, n);
+    return (await clock()) - start;
   };
   let n = 16;
-  while (timed(n) < targetUs / 4 && n < 1 << 26) n *= 2;
-  const spent = Math.min(timed(n), timed(n), timed(n));
+  while ((await timed(n)) < targetUs / 4 && n < 1 << 26) n *= 2;
+  const spent = Math.min(await timed(n), await timed(n), await timed(n));
   return Math.max(16, Math.round((n * targetUs) / Math.max(spent, 1)));
 }
 
 /** Warm both up, then take interleaved samples of µs per scan. */
-export function measure(engine: Subject, baseline: Subject, options: MeasureOptions): Timing {
+export async function measure(engine: RemoteSubject, baseline: RemoteSubject, options: MeasureOptions): Promise<Timing> {
   const { clock } = options;
   let from = 0;
-  const sample = (subject: Subject, n: number): number => {
-    const start = clock();
-    subject.run(from, n);
+  const sample = async (subject: RemoteSubject, n: number): Promise<number> => {
+    const start = await clock();
+    await subject.run(from, n);
     from += n;
-    return (clock() - start) / n;
+    return ((await clock()) - start) / n;
   };
-  const warmStart = clock();
-  let previous: [number, number] | null = null;
+  const warmStart = await clock();
+  const rounds: Array<[number, number]> = [];
+  const settled = (): boolean => {
+    if (rounds.length < 3) return false;
+    const last = rounds.slice(-3);
+    return [0, 1].every((side) => {
+      const times = last.map((r) => r[side]!);
+      return Math.max(...times) <= 1.03 * Math.min(...times);
+    });
+  };
   for (;;) {
-    const engineScans = calibrate(engine, clock, options.sampleUs * 10, from);
-    const baselineScans = calibrate(baseline, clock, options.sampleUs * 10, from);
-    const round: [number, number] = [sample(engine, engineScans), sample(baseline, baselineScans)];
-    const spent = clock() - warmStart;
-    const settled = previous !== null && round.every((t, i) => Math.abs(t - previous![i]!) <= 0.05 * previous![i]!);
-    if ((spent >= options.minWarmupUs && settled) || spent >= options.maxWarmupUs) break;
-    previous = round;
+    const engineScans = await calibrate(engine, clock, options.sampleUs * 10, from);
+    const baselineScans = await calibrate(baseline, clock, options.sampleUs * 10, from);
+    rounds.push([await sample(engine, engineScans), await sample(baseline, baselineScans)]);
+    const spent = (await clock()) - warmStart;
+    if ((spent >= options.minWarmupUs && settled()) || spent >= options.maxWarmupUs) break;
   }
-  const warmupMs = (clock() - warmStart) / 1000;
-  const engineScans = calibrate(engine, clock, options.sampleUs, from);
-  const baselineScans = calibrate(baseline, clock, options.sampleUs, from);
+  const warmupMs = ((await clock()) - warmStart) / 1000;
+  const engineScans = await calibrate(engine, clock, options.sampleUs, from);
+  const baselineScans = await calibrate(baseline, clock, options.sampleUs, from);
   const engineUs: number[] = [];
   const baselineUs: number[] = [];
   for (let i = 0; i < options.samples; i += 1) {
     if (i % 2 === 0) {
-      engineUs.push(sample(engine, engineScans));
-      baselineUs.push(sample(baseline, baselineScans));
+      engineUs.push(await sample(engine, engineScans));
+      baselineUs.push(await sample(baseline, baselineScans));
     } else {
-      baselineUs.push(sample(baseline, baselineScans));
-      engineUs.push(sample(engine, engineScans));
+      baselineUs.push(await sample(baseline, baselineScans));
+      engineUs.push(await sample(engine, engineScans));
     }
   }
   return { engineUs: median(engineUs), baselineUs: median(baselineUs), samples: options.samples, warmupMs };

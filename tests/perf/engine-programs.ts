@@ -112,9 +112,10 @@ export function benchProgram(shape: ProgramShape, rungCount: number, seed = 2026
     code: (left) => parts.reduce((acc, p) => p.code(acc), left),
   });
 
+  // left & (a | b), as a person writes it; the same as (left & a) | (left & b), which the engine solves.
   const parallel = (branches: Part[]): Part => ({
     node: b.parallel(...branches.map((p) => p.node)),
-    code: (left) => `(${branches.map((p) => `(${p.code(left)})`).join(' | ')})`,
+    code: (left) => `${left} & (${branches.map((p) => p.code('1').replace(/^1 & /, '')).join(' | ')})`,
   });
 
   const contacts = (rung: number, n: number, pre: string[]): Part[] => Array.from({ length: n }, () => contact(rung, pre));
@@ -173,7 +174,7 @@ export function benchProgram(shape: ProgramShape, rungCount: number, seed = 2026
   for (let r = 0; r < rungCount; r += 1) {
     const pre: string[] = [];
     const cond = condition(r, pre);
-    const power = `${cond.reduce((acc, part) => part.code(acc), '1')}`;
+    const power = cond.reduce((acc, part) => part.code(acc), '1').replace(/^1 & /, '');
     if (r % 10 === 5) {
       const isTimer = random() < 0.5;
       const type: BlockType = isTimer ? pick(TIMERS) : pick(COUNTERS);

@@ -55,14 +55,14 @@ export function selectedSpecs(): CaseSpec[] {
 async function nodeCase(spec: CaseSpec): Promise<EngineFigures> {
   const file = writeBaseline(spec);
   const module = file === null ? null : ((await import(pathToFileURL(file).href)) as BaselineModule);
-  const prepared = prepareCase(spec, module, () => performance.now());
+  const prepared = prepareCase(spec, module, () => cpuMicros() / 1000);
   checkAgreement(spec.id, spec.rungs >= 5000 ? 200 : 1000, prepared.engine, prepared.baseline);
-  const timing = measure(prepared.engine, prepared.baseline, {
+  const timing = await measure(prepared.engine, prepared.baseline, {
     clock: cpuMicros,
     sampleUs: 5000,
     samples: 61,
-    minWarmupUs: 1_000_000,
-    maxWarmupUs: 20_000_000,
+    minWarmupUs: Math.max(2_000_000, 3000 * spec.rungs),
+    maxWarmupUs: 90_000_000,
   });
   return {
     host: 'node',

@@ -64,35 +64,35 @@ export function stepRS(state: BistableState, inputs: ResetDominantInputs): Bista
 /** `stepRTrig` in WebAssembly. */
 export function emitRTrig(b: BlockEmit): void {
   const { code } = b;
-  code.store8(b.field('Q'), () => {
+  code.storeCell(b.field('Q'), () => {
     b.bool('CLK');
-    code.load8(b.field('lastCLK'));
+    code.loadCell(b.field('lastCLK'));
     code.op(OP.i32Eqz);
     code.op(OP.i32And);
   });
-  code.store8(b.field('lastCLK'), () => b.bool('CLK'));
+  code.storeCell(b.field('lastCLK'), () => b.bool('CLK'));
 }
 
 /** `stepFTrig` in WebAssembly. */
 export function emitFTrig(b: BlockEmit): void {
   const { code } = b;
-  code.store8(b.field('Q'), () => {
+  code.storeCell(b.field('Q'), () => {
     b.bool('CLK');
     code.op(OP.i32Eqz);
-    code.load8(b.field('lastCLK'));
+    code.loadCell(b.field('lastCLK'));
     code.op(OP.i32And);
   });
-  code.store8(b.field('lastCLK'), () => b.bool('CLK'));
+  code.storeCell(b.field('lastCLK'), () => b.bool('CLK'));
 }
 
 /** `stepSR` in WebAssembly. */
 export function emitSR(b: BlockEmit): void {
   const { code } = b;
-  code.store8(b.field('Q1'), () => {
+  code.storeCell(b.field('Q1'), () => {
     b.bool('S1');
     b.bool('R');
     code.op(OP.i32Eqz);
-    code.load8(b.field('Q1'));
+    code.loadCell(b.field('Q1'));
     code.op(OP.i32And);
     code.op(OP.i32Or);
   });
@@ -101,11 +101,11 @@ export function emitSR(b: BlockEmit): void {
 /** `stepRS` in WebAssembly. */
 export function emitRS(b: BlockEmit): void {
   const { code } = b;
-  code.store8(b.field('Q1'), () => {
+  code.storeCell(b.field('Q1'), () => {
     b.bool('R1');
     code.op(OP.i32Eqz);
     b.bool('S');
-    code.load8(b.field('Q1'));
+    code.loadCell(b.field('Q1'));
     code.op(OP.i32Or);
     code.op(OP.i32And);
   });

@@ -129,7 +129,7 @@ function pushLoadedValue(b: BlockEmit): void {
 /** Push "a rising edge of `input` since the last call": input AND NOT the remembered value. */
 function pushEdge(b: BlockEmit, input: string, memory: string): void {
   b.bool(input);
-  b.code.load8(b.field(memory));
+  b.code.loadCell(b.field(memory));
   b.code.op(OP.i32Eqz);
   b.code.op(OP.i32And);
 }
@@ -176,12 +176,12 @@ export function emitCTU(b: BlockEmit): void {
     () => countIf(b, cv, () => code.get(edge), 1),
   );
   storeCv(b, cv);
-  code.store8(b.field('Q'), () => {
+  code.storeCell(b.field('Q'), () => {
     code.get(cv);
     b.number('PV');
     code.op(OP.f64Ge);
   });
-  code.store8(b.field('lastCU'), () => b.bool('CU'));
+  code.storeCell(b.field('lastCU'), () => b.bool('CU'));
 }
 
 /** `stepCTD` in WebAssembly. */
@@ -202,12 +202,12 @@ export function emitCTD(b: BlockEmit): void {
     () => countIf(b, cv, () => code.get(edge), -1),
   );
   storeCv(b, cv);
-  code.store8(b.field('Q'), () => {
+  code.storeCell(b.field('Q'), () => {
     code.get(cv);
     code.f64(0);
     code.op(OP.f64Le);
   });
-  code.store8(b.field('lastCD'), () => b.bool('CD'));
+  code.storeCell(b.field('lastCD'), () => b.bool('CD'));
 }
 
 /** `stepCTUD` in WebAssembly. */
@@ -252,16 +252,16 @@ export function emitCTUD(b: BlockEmit): void {
       ),
   );
   storeCv(b, cv);
-  code.store8(b.field('QU'), () => {
+  code.storeCell(b.field('QU'), () => {
     code.get(cv);
     b.number('PV');
     code.op(OP.f64Ge);
   });
-  code.store8(b.field('QD'), () => {
+  code.storeCell(b.field('QD'), () => {
     code.get(cv);
     code.f64(0);
     code.op(OP.f64Le);
   });
-  code.store8(b.field('lastCU'), () => b.bool('CU'));
-  code.store8(b.field('lastCD'), () => b.bool('CD'));
+  code.storeCell(b.field('lastCU'), () => b.bool('CU'));
+  code.storeCell(b.field('lastCD'), () => b.bool('CD'));
 }

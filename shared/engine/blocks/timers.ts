@@ -122,7 +122,7 @@ export function emitTON(b: BlockEmit): void {
       pushRunningEt(b);
       code.set(et);
       code.storeF64(b.field('ET'), () => code.get(et));
-      code.store8(b.field('Q'), () => {
+      code.storeCell(b.field('Q'), () => {
         code.get(et);
         code.get(b.f64(0));
         code.op(OP.f64Ge);
@@ -130,7 +130,7 @@ export function emitTON(b: BlockEmit): void {
     },
     () => {
       code.storeF64(b.field('ET'), () => code.f64(0));
-      code.store8(b.field('Q'), () => code.i32(0));
+      code.storeCell(b.field('Q'), () => code.i32(0));
     },
   );
 }
@@ -143,18 +143,18 @@ export function emitTOF(b: BlockEmit): void {
     () => b.bool('IN'),
     () => {
       code.storeF64(b.field('ET'), () => code.f64(0));
-      code.store8(b.field('Q'), () => code.i32(1));
+      code.storeCell(b.field('Q'), () => code.i32(1));
     },
     () =>
       code.when(
-        () => code.load8(b.field('Q')),
+        () => code.loadCell(b.field('Q')),
         () => {
           pushPreset(b);
           code.set(b.f64(0));
           pushRunningEt(b);
           code.set(et);
           code.storeF64(b.field('ET'), () => code.get(et));
-          code.store8(b.field('Q'), () => {
+          code.storeCell(b.field('Q'), () => {
             code.get(et);
             code.get(b.f64(0));
             code.op(OP.f64Lt);
@@ -171,15 +171,15 @@ export function emitTP(b: BlockEmit): void {
   const et = b.f64(1);
   pushPreset(b);
   code.set(pt);
-  const lastIn = (): void => code.store8(b.field('lastIN'), () => b.bool('IN'));
+  const lastIn = (): void => code.storeCell(b.field('lastIN'), () => b.bool('IN'));
   code.when(
     // A pulse starts: not in a pulse, IN rising, and a positive preset.
     () => {
-      code.load8(b.field('Q'));
+      code.loadCell(b.field('Q'));
       code.op(OP.i32Eqz);
       b.bool('IN');
       code.op(OP.i32And);
-      code.load8(b.field('lastIN'));
+      code.loadCell(b.field('lastIN'));
       code.op(OP.i32Eqz);
       code.op(OP.i32And);
       code.get(pt);
@@ -188,22 +188,22 @@ export function emitTP(b: BlockEmit): void {
       code.op(OP.i32And);
     },
     () => {
-      code.store8(b.field('Q'), () => code.i32(1));
+      code.storeCell(b.field('Q'), () => code.i32(1));
       code.storeF64(b.field('ET'), () => {
         b.dt();
         code.get(pt);
         code.op(OP.f64Min);
       });
-      code.store8(b.field('lastIN'), () => code.i32(1));
+      code.storeCell(b.field('lastIN'), () => code.i32(1));
     },
     () =>
       code.when(
-        () => code.load8(b.field('Q')),
+        () => code.loadCell(b.field('Q')),
         () => {
           pushRunningEt(b);
           code.set(et);
           code.storeF64(b.field('ET'), () => code.get(et));
-          code.store8(b.field('Q'), () => {
+          code.storeCell(b.field('Q'), () => {
             code.get(et);
             code.get(pt);
             code.op(OP.f64Lt);

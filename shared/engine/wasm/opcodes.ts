@@ -14,15 +14,9 @@ export const OP = {
   localSet: 0x21,
   localTee: 0x22,
   i32Load: 0x28,
-  i64Load: 0x29,
   f64Load: 0x2b,
-  i32Load8U: 0x2d,
-  i32Load16U: 0x2f,
   i32Store: 0x36,
-  i64Store: 0x37,
   f64Store: 0x39,
-  i32Store8: 0x3a,
-  i32Store16: 0x3b,
   i32Const: 0x41,
   f64Const: 0x44,
   i32Eqz: 0x45,
@@ -34,8 +28,6 @@ export const OP = {
   i32And: 0x71,
   i32Or: 0x72,
   i32Xor: 0x73,
-  i64And: 0x83,
-  i64Or: 0x84,
   f64Trunc: 0x9d,
   f64Add: 0xa0,
   f64Sub: 0xa1,
@@ -50,14 +42,7 @@ export const TYPE = { i32: 0x7f, f64: 0x7c, func: 0x60, void: 0x40 } as const;
 export const SECTION = { type: 1, import: 2, function: 3, export: 7, code: 10 } as const;
 
 /** `align` immediates: log2 of the natural alignment of each access. */
-export const ALIGN = { byte: 0, f64: 3 } as const;
+export const ALIGN = { cell: 2, f64: 3 } as const;
 
-/** Loads, stores and bitwise operators by access width in bytes (a word of bits at once). */
-export const WIDE = {
-  1: { load: OP.i32Load8U, store: OP.i32Store8, and: OP.i32And, or: OP.i32Or, align: 0 },
-  2: { load: OP.i32Load16U, store: OP.i32Store16, and: OP.i32And, or: OP.i32Or, align: 1 },
-  4: { load: OP.i32Load, store: OP.i32Store, and: OP.i32And, or: OP.i32Or, align: 2 },
-  8: { load: OP.i64Load, store: OP.i64Store, and: OP.i64And, or: OP.i64Or, align: 3 },
-} as const;
-
-export type Width = keyof typeof WIDE;
+/** Bytes of a cell: a bit, an edge memory, a force mask, a block's boolean, a flow record entry. */
+export const CELL = 4;

@@ -5,10 +5,14 @@
  * against that set.
  */
 import { describe, expect, it } from 'vitest';
-import { kernelModule } from '@shared/engine/kernel';
+import fc from 'fast-check';
+import { compile } from '@shared/engine';
+import { kernelModule, moduleBytesBound } from '@shared/engine/kernel';
 import { stateLayout } from '@shared/engine/stateLayout';
 import { OP } from '@shared/engine/wasm/opcodes';
+import { BENCH_SPACE, benchProgram } from '../../perf/engine-programs';
 import { planOf, programBuilder } from './build';
+import { randomProgram } from './oracle/randomProgram';
 
 class Reader {
   at = 0;
@@ -141,4 +145,28 @@ describe('a kernel module', () => {
     const plan = planOf(hostileProgram());
     expect(kernelModule(plan, stateLayout(plan), { recordFlow: false })).toEqual(kernelModule(planOf(hostileProgram()), stateLayout(plan), { recordFlow: false }));
   });
+});
+
+describe('the size bound of a module', () => {
+  it('is above the real size of both variants', () => {
+    const plans = [planOf(hostileProgram()), ...(['series', 'parallel'] as const).map((shape) => {
+      const compiled = compile(benchProgram(shape, 300, 5).program, { space: BENCH_SPACE });
+      if (!compiled.ok) throw new Error(compiled.diagnostics[0]!.message);
+      return compiled.plan;
+    })];
+    fc.assert(fc.property(randomProgram, (doc) => { plans.push(planOf(doc)); }), { numRuns: 100, seed: 3 });
+    for (const plan of plans) {
+      const bound = moduleBytesBound(plan);
+      for (const recordFlow of [false, true]) expect(kernelModule(plan, stateLayout(plan), { recordFlow }).length).toBeLessThanOrEqual(bound);
+    }
+  }, 60_000);
+
+  it('refuses to compile a program past it, with a message', () => {
+    const b = programBuilder();
+    // 5,000 rungs of 21 contacts, an up/down counter and a coil: about 12 MB of WebAssembly.
+    const rung = (i: number) => b.rung(...Array.from({ length: 21 }, () => b.no('%IX1')), b.block('CTUD', `C${i}`, { PV: '3', CD: '%IX2', R: '%IX3', LD: '%IX4' }), b.coil('%MX1'));
+    const result = compile(b.program(Array.from({ length: 5000 }, (_, i) => rung(i))));
+    expect(result.ok).toBe(false);
+    expect(result.diagnostics.at(-1)!.message).toMatch(/too large to run: 115000 elements in 5000 rungs/);
+  }, 60_000);
 });
