@@ -1,6 +1,7 @@
 // ESLint flat config: JavaScript + TypeScript + Vue recommended rules, and the rules that keep the
 // architecture honest: `shared/` imports nothing from the UI, the server, the DOM or Node, and
-// reads no clock, timer or global random.
+// reads no clock, timer or global random; `src/` never imports the standard labs, whose check
+// scripts and reference solutions stay on the server.
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import pluginVue from 'eslint-plugin-vue';
@@ -69,5 +70,25 @@ export default tseslint.config(
     // The host's WebAssembly API, reached through globalThis so shared/ needs no DOM or Node types.
     files: ['shared/engine/wasm/host.ts'],
     rules: { 'no-restricted-globals': 'off' },
+  },
+  {
+    // The browser bundle is public (the sign-in page names its chunks): of `shared/labs/` it may
+    // load only the modules that carry no answers. tests/unit/labs/answersNotBundled.test.ts
+    // builds the client and searches it for the labs' hidden checks and reference rungs.
+    files: ['src/**'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              // `@shared/labs`, `../shared/labs/twoWire`…; not the three modules named below.
+              regex: '(^|[/@])shared/labs(/(?!(safetyCaution|build|conveyorTags)(\\.ts)?$).*)?$',
+              message: 'The standard labs hold hidden checks and reference solutions: server-only. The browser may import @shared/labs/safetyCaution, build and conveyorTags; anything else about standard labs comes from the API.',
+            },
+          ],
+        },
+      ],
+    },
   },
 );

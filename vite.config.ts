@@ -51,6 +51,9 @@ export default defineConfig({
   resolve: { alias },
   server: {
     port: 5173,
+    // changeOrigin stays false: the API server then sees the browser's own `Host: localhost:5173`,
+    // a loopback name it answers to, and the same host as the page's Origin, so its Host check and
+    // its Origin check (server/http/allowedHosts.ts, security.ts) both pass as in production.
     proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
   },
   build: {

@@ -12,18 +12,26 @@ import type { AppContext } from './context';
 import { readVersion } from './version';
 import { DEFAULT_SCRYPT, type ScryptParams } from './auth/passwords';
 import { createLogger, requestLogging } from './http/logging';
-import { requireSameOrigin, securityHeaders } from './http/security';
+import { noStore, requireSameOrigin, securityHeaders } from './http/security';
+import { refuseUnknownHosts } from './http/allowedHosts';
 import { apiNotFound, errorHandler, sendFailure } from './http/errorHandler';
 import { clientFiles } from './http/clientFiles';
 import { healthRouter } from './routes/health';
 import { authRouter } from './routes/auth';
+import { signUpRouter } from './routes/signUp';
+import { invitationsRouter } from './routes/invitations';
 import { adminRouter } from './routes/admin';
+import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
+import { draftsRouter } from './routes/drafts';
 import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
-import { createGradingPool, type Grader } from './grading/pool';
+import { trustProxySetting } from './http/trustProxy';
+import { createGradingPool, type DocumentWork, type Grader } from './grading/pool';
+import { refuseDeepJson, refuseNulCharacters } from './http/bodyGuards';
+import { expensiveCallLimits } from './http/userLimits';
 import { labsRouter } from './routes/labs';
 import { labAttachmentsRouter } from './routes/labAttachments';
 import { submissionsRouter } from './routes/submissions';
@@ -44,11 +52,15 @@ export interface AppDependencies {
   passwordParams?: ScryptParams;
   /** Grades submissions; defaults to a pool of warm worker threads, started on first use. */
   grader?: Grader;
+  /** Exports and imports program files; defaults to `grader` when it is a pool, else a pool of its own. */
+  documents?: DocumentWork;
 }
 
 /** Builds the app: security headers, logging, the API under `/api`, then the client. */
 export function createApp(deps: AppDependencies): Express {
   const logger = deps.logger ?? createLogger(deps.config.LOG_LEVEL);
+  const grader = deps.grader ?? createGradingPool();
+  const documents = deps.documents ?? ('exportProgram' in grader ? (grader as Grader & DocumentWork) : createGradingPool());
   const ctx: AppContext = {
     orm: deps.db.orm,
     driver: deps.db.driver,
@@ -59,27 +71,36 @@ export function createApp(deps: AppDependencies): Express {
     version: readVersion(),
     sessionKey: deps.sessionKey,
     passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
-    grader: deps.grader ?? createGradingPool(),
+    grader,
+    documents,
   };
 
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxySetting(deps.config.TRUST_PROXY));
   app.use(securityHeaders());
   app.use(requestLogging(logger));
+  app.use(refuseUnknownHosts(deps.config));
 
   const api = express.Router();
+  api.use(noStore);
   api.use(requireSameOrigin);
   api.use(authenticate(ctx));
+  api.use(expensiveCallLimits(ctx));
   api.use(healthRouter(ctx));
   // Uploads read multipart bodies, so they come before the JSON-only rule.
   api.use(uploadsRouter(ctx));
   api.use(labAttachmentsRouter(ctx));
   api.use(requireJsonBody);
-  api.use(express.json({ limit: '1mb' }));
+  api.use(express.json({ limit: '1mb', verify: refuseDeepJson }));
+  api.use(refuseNulCharacters);
   api.use(authRouter(ctx));
+  api.use(signUpRouter(ctx));
+  api.use(invitationsRouter(ctx));
   api.use(adminRouter(ctx));
+  api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));
+  api.use(draftsRouter(ctx));
   api.use(classesRouter(ctx));
   api.use(labsRouter(ctx));
   api.use(submissionsRouter(ctx));

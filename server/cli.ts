@@ -1,8 +1,18 @@
 /**
- * `npm run cli -- …`: batch grading and program checks for scripts and CI pipelines.
- * See `server/cli/args.ts` for the usage text.
+ * `npm run cli -- …`: batch grading and program checks for scripts and CI pipelines, and
+ * `create-admin` for a real install's first administrator. See `server/cli/args.ts` and
+ * `server/cli/createAdmin.ts` for the usage texts.
  */
 import { cliMain } from './cli/main';
 import { processIO } from './cli/io';
 
-process.exitCode = cliMain(process.argv.slice(2), processIO());
+const argv = process.argv.slice(2);
+if (argv[0] === 'create-admin') {
+  // Loaded only here: the file commands never start the database.
+  const { createAdmin, readPipedStdin } = await import('./cli/createAdmin');
+  const { systemClock } = await import('./clock');
+  const io = processIO();
+  process.exitCode = await createAdmin(argv.slice(1), { env: process.env, readStdin: readPipedStdin, stdout: io.stdout, stderr: io.stderr, clock: systemClock });
+} else {
+  process.exitCode = cliMain(argv, processIO());
+}

@@ -5,6 +5,7 @@
  * department that serves a lab network sets HOST=0.0.0.0 on purpose.
  */
 import { z } from 'zod';
+import { trustProxySetting } from './http/trustProxy';
 
 const LogLevelSchema = z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']);
 
@@ -24,17 +25,31 @@ export const ConfigSchema = z.object({
   /** `development` drops the Secure flag on the session cookie (plain http on localhost). */
   NODE_ENV: z.enum(['development', 'production', 'test']).default('production'),
   LOG_LEVEL: LogLevelSchema.default('info'),
-  /** Attempts per IP per 15 minutes on sign-in, sign-up and password reset. */
-  AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  /**
+   * Per address (IP) per 15 minutes: failed sign-ins (successes do not count), and requests to
+   * sign-up, invitations and password reset. 100 leaves room for a class behind one NAT.
+   */
+  AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(100),
   /**
    * Which proxies may set X-Forwarded-For (Express's `trust proxy`): unset or `false` trusts none, so
    * a client cannot choose the address it is throttled by; `loopback`, a hop count or a list of
    * addresses/CIDRs when the server runs behind a reverse proxy.
    */
-  TRUST_PROXY: z.string().min(1).default('false'),
+  TRUST_PROXY: z
+    .string()
+    .min(1)
+    .default('false')
+    .superRefine((value, check) => {
+      try {
+        trustProxySetting(value);
+      } catch (err) {
+        check.addIssue({ code: 'custom', message: err instanceof Error ? err.message.replace(/^TRUST_PROXY: /, '') : String(err) });
+      }
+    }),
   /**
-   * Host names the server answers to (comma-separated); any other Host header is refused, against DNS
-   * rebinding. Defaults to the localhost names plus HOST and PUBLIC_URL's host.
+   * Host names the server answers to (comma-separated) besides the ones it always answers to: the
+   * localhost names, HOST and PUBLIC_URL's host. Any other Host header is refused (421), against DNS
+   * rebinding; see `http/allowedHosts.ts`.
    */
   ALLOWED_HOSTS: z.string().min(1).optional(),
   /** `on` seeds the demo accounts and data on an empty database; `off` starts with none. */

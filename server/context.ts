@@ -5,7 +5,7 @@ import type { Clock } from './clock';
 import type { Db } from './db/client';
 import type { Mailer } from './mail/mailer';
 import type { ScryptParams } from './auth/passwords';
-import type { Grader } from './grading/pool';
+import type { DocumentWork, Grader } from './grading/pool';
 
 export interface AppContext {
   orm: Db;
@@ -20,4 +20,6 @@ export interface AppContext {
   passwordParams: ScryptParams;
   /** Grades submissions off the main thread (the worker pool of `grading/pool.ts`). */
   grader: Grader;
+  /** Exports and imports program files off the main thread (the same pool). */
+  documents: DocumentWork;
 }

@@ -7,11 +7,12 @@ import { readConfig } from './config';
 import { systemClock } from './clock';
 import { acquireDataDirLock } from './dataDirLock';
 import { openDatabase } from './db/client';
-import { seedIfEmpty } from './db/seed';
+import { seedOnFirstStart } from './db/seed';
 import { openMailer } from './mail/openMailer';
 import { createLogger } from './http/logging';
 import { loadSessionKey } from './auth/sessionKey';
 import { createApp } from './app';
+import { allowedHostNames, LOOPBACK_NAMES } from './http/allowedHosts';
 import { createGradingPool } from './grading/pool';
 
 function fail(message: string): never {
@@ -35,12 +36,23 @@ const logger = createLogger(config.LOG_LEVEL);
 const database = await openDatabase({ kind: 'directory', dataDir: config.DATA_DIR }).catch((err: unknown) =>
   fail(`Cannot open the database in ${config.DATA_DIR}: ${err instanceof Error ? err.message : String(err)}`),
 );
-if (await seedIfEmpty(database.orm, systemClock)) logger.info('seeded the demo data on a first start');
+const firstStart = await seedOnFirstStart(database.orm, systemClock, config.DEMO);
+if (firstStart === 'seeded') logger.info('seeded the demo data on a first start (DEMO=off starts without it)');
+if (firstStart === 'no-accounts') {
+  console.log('Rungwright has no accounts yet (DEMO=off): create the first admin with `npm run cli -- create-admin --email you@example.org`.');
+}
 const mailer = await openMailer(config, database.orm, systemClock);
 const sessionKey = loadSessionKey(config);
 
 // Made here, not inside createApp, so shutdown can stop its worker threads.
 const grader = createGradingPool();
+// Listening everywhere while answering only to loopback names serves nobody else: say so.
+if ((config.HOST === '0.0.0.0' || config.HOST === '::') && allowedHostNames(config).size === LOOPBACK_NAMES.length) {
+  console.warn(
+    `HOST=${config.HOST} listens on every network, but requests are answered only for ${LOOPBACK_NAMES.join(', ')}: ` +
+      'set ALLOWED_HOSTS (or PUBLIC_URL) to the names or addresses people type.',
+  );
+}
 const app = createApp({ db: database, mailer, clock: systemClock, config, logger, sessionKey, clientDir: 'dist', grader });
 const server = app.listen(config.PORT, config.HOST, () => {
   const { port } = server.address() as AddressInfo;

@@ -18,13 +18,23 @@ Usage:
   npm run cli -- check --program P --script S [--panel L] [--trace out.csv] [--redact]
   npm run cli -- validate --program P [--panel L] [--json]
   npm run cli -- st --program P
+  npm run cli -- create-admin --email E [--name N] [--link]   (password piped on standard input)
   npm run cli -- --help
 
 check     Grade a program with a check script; prints the grade report as JSON.
-          Exit 0 when every check passes, 1 when one fails, 2 on bad input.
-          A program that loads but does not compile fails every check (exit 1, with its diagnostics).
-validate  Print the program's diagnostics; exit 2 when it has errors.
+validate  Print the program's diagnostics.
 st        Print the program as IEC 61131-3 Structured Text.
+
+create-admin
+          Create an administrator in DATA_DIR's database (stop the server first); see
+          npm run cli -- create-admin --help. Exit 0 done, 1 a server holds DATA_DIR, 2 bad input.
+
+Exit codes (check, validate, st):
+  0  all good: every check passes, no errors
+  1  the program is at fault: a check fails, or it does not compile (then every
+     check fails, "passed" is false, and the diagnostics are printed on stderr too)
+  2  the inputs cannot be used: a file that cannot be read, bad JSON or XML, a bad
+     check script or one with no check, a bad panel layout; the message names the file
 
 --program P   the program: a Rungwright JSON document or a PLCopen TC6 XML 2.01 file (LD body)
 --script S    a check script (JSON)
@@ -68,7 +78,7 @@ export function parseCliArgs(argv: readonly string[]): ParsedArgs {
   const { values, positionals } = parsed;
   if (values.help || positionals.length === 0) return { ok: true, command: { name: 'help' } };
   const [name, ...extra] = positionals;
-  if (!isCommandName(name!)) return { ok: false, error: `unknown command "${name}"; use check, validate or st (--help for usage)` };
+  if (!isCommandName(name!)) return { ok: false, error: `unknown command "${name}"; use check, validate, st or create-admin (--help for usage)` };
   if (extra.length > 0) return { ok: false, error: `unexpected argument "${extra[0]}" after "${name}"` };
   const given = Object.keys(values).filter((k) => k !== 'help' && values[k as keyof typeof values] !== undefined && values[k as keyof typeof values] !== false);
   const accepted: readonly string[] = ACCEPTS[name];

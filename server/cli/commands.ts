@@ -1,6 +1,8 @@
 /**
- * The commands themselves. Each returns the exit code: 0 all good, 1 a check failed, 2 bad input
- * (with a message on stderr that names the file and what is wrong).
+ * The commands themselves. Each returns the exit code, with one meaning for every command:
+ * 0 all good; 1 the program is at fault (a check fails, or it does not compile, with its
+ * diagnostics on stderr); 2 the inputs cannot be used (unreadable file, bad JSON or XML, a bad
+ * script or one without a check, a bad panel), with a message on stderr naming the file.
  */
 import { parseCheckScript, redactReport, runChecks, traceToCSV } from '@shared/checks';
 import { builtInPanel, type PanelLayout } from '@shared/field';
@@ -11,7 +13,8 @@ import type { CliIO, FileResult } from './io';
 import { loadJson, loadPanel, loadProgram } from './load';
 
 export const EXIT_OK = 0;
-export const EXIT_CHECK_FAILED = 1;
+/** The program is at fault: a check fails, or it does not compile. */
+export const EXIT_PROGRAM_FAULT = 1;
 export const EXIT_BAD_INPUT = 2;
 
 function badInput(io: CliIO, message: string): number {
@@ -39,12 +42,16 @@ function check(io: CliIO, command: Extract<Command, { name: 'check' }>): number 
   const result = runChecks({ program: loaded.value.program, panel: panel.value, script: script.value });
   if (!result.ok) return badInput(io, `${command.script}: does not fit the panel:\n  ${result.errors.join('\n  ')}`);
   const report = result.report;
+  const compileErrors = report.diagnostics.filter((d) => d.severity === 'error');
+  if (compileErrors.length > 0) {
+    io.stderr(`${command.program}: does not compile, so every check fails:\n${compileErrors.map((d) => `  ${describeDiagnostic(command.program, d)}`).join('\n')}\n`);
+  }
   if (command.trace !== undefined) {
     const written = io.writeFile(command.trace, traceToCSV(report.trace));
     if (!written.ok) return badInput(io, written.error);
   }
   io.stdout(`${JSON.stringify(command.redact ? redactReport(report) : report, null, 2)}\n`);
-  return report.passed ? EXIT_OK : EXIT_CHECK_FAILED;
+  return report.passed ? EXIT_OK : EXIT_PROGRAM_FAULT;
 }
 
 /** "prog.json: rung r2, element e3: message" */
@@ -64,11 +71,13 @@ function validate(io: CliIO, command: Extract<Command, { name: 'validate' }>): n
     space = { inputs: panel.value.inputs, outputs: panel.value.outputs, memory: DEFAULT_ADDRESS_SPACE.memory };
   }
   const diagnostics = validateProgram(loaded.value.program, space);
-  const errors = diagnostics.filter((d) => d.severity === 'error').length;
-  if (command.json) io.stdout(`${JSON.stringify({ ok: errors === 0, diagnostics }, null, 2)}\n`);
+  const errors = diagnostics.filter((d) => d.severity === 'error');
+  if (command.json) io.stdout(`${JSON.stringify({ ok: errors.length === 0, diagnostics }, null, 2)}\n`);
   else if (diagnostics.length === 0) io.stdout(`${command.program}: no problems found\n`);
   else io.stdout(`${diagnostics.map((d) => describeDiagnostic(command.program, d)).join('\n')}\n`);
-  return errors > 0 ? EXIT_BAD_INPUT : EXIT_OK;
+  // The file was read: its errors are the program's fault (1), as in `check`, not unusable input (2).
+  if (errors.length > 0 && command.json) io.stderr(`${errors.map((d) => describeDiagnostic(command.program, d)).join('\n')}\n`);
+  return errors.length > 0 ? EXIT_PROGRAM_FAULT : EXIT_OK;
 }
 
 function structuredText(io: CliIO, command: Extract<Command, { name: 'st' }>): number {
@@ -77,7 +86,12 @@ function structuredText(io: CliIO, command: Extract<Command, { name: 'st' }>): n
   for (const warning of loaded.value.warnings) io.stderr(`${warning}\n`);
   const text = programToStructuredText(loaded.value.program);
   io.stdout(text.endsWith('\n') ? text : `${text}\n`);
-  return EXIT_OK;
+  // The text is printed either way (it helps to read a broken program), but the exit code says
+  // what it says for `check` and `validate`: a program with errors is at fault.
+  const errors = validateProgram(loaded.value.program, DEFAULT_ADDRESS_SPACE).filter((d) => d.severity === 'error');
+  if (errors.length === 0) return EXIT_OK;
+  io.stderr(`${errors.map((d) => describeDiagnostic(command.program, d)).join('\n')}\n`);
+  return EXIT_PROGRAM_FAULT;
 }
 
 /** Run a parsed command. */

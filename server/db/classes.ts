@@ -1,7 +1,7 @@
 /** Classes and enrolments as plain objects. */
 import { and, asc, count, eq } from 'drizzle-orm';
 import type { Db } from './client';
-import { classes, enrolments, users, type ClassRow } from './schema';
+import { classes, enrolments, labs, users, type ClassRow } from './schema';
 
 export type ClassRecord = ClassRow;
 
@@ -103,13 +103,28 @@ export async function listStudents(db: Db, classId: string): Promise<StudentEntr
     .orderBy(asc(users.name), asc(users.email));
 }
 
-/** True when `instructorId` teaches a class `studentId` is enrolled in. */
-export async function teachesStudent(db: Db, instructorId: string, studentId: string): Promise<boolean> {
+/**
+ * True when `labId` is a lab of a class `instructorId` teaches and `studentId` is enrolled in that
+ * class: the one relationship through which someone reads another person's program.
+ */
+export async function teachesLabOf(db: Db, instructorId: string, labId: string, studentId: string): Promise<boolean> {
   const rows = await db
-    .select({ id: classes.id })
-    .from(enrolments)
-    .innerJoin(classes, eq(classes.id, enrolments.classId))
-    .where(and(eq(enrolments.userId, studentId), eq(classes.instructorId, instructorId)))
+    .select({ id: labs.id })
+    .from(labs)
+    .innerJoin(classes, eq(classes.id, labs.classId))
+    .innerJoin(enrolments, and(eq(enrolments.classId, classes.id), eq(enrolments.userId, studentId)))
+    .where(and(eq(labs.id, labId), eq(classes.instructorId, instructorId)))
     .limit(1);
   return rows.length === 1;
+}
+
+/** The labs of every class `instructorId` teaches and `studentId` is enrolled in. */
+export async function labsTaughtToStudent(db: Db, instructorId: string, studentId: string): Promise<string[]> {
+  const rows = await db
+    .select({ id: labs.id })
+    .from(labs)
+    .innerJoin(classes, eq(classes.id, labs.classId))
+    .innerJoin(enrolments, and(eq(enrolments.classId, classes.id), eq(enrolments.userId, studentId)))
+    .where(eq(classes.instructorId, instructorId));
+  return rows.map((r) => r.id);
 }

@@ -16,7 +16,7 @@ if (!configResult.ok) {
   process.exit(1);
 }
 const { DATA_DIR } = configResult.config;
-const lock = acquireDataDirLock(DATA_DIR, systemClock.now());
+const lock = acquireDataDirLock(DATA_DIR, systemClock.now(), 'command');
 if (!lock.ok) {
   console.error(`Not resetting: ${lock.error}`);
   process.exit(1);

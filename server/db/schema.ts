@@ -258,21 +258,22 @@ export const labCopies = pgTable(
 );
 
 /**
- * A one-time link (instructor or student invitation, password reset). Only a SHA-256 of the token is
- * stored, so a copy of the database cannot be used to sign in.
+ * A one-time link (instructor or student invitation, password reset, finishing a sign-up). Only a
+ * SHA-256 of the token is stored, so a copy of the database cannot be used to sign in. `kind` has
+ * no CHECK constraint in the database, so a new kind needs no migration.
  */
 export const oneTimeTokens = pgTable(
   'one_time_tokens',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    kind: text('kind', { enum: ['invite', 'reset'] }).notNull(),
+    kind: text('kind', { enum: ['invite', 'reset', 'signup'] }).notNull(),
     tokenHash: text('token_hash').notNull(),
     email: text('email').notNull(),
     /** The account the token acts on (reset), null for an invitation to someone new. */
     userId: uuid('user_id').references(() => users.id, { onDelete: 'cascade' }),
     /** For an invitation: the role the new account gets. */
     role: text('role', { enum: ['student', 'instructor', 'admin'] }),
-    /** For a student invitation from a roster: the class to join. */
+    /** For a student invitation from a roster, or a sign-up with a join code: the class to join. */
     classId: uuid('class_id').references(() => classes.id, { onDelete: 'cascade' }),
     invitedName: text('invited_name'),
     expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),

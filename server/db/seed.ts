@@ -20,6 +20,15 @@ export async function seedIfEmpty(db: Db, clock: Clock, params: ScryptParams = D
   return true;
 }
 
+/**
+ * What a start does to a database without users: seed the demo (`DEMO=on`, the default), or leave
+ * it empty for a real install whose first admin comes from `npm run cli -- create-admin`.
+ */
+export async function seedOnFirstStart(db: Db, clock: Clock, demo: 'on' | 'off', params: ScryptParams = DEFAULT_SCRYPT): Promise<'seeded' | 'no-accounts' | 'has-accounts'> {
+  if (demo === 'on') return (await seedIfEmpty(db, clock, params)) ? 'seeded' : 'has-accounts';
+  return (await countUsers(db)) > 0 ? 'has-accounts' : 'no-accounts';
+}
+
 export async function seedDemoData(db: Db, clock: Clock, params: ScryptParams = DEFAULT_SCRYPT): Promise<void> {
   const now = clock.now();
   const add = async (a: DemoAccount): Promise<User> => {

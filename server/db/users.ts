@@ -13,9 +13,12 @@ export interface User {
   demo: boolean;
   createdAt: Date;
   lastSignInAt: Date | null;
+  /** Set while an admin has deactivated the account (it cannot sign in; its sessions were ended). */
+  deactivatedAt: Date | null;
 }
 
-const publicColumns = {
+/** The columns of a `User`; exported so a join (the session check) can read a user in the same query. */
+export const publicColumns = {
   id: users.id,
   email: users.email,
   name: users.name,
@@ -23,6 +26,7 @@ const publicColumns = {
   demo: users.demo,
   createdAt: users.createdAt,
   lastSignInAt: users.lastSignInAt,
+  deactivatedAt: users.deactivatedAt,
 };
 
 export interface NewUser {
@@ -55,12 +59,12 @@ export async function findUserByEmail(db: Db, email: string): Promise<User | nul
   return rows[0] ?? null;
 }
 
-/** The user and their password hash, for sign-in only. */
-export async function findCredentials(db: Db, email: string): Promise<{ user: User; passwordHash: string } | null> {
+/** The user and their password hash, by e-mail (sign-in) or by id (a password change). */
+export async function findCredentials(db: Db, by: { email: string } | { id: string }): Promise<{ user: User; passwordHash: string } | null> {
   const rows = await db
     .select({ ...publicColumns, passwordHash: users.passwordHash })
     .from(users)
-    .where(sql`lower(${users.email}) = lower(${email})`)
+    .where('email' in by ? sql`lower(${users.email}) = lower(${by.email})` : eq(users.id, by.id))
     .limit(1);
   const row = rows[0];
   if (!row) return null;
@@ -76,6 +80,27 @@ export async function setLastSignIn(db: Db, id: string, at: Date): Promise<void>
 export async function setPasswordHash(db: Db, id: string, passwordHash: string): Promise<void> {
   await db.update(users).set({ passwordHash }).where(eq(users.id, id));
   rowCachesOf(db)?.users.drop(id);
+}
+
+/**
+ * Deactivates (`at`) or reactivates (null) an account; the user as it now is, or null when there
+ * is no such user. Ending its sessions is the caller's next step (`revokeUserSessions`); the session
+ * check refuses a deactivated user's sessions by itself in the meantime.
+ */
+export async function setDeactivatedAt(db: Db, id: string, at: Date | null): Promise<User | null> {
+  const rows = await db.update(users).set({ deactivatedAt: at }).where(eq(users.id, id)).returning(publicColumns);
+  rowCachesOf(db)?.users.drop(id);
+  return rows[0] ?? null;
+}
+
+/**
+ * Takes the account's row lock until the transaction `tx` ends, so that changes to one account's
+ * password, sessions and reset links made by several requests (or processes) happen one after
+ * the other.
+ */
+export async function lockUser(tx: Db, id: string): Promise<boolean> {
+  const rows = await tx.select({ id: users.id }).from(users).where(eq(users.id, id)).for('update');
+  return rows.length === 1;
 }
 
 export async function countUsers(db: Db): Promise<number> {

@@ -5,6 +5,8 @@
 import { runChecks, type CheckLimits, type GradeReport } from '@shared/checks';
 import type { PanelLayout } from '@shared/field/layout';
 import type { Program } from '@shared/ladder/schema';
+import { checkDocumentBounds } from '@shared/ladder/bounds';
+import { formatIssuePath } from '@shared/ladder/restore';
 
 /** What a grading needs: the program, the panel and the check script (already validated on save). */
 export interface GradeJob {
@@ -22,6 +24,9 @@ export interface GradeOutcome {
 
 /** Grades `job` with the shared runner. Never throws: a problem becomes the note. */
 export function gradeJob(job: GradeJob): GradeOutcome {
+  // Documents are checked when saved, but one saved before the size limits existed may pass them.
+  const outOfBounds = checkDocumentBounds(job.program);
+  if (outOfBounds) return { report: null, note: `The program cannot be graded: ${formatIssuePath(outOfBounds.path)}: ${outOfBounds.message}` };
   try {
     const result = runChecks({ program: job.program, panel: job.panel, script: job.script, limits: job.limits });
     if (!result.ok) return { report: null, note: `The check script cannot run: ${result.errors.slice(0, 3).join('; ')}` };

@@ -1,12 +1,16 @@
 /**
- * Who is asking: reads the session cookie once per request and loads the user (so a removed
- * account or a changed role takes effect at once). Routes then say who may call them with
- * `requireUser` / `requireRole`; what a user may do with one resource is the policies' job.
+ * Who is asking: reads the session cookie once per request, checks the token's signature (remembered
+ * per token) and then reads its session row joined with the user, on every request and uncached:
+ * a signed-out, revoked or expired session, or a deactivated account, is refused at once, in this
+ * process and in any other sharing the database, and a changed role takes effect at once. Routes
+ * then say who may call them with `requireUser` / `requireRole`; what a user may do with one
+ * resource is the policies' job.
  */
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../context';
 import { readSessionCookie, verifySession } from '../auth/session';
-import { findUserById, type User } from '../db/users';
+import { findSessionUser } from '../db/sessions';
+import type { User } from '../db/users';
 import { ApiError } from './failure';
 
 declare global {
@@ -15,6 +19,8 @@ declare global {
     interface Request {
       /** The signed-in user, when there is one. */
       user?: User;
+      /** The id of the session row the request's token names (set together with `user`). */
+      sessionId?: string;
     }
   }
 }
@@ -23,8 +29,13 @@ export function authenticate(ctx: AppContext): RequestHandler {
   return async (req: Request, _res: Response, next: NextFunction) => {
     const token = readSessionCookie(req.headers.cookie);
     if (token) {
-      const userId = await verifySession(token, ctx.sessionKey, ctx.clock.now());
-      if (userId) req.user = (await findUserById(ctx.orm, userId)) ?? undefined;
+      const now = ctx.clock.now();
+      const claims = await verifySession(token, ctx.sessionKey, now);
+      const user = claims ? await findSessionUser(ctx.orm, claims.sessionId, claims.userId, now) : null;
+      if (user && claims) {
+        req.user = user;
+        req.sessionId = claims.sessionId;
+      }
     }
     next();
   };

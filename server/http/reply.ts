@@ -27,11 +27,32 @@ export function reply<T>(res: Response, outcome: Outcome<T>, status = 200, body:
   else res.status(status).json(body(outcome.value));
 }
 
-/** 415 for a state-changing request whose body is not JSON (uploads are mounted before this). */
+/** True when the request carries no body at all (no Transfer-Encoding, no or a zero Content-Length). */
+function hasNoBody(req: Parameters<RequestHandler>[0]): boolean {
+  const length = req.headers['content-length'];
+  return req.headers['transfer-encoding'] === undefined && (length === undefined || length.trim() === '0');
+}
+
+/**
+ * 415 for a state-changing request whose body is not JSON (uploads are mounted before this). A
+ * request with no body at all has nothing to mistype: a browser's bodiless POST (sign-out) sends
+ * `Content-Length: 0` and no Content-Type, and goes through as an empty body.
+ */
 export const requireJsonBody: RequestHandler = (req, res, next) => {
-  if (req.method !== 'GET' && req.method !== 'HEAD' && req.is('application/json') === false) {
+  if (req.method !== 'GET' && req.method !== 'HEAD' && !hasNoBody(req) && req.is('application/json') === false) {
     sendFailure(res, { code: 'unsupported_media_type', message: `Send JSON (Content-Type: application/json), not ${req.get('content-type') ?? 'an untyped body'}` });
     return;
   }
   next();
 };
+
+/**
+ * Runs `task` after the answer has been sent, without the response waiting for it: work whose
+ * duration would tell something (whether an e-mail address has an account) must not happen on the
+ * response path. A failure is logged, never thrown.
+ */
+export function afterAnswer(log: { error: (obj: object, msg: string) => void }, what: string, task: () => Promise<unknown>): void {
+  setImmediate(() => {
+    task().catch((err: unknown) => log.error({ err }, `${what} failed after the answer was sent`));
+  });
+}

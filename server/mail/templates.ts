@@ -9,7 +9,8 @@ function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
 }
 
-function compose(to: string, subject: string, paragraphs: string[], link: { url: string; label: string }): OutgoingMail {
+/** A mail of plain paragraphs and one link, as text and as HTML. */
+export function compose(to: string, subject: string, paragraphs: string[], link: { url: string; label: string }): OutgoingMail {
   const text = [...paragraphs, '', `${link.label}: ${link.url}`, '', '— Rungwright'].join('\n');
   const html = [
     ...paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`),

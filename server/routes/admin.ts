@@ -1,20 +1,43 @@
-/** `/api/admin/*` (admin only) and `/api/dev/mail` (admin only, and only with the local fake SMTP). */
+/**
+ * `/api/admin/*` (admin only): accounts (list, deactivate, reactivate, send a reset link),
+ * instructor invitations; and `/api/dev/mail` (admin only, and only with the local fake SMTP).
+ */
 import express, { type Router } from 'express';
 import { InviteInstructorRequestSchema } from '@shared/api';
 import type { AppContext } from '../context';
-import { requireRole } from '../http/authenticate';
-import { parse, reply } from '../http/reply';
+import { currentUser, requireRole } from '../http/authenticate';
+import { parse, parseId, reply } from '../http/reply';
 import { sendFailure } from '../http/errorHandler';
 import { inviteInstructor } from '../services/accounts';
 import { listUsers } from '../db/users';
 import { listSentMail } from '../db/sentMail';
-import { iso, userView } from '../services/views';
+import { iso } from '../services/views';
+import { accountView, deactivateAccount, reactivateAccount } from '../services/accountAdmin';
+import { sendResetLinkTo } from '../services/passwords';
 
 export function adminRouter(ctx: AppContext): Router {
   const router = express.Router();
 
   router.get('/admin/users', requireRole('admin'), async (_req, res) => {
-    res.json({ users: (await listUsers(ctx.orm)).map(userView) });
+    res.json({ users: (await listUsers(ctx.orm)).map(accountView) });
+  });
+
+  router.post('/admin/users/:id/deactivate', requireRole('admin'), async (req, res) => {
+    const id = parseId(req.params.id, 'account');
+    if (!id.ok) return reply(res, id);
+    reply(res, await deactivateAccount(ctx, currentUser(req), id.value), 200, (user) => ({ user: accountView(user) }));
+  });
+
+  router.post('/admin/users/:id/reactivate', requireRole('admin'), async (req, res) => {
+    const id = parseId(req.params.id, 'account');
+    if (!id.ok) return reply(res, id);
+    reply(res, await reactivateAccount(ctx, id.value), 200, (user) => ({ user: accountView(user) }));
+  });
+
+  router.post('/admin/users/:id/password-reset', requireRole('admin'), async (req, res) => {
+    const id = parseId(req.params.id, 'account');
+    if (!id.ok) return reply(res, id);
+    reply(res, await sendResetLinkTo(ctx, id.value), 202, (sent) => ({ sent }));
   });
 
   router.post('/admin/instructor-invitations', requireRole('admin'), async (req, res) => {

@@ -2,34 +2,17 @@
  * `/api/labs/:id/attachments*`: upload (multipart, field `file`, multer memory storage, 10 MB),
  * list, download and delete. Mounted before the JSON-only rule, like the other uploads.
  */
-import express, { type RequestHandler, type Router } from 'express';
-import multer from 'multer';
+import express, { type Router } from 'express';
 import { MAX_ATTACHMENT_BYTES } from '@shared/api';
 import type { AppContext } from '../context';
 import { currentUser, requireUser } from '../http/authenticate';
-import { ApiError } from '../http/failure';
 import { sendFailure } from '../http/errorHandler';
+import { receiveFile } from '../http/multipart';
 import { parseId, reply } from '../http/reply';
 import * as attachments from '../services/attachments';
 
-const receive = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_ATTACHMENT_BYTES, files: 1, fields: 5 } }).single('file');
-
-/** multer's own errors (too large, wrong field) as located API errors. */
-const upload: RequestHandler = (req, res, next) => {
-  if (!req.is('multipart/form-data')) {
-    sendFailure(res, { code: 'unsupported_media_type', message: 'Send the file as multipart/form-data in the field "file"' });
-    return;
-  }
-  receive(req, res, (err: unknown) => {
-    if (!err) return next();
-    if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-      return next(new ApiError({ code: 'payload_too_large', message: 'An attachment is at most 10 MB', fields: { file: 'larger than 10 MB' } }));
-    }
-    if (err instanceof multer.MulterError) return next(new ApiError({ code: 'validation', message: `Upload one file in the field "file" (${err.message})`, fields: { file: err.message } }));
-    next(err);
-  });
-};
-
+/** One file in the field `file`; every malformed multipart body is a located 4xx (`http/multipart.ts`). */
+const upload = receiveFile({ maxBytes: MAX_ATTACHMENT_BYTES, maxText: '10 MB', fields: 5 });
 
 export function labAttachmentsRouter(ctx: AppContext): Router {
   const router = express.Router();

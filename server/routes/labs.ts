@@ -8,7 +8,7 @@ import {
   UpdateLabRequestSchema,
 } from '@shared/api';
 import type { AppContext } from '../context';
-import { currentUser, requireUser } from '../http/authenticate';
+import { currentUser, requireRole, requireUser } from '../http/authenticate';
 import { parse, parseId, reply } from '../http/reply';
 import * as labs from '../services/labs';
 import * as studentLabs from '../services/studentLabs';
@@ -17,7 +17,8 @@ import * as submissions from '../services/submissions';
 export function labsRouter(ctx: AppContext): Router {
   const router = express.Router();
 
-  router.get('/lab-templates', requireUser, (_req, res) => {
+  // The standard labs are the instructors' to choose from; a student needs none of them.
+  router.get('/lab-templates', requireRole('instructor', 'admin'), (_req, res) => {
     res.json({ templates: labs.listTemplates() });
   });
 

@@ -4,6 +4,7 @@
  */
 import Papa from 'papaparse';
 import type { Gradebook } from '@shared/api';
+import { SAFE_CSV_OPTIONS } from '@shared/api/csv';
 import type { AppContext } from '../context';
 import type { User } from '../db/users';
 import { listStudents } from '../db/classes';
@@ -15,7 +16,7 @@ import { round2 } from './grading';
 import { iso } from './views';
 
 export async function gradebook(ctx: AppContext, actor: User, classId: string): Promise<Outcome<Gradebook>> {
-  const cls = await authorisedClass(ctx, actor, classId, 'manage');
+  const cls = await authorisedClass(ctx, actor, classId, 'grades');
   if (!cls.ok) return cls;
   const labs = await listLabsOfClass(ctx.orm, classId, false);
   const students = await listStudents(ctx.orm, classId);
@@ -36,11 +37,15 @@ export async function gradebook(ctx: AppContext, actor: User, classId: string): 
   });
 }
 
-/** The gradebook as CSV: one row per student, a column per lab (title and points), total and possible. */
+/**
+ * The gradebook as CSV: one row per student, a column per lab (title and points), total and
+ * possible. Names and titles come from users, so a cell a spreadsheet would take for a formula is
+ * written as text (`SAFE_CSV_OPTIONS`).
+ */
 export function gradebookCsv(book: Gradebook): string {
   const header = ['Student', 'E-mail', ...book.labs.map((l) => `${l.title} (${l.totalPoints})`), 'Total', 'Possible'];
   const rows = book.rows.map((r) => [r.student.name, r.student.email, ...r.cells.map((c) => (c.finalScore === null ? '' : String(c.finalScore))), String(r.total), String(r.possible)]);
-  return Papa.unparse({ fields: header, data: rows }, { quotes: false, newline: '\r\n' });
+  return Papa.unparse({ fields: header, data: rows }, { ...SAFE_CSV_OPTIONS, quotes: false });
 }
 
 /** A file name for the download: the class name in safe characters. */

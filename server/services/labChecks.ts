@@ -5,7 +5,7 @@
  * layout, `script.steps.<n>` (0-based, as JSON paths count) for a step, `script` otherwise.
  */
 import type { LabPanel } from '@shared/api';
-import { checkScriptAgainstPanel, parseCheckScript, type CheckScript, type ExpectStep } from '@shared/checks';
+import { checkScriptAgainstPanel, parseCheckScript, studentScript, type CheckScript, type ExpectStep, type StudentScript } from '@shared/checks';
 import { builtInPanel, BUILT_IN_PANELS } from '@shared/field/panels';
 import { parsePanelLayout } from '@shared/field/parseLayout';
 import type { PanelLayout } from '@shared/field/layout';
@@ -95,29 +95,10 @@ export function countChecks(script: CheckScript): CheckCounts {
 }
 
 /**
- * The self-check script for a student (see `SelfCheckScriptSchema`): every step up to the last
- * visible check, hidden expect steps removed. An expect step only reads the panel, so removing one
- * leaves the states every later step sees unchanged. Steps after the last visible check lead only
- * to hidden checks and stay on the server.
+ * The self-check script for a student (see `SelfCheckScriptSchema`): the student's script of
+ * `studentScript` in `shared/checks` — no hidden check, nothing after the last visible check, no
+ * wait split where a hidden check sat — numbered as the student's grade reports are.
  */
-export function selfCheckScript(script: CheckScript): { script: CheckScript; stepMap: number[]; withheld: { hiddenChecks: number; hiddenPoints: number } } {
-  let last = -1;
-  script.steps.forEach((step, i) => {
-    if (isExpect(step) && !step.hidden) last = i;
-  });
-  const steps: CheckScript['steps'] = [];
-  const stepMap: number[] = [];
-  let hiddenChecks = 0;
-  let hiddenPoints = 0;
-  script.steps.forEach((step, i) => {
-    if (isExpect(step) && step.hidden) {
-      hiddenChecks += 1;
-      hiddenPoints += step.points ?? 1;
-      return;
-    }
-    if (i > last) return;
-    steps.push(step);
-    stepMap.push(i + 1);
-  });
-  return { script: { ...script, steps }, stepMap, withheld: { hiddenChecks, hiddenPoints } };
+export function selfCheckScript(script: CheckScript): StudentScript {
+  return studentScript(script);
 }

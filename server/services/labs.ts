@@ -46,7 +46,7 @@ async function resolveStarter(ctx: AppContext, actor: User, starter: LabStarterC
   if (starter.kind === 'empty') return success({ starterKind: 'empty', starterProgramId: null, starterVersion: null, starterDocument: null });
   const notFound = failure('validation', `starter: no program version ${starter.version} of yours with that id`, { fields: { 'starter.programId': 'not one of your programs, or no such version' } });
   const program = await findProgram(ctx.orm, starter.programId);
-  if (!program || (await programAccess(ctx.orm, actor, program.ownerId, 'read')) !== 'allowed') return notFound;
+  if (!program || (await programAccess(ctx.orm, actor, program, 'read')) !== 'allowed') return notFound;
   const version = await findVersion(ctx.orm, program.id, starter.version);
   if (!version) return notFound;
   return success({ starterKind: 'program', starterProgramId: program.id, starterVersion: version.number, starterDocument: version.document });
@@ -156,7 +156,7 @@ export async function tryLab(ctx: AppContext, actor: User, labId: string, ref: P
   if (!found.ok) return found;
   const program = await findProgram(ctx.orm, ref.programId);
   const notFound = failure('not_found', 'No program version with that id and number that you may read');
-  if (!program || (await programAccess(ctx.orm, actor, program.ownerId, 'read')) !== 'allowed') return notFound;
+  if (!program || (await programAccess(ctx.orm, actor, program, 'read')) !== 'allowed') return notFound;
   const version = await findVersion(ctx.orm, program.id, ref.version);
   if (!version) return notFound;
   const graded = await gradeOnLab(ctx, found.value.lab, version.document);

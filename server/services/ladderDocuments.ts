@@ -3,22 +3,29 @@
  * document before it is stored, diffing two versions, PLCopen XML in and out.
  */
 import { ProgramSchema, type Program } from '@shared/ladder/schema';
-import { diffPrograms, parseProgram } from '@shared/ladder';
+import { checkDocumentBounds, diffPrograms, parseProgram } from '@shared/ladder';
 import { exportPlcopen, importPlcopen } from '@shared/ladder/plcopen';
 import type { RungDiffView } from '@shared/api';
 import { fieldsFromZod, failure, success, type Outcome } from '../http/failure';
 
 /**
  * Parses and normalises a document with `parseProgram` (the shared schema plus unique ids). A
- * document that fails is refused with the problem located by path; nothing is stored. Semantic
+ * document that fails is refused with the problem located by path; nothing is stored (`purpose`
+ * says which verb the message uses: a stored document can be too deep to open). Semantic
  * diagnostics (`validateProgram`) do not refuse a save: a half-drawn rung can be saved.
  */
-export function checkProgramDocument(json: unknown): Outcome<Program> {
+export function checkProgramDocument(json: unknown, purpose: 'store' | 'open' = 'store'): Outcome<Program> {
   const parsed = parseProgram(json);
   if (parsed.ok) return success(parsed.value);
-  const schema = ProgramSchema.safeParse(json);
-  const fields = schema.success ? { document: parsed.error } : fieldsFromZod(schema.error, 'document');
-  return failure('invalid_document', `The program document cannot be stored: ${parsed.error}`, {
+  // A document past the size limits never reaches the schema (it recurses per level).
+  const outOfBounds = checkDocumentBounds(json);
+  const schema = outOfBounds ? null : ProgramSchema.safeParse(json);
+  const fields = outOfBounds
+    ? { [['document', ...outOfBounds.path].join('.')]: outOfBounds.message }
+    : !schema || schema.success
+      ? { document: parsed.error }
+      : fieldsFromZod(schema.error, 'document');
+  return failure('invalid_document', `The program document cannot be ${purpose === 'store' ? 'stored' : 'opened'}: ${parsed.error}`, {
     fields,
     details: { diagnostics: Object.entries(fields).map(([path, message]) => ({ path, message })) },
   });
@@ -31,6 +38,9 @@ export function diffProgramDocuments(before: Program, after: Program): RungDiffV
     rungId: d.rungId,
     ...(d.before !== undefined ? { before: d.before } : {}),
     ...(d.after !== undefined ? { after: d.after } : {}),
+    ...(d.beforeComment !== undefined ? { beforeComment: d.beforeComment } : {}),
+    ...(d.afterComment !== undefined ? { afterComment: d.afterComment } : {}),
+    ...(d.changedParts !== undefined ? { changedParts: d.changedParts } : {}),
   }));
 }
 

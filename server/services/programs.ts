@@ -10,39 +10,65 @@ import type { AppContext } from '../context';
 import type { User } from '../db/users';
 import * as db from '../db/programs';
 import { failure, success, type Outcome } from '../http/failure';
-import { programAccess, type ProgramAction } from '../policies/programPolicy';
+import { programAccess, programListAccess, type ProgramAction } from '../policies/programPolicy';
 import { refusal } from '../policies/access';
 import { checkProgramDocument, diffProgramDocuments } from './ladderDocuments';
+import { clearDraftAfterSave } from './drafts';
+import { authorisedLab } from './labs';
 import { programView, versionDetailView, versionView } from './views';
 
 /** Loads a program the actor may act on, or the failure to answer (404 hides, 403 refuses). */
 async function authorised(ctx: AppContext, actor: User, programId: string, action: ProgramAction): Promise<Outcome<db.Program>> {
   const program = await db.findProgram(ctx.orm, programId);
   if (!program) return failure('not_found', 'This program does not exist or is not open to you');
-  return refusal(await programAccess(ctx.orm, actor, program.ownerId, action), 'program') ?? success(program);
+  return refusal(await programAccess(ctx.orm, actor, program, action), 'program') ?? success(program);
 }
 
+/** The owner's programs the actor may read: all of their own; of a student, those in the labs of classes the actor teaches them in. */
 export async function listPrograms(ctx: AppContext, actor: User, ownerId: string | undefined): Promise<Outcome<ProgramListItem[]>> {
   const owner = ownerId ?? actor.id;
-  const denied = refusal(await programAccess(ctx.orm, actor, owner, 'read'), 'user');
-  if (denied) return denied;
-  return success((await db.listProgramsByOwner(ctx.orm, owner)).map((p) => ({ ...programView(p), labTitle: p.labTitle })));
+  const access = await programListAccess(ctx.orm, actor, owner);
+  if (access.kind === 'hidden') return failure('not_found', 'This user does not exist or is not open to you');
+  const rows = await db.listProgramsByOwner(ctx.orm, owner);
+  const readable = access.kind === 'all' ? rows : rows.filter((p) => p.labId !== null && access.labIds.has(p.labId));
+  return success(readable.map((p) => ({ ...programView(p), labTitle: p.labTitle })));
+}
+
+/** The one answer for a lab that does not exist and a lab the caller may not see (no lab titles or ids learnt by probing). */
+const NO_SUCH_LAB = failure('not_found', 'labId: no lab with this id is open to you', { fields: { labId: 'no lab with this id is open to you' } });
+
+/**
+ * PostgreSQL's foreign-key violation (SQLSTATE 23503): the lab was deleted between the check and
+ * the insert. Drizzle wraps the driver's error, so its `cause` is looked at too.
+ */
+function isForeignKeyViolation(err: unknown): boolean {
+  for (let e = err, depth = 0; typeof e === 'object' && e !== null && depth < 3; e = (e as { cause?: unknown }).cause, depth += 1) {
+    if ((e as { code?: unknown }).code === '23503') return true;
+  }
+  return false;
 }
 
 export async function createProgram(ctx: AppContext, actor: User, req: CreateProgramRequest, demo = false): Promise<Outcome<ProgramDetail>> {
   const checked = checkProgramDocument(req.document ?? createEmptyProgram(req.title));
   if (!checked.ok) return checked;
-  const { program, version } = await db.insertProgram(ctx.orm, {
-    ownerId: actor.id,
-    title: req.title,
-    labId: req.labId ?? null,
-    demo,
-    document: checked.value,
-    message: req.message || 'Created',
-    authorId: actor.id,
-    now: ctx.clock.now(),
-  });
-  return success({ program: programView(program), head: versionDetailView(version) });
+  // A program may name only a lab its owner can see: a student's lab of an enrolled class (published), a lab of a class the actor runs.
+  if (req.labId !== undefined && !(await authorisedLab(ctx, actor, req.labId, 'view')).ok) return NO_SUCH_LAB;
+  try {
+    const { program, version } = await db.insertProgram(ctx.orm, {
+      ownerId: actor.id,
+      title: req.title,
+      labId: req.labId ?? null,
+      demo,
+      document: checked.value,
+      message: req.message || 'Created',
+      authorId: actor.id,
+      now: ctx.clock.now(),
+    });
+    return success({ program: programView(program), head: versionDetailView(version) });
+  } catch (err) {
+    if (isForeignKeyViolation(err)) return NO_SUCH_LAB;
+    throw err;
+  }
 }
 
 export async function getProgram(ctx: AppContext, actor: User, programId: string): Promise<Outcome<ProgramDetail>> {
@@ -71,7 +97,11 @@ async function append(ctx: AppContext, actor: User, programId: string, baseVersi
   const checked = checkProgramDocument(document);
   if (!checked.ok) return checked;
   const result = await db.appendVersion(ctx.orm, { programId, baseVersion, document: checked.value, message, authorId: actor.id, now: ctx.clock.now() });
-  if (result.ok) return success(versionDetailView(result.version));
+  if (result.ok) {
+    // The saved version holds what the draft kept; a draft left behind would be offered back as newer work.
+    await clearDraftAfterSave(ctx, actor.id, programId);
+    return success(versionDetailView(result.version));
+  }
   if (!result.head) return failure('not_found', 'This program does not exist or is not open to you');
   return failure('version_conflict', `Version ${result.head.number} was saved after version ${baseVersion}; load it and apply your change again`, {
     details: { head: versionView(result.head) },

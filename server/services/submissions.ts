@@ -93,7 +93,7 @@ const SORT_KEYS = {
 } satisfies Record<SubmissionListQuery['sort'], (r: SubmissionRow) => SortValue>;
 
 export async function listForLab(ctx: AppContext, actor: User, labId: string, query: SubmissionListQuery): Promise<Outcome<SubmissionRow[]>> {
-  const found = await authorisedLab(ctx, actor, labId, 'manage');
+  const found = await authorisedLab(ctx, actor, labId, 'review');
   if (!found.ok) return found;
   const all = await db.listSubmissionsOfLab(ctx.orm, labId);
   const attempts = new Map<string, number>();
@@ -196,7 +196,7 @@ export const REGRADE_CONCURRENCY = 4;
 
 /** Grades every submission of the lab again with the current script, keeping each old report in history. */
 export async function regradeLab(ctx: AppContext, actor: User, labId: string): Promise<Outcome<{ regraded: number; limited: number }>> {
-  const found = await authorisedLab(ctx, actor, labId, 'manage');
+  const found = await authorisedLab(ctx, actor, labId, 'review');
   if (!found.ok) return found;
   const lab = found.value.lab;
   const rows = await db.listSubmissionsOfLab(ctx.orm, labId);

@@ -40,15 +40,7 @@ export const SignInRequestSchema = z.object({
 });
 export type SignInRequest = z.infer<typeof SignInRequestSchema>;
 
-export const SignUpRequestSchema = z.object({
-  email: EmailSchema,
-  name: PersonNameSchema,
-  password: NewPasswordSchema,
-  joinCode: JoinCodeSchema,
-});
-export type SignUpRequest = z.infer<typeof SignUpRequestSchema>;
-
-/** `GET /api/me`, and the answer to sign-in, sign-up and accepting an invitation. */
+/** `GET /api/me`, and the answer to sign-in, finishing a sign-up and accepting an invitation. */
 export const SessionResponseSchema = z.object({ user: UserViewSchema });
 export type SessionResponse = z.infer<typeof SessionResponseSchema>;
 
@@ -64,25 +56,6 @@ export type PasswordResetConfirm = z.infer<typeof PasswordResetConfirmSchema>;
 /** The same answer whether or not the address has an account. */
 export const PasswordResetAcceptedSchema = z.object({ message: z.string() });
 
-export const InvitationLookupRequestSchema = z.object({ token: OneTimeTokenSchema });
-
-/** What an invitation link offers, shown before the person sets a password. */
-export const InvitationViewSchema = z.object({
-  email: z.string(),
-  role: RoleSchema,
-  name: z.string().nullable(),
-  className: z.string().nullable(),
-  expiresAt: z.string(),
-});
-export type InvitationView = z.infer<typeof InvitationViewSchema>;
-
-export const AcceptInvitationRequestSchema = z.object({
-  token: OneTimeTokenSchema,
-  name: PersonNameSchema,
-  password: NewPasswordSchema,
-});
-export type AcceptInvitationRequest = z.infer<typeof AcceptInvitationRequestSchema>;
-
 /** Admin: invite an instructor by e-mail. */
 export const InviteInstructorRequestSchema = z.object({ email: EmailSchema, name: PersonNameSchema.optional() });
 export type InviteInstructorRequest = z.infer<typeof InviteInstructorRequestSchema>;
@@ -90,4 +63,8 @@ export type InviteInstructorRequest = z.infer<typeof InviteInstructorRequestSche
 export const InvitationSentSchema = z.object({ email: z.string(), role: RoleSchema, expiresAt: z.string() });
 export type InvitationSent = z.infer<typeof InvitationSentSchema>;
 
-export const UserListSchema = z.object({ users: z.array(UserViewSchema) });
+/** A user as an administrator sees them: with whether the account is deactivated (and since when). */
+export const AccountViewSchema = UserViewSchema.extend({ deactivatedAt: z.string().nullable() });
+export type AccountView = z.infer<typeof AccountViewSchema>;
+
+export const UserListSchema = z.object({ users: z.array(AccountViewSchema) });

@@ -1,5 +1,6 @@
 /** Classes, enrolment and rosters: request and response bodies. */
 import { z } from 'zod';
+import { EmailSchema, PersonNameSchema } from './auth';
 
 export const ClassSummarySchema = z.object({
   id: z.string(),
@@ -31,11 +32,11 @@ export const StudentListSchema = z.object({ students: z.array(StudentEntrySchema
 export const RosterRowResultSchema = z.object({ line: z.number().int(), email: z.string(), name: z.string(), reason: z.string().optional() });
 
 /**
- * The roster upload report: `added` = enrolled now (existing student accounts), `invited` = an
- * invitation e-mail went out, `already` = enrolled or invited before, `rejected` with the reason.
+ * The roster upload report: `invited` = an invitation e-mail went out (whether or not the address
+ * has an account: nobody is enrolled until they accept, and the report never says what kind of
+ * account an address has), `already` = enrolled or invited before, `rejected` with the reason.
  */
 export const RosterReportSchema = z.object({
-  added: z.array(RosterRowResultSchema),
   invited: z.array(RosterRowResultSchema),
   already: z.array(RosterRowResultSchema),
   rejected: z.array(RosterRowResultSchema),
@@ -44,3 +45,10 @@ export type RosterReport = z.infer<typeof RosterReportSchema>;
 
 export const PendingInvitationSchema = z.object({ email: z.string(), name: z.string().nullable(), expiresAt: z.string(), usedAt: z.string().nullable() });
 export const InvitationListSchema = z.object({ invitations: z.array(PendingInvitationSchema) });
+
+/** Invite one student by hand; an open invitation to the same address is replaced (sent again). */
+export const InviteStudentRequestSchema = z.object({ email: EmailSchema, name: PersonNameSchema });
+export type InviteStudentRequest = z.infer<typeof InviteStudentRequestSchema>;
+
+export const ClassInvitationSentSchema = z.object({ email: z.string(), name: z.string().nullable(), expiresAt: z.string() });
+export type ClassInvitationSent = z.infer<typeof ClassInvitationSentSchema>;

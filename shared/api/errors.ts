@@ -19,7 +19,9 @@ export const ApiErrorCodeSchema = z.enum([
   'payload_too_large',
   'unsupported_media_type',
   'rate_limited',
+  'processing_limit',
   'mail_disabled',
+  'unknown_host',
   'internal',
 ]);
 export type ApiErrorCode = z.infer<typeof ApiErrorCodeSchema>;
@@ -39,7 +41,9 @@ export const API_ERROR_STATUS = {
   payload_too_large: 413,
   unsupported_media_type: 415,
   rate_limited: 429,
+  processing_limit: 422,
   mail_disabled: 404,
+  unknown_host: 421,
   internal: 500,
 } as const satisfies Record<ApiErrorCode, number>;
 
@@ -58,7 +62,9 @@ export const API_ERROR_SUMMARY = {
   payload_too_large: 'The upload is too large.',
   unsupported_media_type: 'That kind of content is not accepted here.',
   rate_limited: 'Too many attempts; wait a few minutes and try again.',
+  processing_limit: 'That is too large to process in the time allowed; try a smaller program.',
   mail_disabled: 'The local mail box is off because real mail is configured.',
+  unknown_host: 'This server does not answer to that host name.',
   internal: 'Something went wrong on the server.',
 } as const satisfies Record<ApiErrorCode, string>;
 

@@ -10,7 +10,7 @@
  * Times are ISO 8601 strings; scores are points of the lab's `totalPoints` (two decimals at most).
  */
 import { z } from 'zod';
-import { ProgramSummarySchema, VersionDetailSchema } from './programs';
+import { INT32_MAX, ProgramSummarySchema, VersionDetailSchema, VersionNumberSchema } from './programs';
 
 // ── Pieces of a lab ───────────────────────────────────────────────────────────────────────────
 
@@ -49,7 +49,7 @@ export const LabStarterChoiceSchema = z.discriminatedUnion(
   'kind',
   [
     z.strictObject({ kind: z.literal('empty') }),
-    z.strictObject({ kind: z.literal('program'), programId: z.uuid('not a program id'), version: z.number().int().min(1) }),
+    z.strictObject({ kind: z.literal('program'), programId: z.uuid('not a program id'), version: VersionNumberSchema }),
   ],
   { error: 'starter is { kind: "empty" } or { kind: "program", programId, version }' },
 );
@@ -60,7 +60,11 @@ export const LabSummarySchema = z.string().trim().max(300, 'a summary is at most
 /** Markdown source; the browser renders it (marked) and sanitises it (DOMPurify). */
 export const LabBriefSchema = z.string().max(100_000, 'a brief is at most 100 000 characters');
 export const TotalPointsSchema = z.number().int('total points are a whole number').min(1, 'total points are at least 1').max(1000, 'total points are at most 1000');
-export const DueAtSchema = z.iso.datetime({ offset: true, error: 'dueAt is an ISO 8601 date-time, e.g. 2026-10-01T23:59:00Z' }).nullable();
+export const DueAtSchema = z.iso
+  .datetime({ offset: true, error: 'dueAt is an ISO 8601 date-time, e.g. 2026-10-01T23:59:00Z' })
+  // Year 0000 parses but the database refuses it; no due date is meant before 1970 anyway.
+  .refine((v) => new Date(v).getUTCFullYear() >= 1970, 'dueAt is a date from 1970 on')
+  .nullable();
 
 // ── Attachments ───────────────────────────────────────────────────────────────────────────────
 
@@ -158,7 +162,7 @@ export const CreateLabRequestSchema = z.strictObject({
   brief: LabBriefSchema.optional(),
   panel: LabPanelSchema.optional(),
   starter: LabStarterChoiceSchema.optional(),
-  /** A check script (DESIGN.md "Check scripts"), checked step by step and against the panel. */
+  /** A check script (docs/check-scripts.md), checked step by step and against the panel. */
   script: z.unknown().refine((v) => v !== undefined, 'a lab needs a check script'),
   totalPoints: TotalPointsSchema.optional(),
   dueAt: DueAtSchema.optional(),
@@ -183,7 +187,11 @@ export type UpdateLabRequest = z.infer<typeof UpdateLabRequestSchema>;
 /** A saved version of a program: `POST /api/labs/:id/try` and `POST /api/labs/:id/submissions`. */
 export const ProgramVersionRefSchema = z.strictObject({
   programId: z.uuid('not a program id'),
-  version: z.number({ error: 'version must be a saved version number' }).int().min(1, 'version must be a saved version number'),
+  version: z
+    .number({ error: 'version must be a saved version number' })
+    .int('version must be a saved version number')
+    .min(1, 'version must be a saved version number')
+    .max(INT32_MAX, `version is at most ${INT32_MAX}`),
 });
 export type ProgramVersionRef = z.infer<typeof ProgramVersionRefSchema>;
 
@@ -203,8 +211,8 @@ export const CheckResultSchema = z.object({
   steps: z.array(z.string()),
   note: z.string().optional(),
 });
-/** A hidden check as a student sees it. */
-export const HiddenCheckViewSchema = z.strictObject({ index: z.number().int(), passed: z.boolean(), points: z.number(), hidden: z.literal(true) });
+/** A hidden check as a student sees it: pass or fail and points, not where it sits. */
+export const HiddenCheckViewSchema = z.strictObject({ passed: z.boolean(), points: z.number(), hidden: z.literal(true) });
 
 /** The fields of a grade report the screens use; events, trace and diagnostics pass through as they are. */
 export const GradeReportSchema = z.looseObject({
@@ -250,15 +258,14 @@ export const FromTemplateResponseSchema = z.object({ lab: LabDetailSchema, solut
 export const OpenLabResponseSchema = z.object({ program: ProgramSummarySchema, head: VersionDetailSchema, created: z.boolean() });
 
 /**
- * `GET /api/labs/:id/self-check-script`. `script` holds every step up to the last visible check,
- * with the hidden checks' expect steps removed (an expect step only reads, so the visible checks
- * see the same states as in grading); steps after the last visible check are left out, so the
- * actions that lead only to hidden checks stay on the server. `stepMap[i]` is the step number in
- * the full script of self-check step `i + 1`, so results can be matched with a graded report.
+ * `GET /api/labs/:id/self-check-script`: the student's script (`studentScript` in
+ * `shared/checks`): every step up to the last visible check, without the hidden checks' expect
+ * steps (an expect step only reads, so the visible checks see the same states as in grading) and
+ * with two waits a hidden check kept apart joined into one, so nothing shows where a hidden check
+ * sat. Its step numbers are the ones the student's grade reports use.
  */
 export const SelfCheckScriptSchema = z.object({
   script: z.unknown(),
-  stepMap: z.array(z.number().int()),
   withheld: z.object({ hiddenChecks: z.number().int(), hiddenPoints: z.number().int() }),
 });
 export type SelfCheckScript = z.infer<typeof SelfCheckScriptSchema>;

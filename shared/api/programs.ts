@@ -1,6 +1,20 @@
 /** Programs and their immutable versions: request and response bodies. */
 import { z } from 'zod';
 
+/**
+ * The largest value of a PostgreSQL `integer` column (2^31 − 1). Every whole number a request
+ * carries to such a column is bounded by it, so a huge one is refused with its field named instead
+ * of failing at the database.
+ */
+export const INT32_MAX = 2_147_483_647;
+
+/** A saved version's number (1, 2, …), as sent in a body. */
+export const VersionNumberSchema = z
+  .number({ error: 'a version number is a whole number from 1' })
+  .int('a version number is a whole number from 1')
+  .min(1, 'a version number is a whole number from 1')
+  .max(INT32_MAX, `a version number is at most ${INT32_MAX}`);
+
 /** A program as listed: no document. */
 export const ProgramSummarySchema = z.object({
   id: z.string(),
@@ -53,7 +67,11 @@ export const RenameProgramRequestSchema = z.object({ title: ProgramTitleSchema }
 
 /** `POST /api/programs/:id/versions`: a save, based on the version the editor loaded. */
 export const SaveVersionRequestSchema = z.object({
-  baseVersion: z.number({ error: 'baseVersion must be the version number the edit started from' }).int().min(1),
+  baseVersion: z
+    .number({ error: 'baseVersion must be the version number the edit started from' })
+    .int('baseVersion must be the version number the edit started from')
+    .min(1, 'baseVersion must be the version number the edit started from')
+    .max(INT32_MAX, `baseVersion is at most ${INT32_MAX}`),
   document: z.unknown().refine((v) => v !== undefined, 'the program document is missing'),
   message: VersionMessageSchema.default(''),
 });
@@ -61,8 +79,8 @@ export type SaveVersionRequest = z.infer<typeof SaveVersionRequestSchema>;
 
 /** `POST /api/programs/:id/restore`: a new version copying an old one. */
 export const RestoreVersionRequestSchema = z.object({
-  version: z.number().int().min(1),
-  baseVersion: z.number().int().min(1),
+  version: VersionNumberSchema,
+  baseVersion: VersionNumberSchema,
   message: VersionMessageSchema.optional(),
 });
 export type RestoreVersionRequest = z.infer<typeof RestoreVersionRequestSchema>;
@@ -71,16 +89,20 @@ export type RestoreVersionRequest = z.infer<typeof RestoreVersionRequestSchema>;
 export const VersionConflictDetailsSchema = z.object({ head: VersionSummarySchema });
 
 export const DiffQuerySchema = z.object({
-  from: z.coerce.number().int().min(1, 'from must be a version number'),
-  to: z.coerce.number().int().min(1, 'to must be a version number'),
+  from: z.coerce.number().int('from must be a version number').min(1, 'from must be a version number').max(INT32_MAX, 'from must be a version number'),
+  to: z.coerce.number().int('to must be a version number').min(1, 'to must be a version number').max(INT32_MAX, 'to must be a version number'),
 });
 
-/** One rung's change between two versions, with the rung's one-line text form. */
+/** One rung's change between two versions, with the rung's one-line text form and comments. */
 export const RungDiffSchema = z.object({
   kind: z.enum(['added', 'removed', 'changed', 'same']),
   rungId: z.string(),
   before: z.string().optional(),
   after: z.string().optional(),
+  beforeComment: z.string().optional(),
+  afterComment: z.string().optional(),
+  /** For a changed rung: whether its logic, its comment or both changed. */
+  changedParts: z.array(z.enum(['logic', 'comment'])).optional(),
 });
 export type RungDiffView = z.infer<typeof RungDiffSchema>;
 

@@ -9,7 +9,7 @@ import { addressInRange, parseAddress } from '../ladder/addresses';
 import { DEVICE_KINDS, modelOf } from '../field/devices';
 import type { DeviceAction, DeviceKind } from '../field/devices/model';
 import type { DeviceSpec, PanelLayout } from '../field/layout';
-import { stepAction, type CheckScript, type Expectation } from './script';
+import { isCheckStep, stepAction, type CheckScript, type Expectation } from './script';
 
 /** Memory bits the simulator gives every program (the engine's default space). */
 export const MEMORY_BITS = 64;
@@ -64,6 +64,18 @@ function checkExpectKey(key: string, value: Expectation, panel: PanelLayout, byI
   return `${at}: "${key}" is neither a device, an address (%IX1), a tag nor a block value (T1.ET)`;
 }
 
+/** A bit a step may force: an address on the panel, or a tag (the program's business). */
+function checkBitOperand(operand: string, panel: PanelLayout, at: string, action: string): string | null {
+  if (operand.startsWith('%')) {
+    const parsed = parseAddress(operand);
+    if (!parsed.ok) return `${at}: "${action}": ${parsed.error}`;
+    const range = addressInRange(parsed.value, { inputs: panel.inputs, outputs: panel.outputs, memory: MEMORY_BITS });
+    return range ? `${at}: "${action}": ${range}` : null;
+  }
+  if (/^[A-Za-z_][A-Za-z0-9_]*$/.test(operand)) return null;
+  return `${at}: "${action}" needs a bit: an address such as "%IX2" or a tag, got "${operand}"`;
+}
+
 /** Every problem of running `script` on `panel`; empty when it fits. */
 export function checkScriptAgainstPanel(script: CheckScript, panel: PanelLayout): string[] {
   const errors: string[] = [];
@@ -73,20 +85,38 @@ export function checkScriptAgainstPanel(script: CheckScript, panel: PanelLayout)
     const at = `step ${i + 1}`;
     const action = stepAction(step);
     if (action === 'wait') return;
-    if (action === 'expect') {
-      const expect = (step as { expect: Record<string, Expectation> }).expect;
-      for (const [key, value] of Object.entries(expect)) {
+    if (isCheckStep(step)) {
+      const s = step as Partial<Record<'expect' | 'never' | 'always' | 'until', Record<string, Expectation>>>;
+      const condition = s.expect ?? s.never ?? s.always ?? s.until ?? {};
+      for (const [key, value] of Object.entries(condition)) {
         const problem = checkExpectKey(key, value, panel, byId, at);
         if (problem) errors.push(problem);
       }
       return;
     }
+    if (action === 'force' || action === 'unforce') {
+      const operand = (step as Record<string, string>)[action]!;
+      if (action === 'unforce' && operand === 'all') return;
+      const problem = checkBitOperand(operand, panel, at, action);
+      if (problem) errors.push(problem);
+      return;
+    }
+    if (action === 'preheat') {
+      const id = (step as { preheat: string }).preheat;
+      const device = byId.get(id);
+      if (device?.kind !== 'overload') {
+        errors.push(`${at}: "preheat" needs the id of an overload relay, got "${id}"${device ? ` (${modelOf(device.kind).noun})` : `, which is not on panel ${panel.id}`}`);
+      }
+      return;
+    }
+    // What is left is a device action (the check steps returned above).
+    const deviceAction = action as DeviceAction;
     const id = (step as Record<string, unknown>)[action] as string;
     const device = byId.get(id);
-    const needs = `"${action}" needs the id of ${nounsFor(action)}`;
+    const needs = `"${action}" needs the id of ${nounsFor(deviceAction)}`;
     if (!device) return void errors.push(`${at}: ${needs}, got "${id}", which is not on panel ${panel.id}`);
     const model = modelOf(device.kind);
-    if (model.actions[action] === undefined) return void errors.push(`${at}: ${needs}, got "${id}" (${model.noun})`);
+    if (model.actions[deviceAction] === undefined) return void errors.push(`${at}: ${needs}, got "${id}" (${model.noun})`);
     if (action === 'set' && device.kind === 'selector') {
       const to = (step as { to: string }).to;
       if (!device.params.positions.includes(to)) {

@@ -2,7 +2,7 @@
  * Reads a check script (already parsed JSON) with messages that name the step, the field and
  * what was expected. Returns every problem found, never throws.
  */
-import { CheckScriptSchema, MAX_LOAD_FACTOR, MAX_WAIT_MS, STEP_ACTIONS, STEP_SCHEMAS, type CheckScript, type Step, type StepAction } from './script';
+import { CHECK_ACTIONS, CheckScriptSchema, MAX_LOAD_FACTOR, MAX_PREHEAT_FACTOR, MAX_WAIT_MS, STEP_ACTIONS, STEP_SCHEMAS, type CheckScript, type Step, type StepAction } from './script';
 
 export type ScriptResult = { ok: true; value: CheckScript } | { ok: false; errors: string[] };
 
@@ -23,6 +23,11 @@ const EXTRA_FIELDS = {
   unblock: [],
   wait: [],
   expect: ['label', 'points', 'hidden'],
+  during: ['never', 'always', 'label', 'points', 'hidden'],
+  until: ['within', 'label', 'points', 'hidden'],
+  force: ['to'],
+  unforce: [],
+  preheat: ['factor'],
 } as const satisfies Record<StepAction, readonly string[]>;
 
 type StepChecker = (step: Record<string, unknown>, at: string) => string[];
@@ -46,6 +51,34 @@ function checkExpectation(key: string, value: unknown, at: string): string | nul
   return `${at}: expect "${key}" takes true/false, a number, a state word such as "closed", or { "min": …, "max": … }; got ${show(value)}`;
 }
 
+/** `label`, `points`, `hidden` of a check step. */
+function checkFieldsOf(step: Record<string, unknown>, at: string): string[] {
+  const errors: string[] = [];
+  if (step.label !== undefined && (typeof step.label !== 'string' || step.label.length > 200)) {
+    errors.push(`${at}: "label" is text of at most 200 characters, got ${show(step.label)}`);
+  }
+  if (step.points !== undefined && !(Number.isInteger(step.points) && (step.points as number) >= 0 && (step.points as number) <= 100)) {
+    errors.push(`${at}: "points" is a whole number from 0 to 100, got ${show(step.points)}`);
+  }
+  if (step.hidden !== undefined && typeof step.hidden !== 'boolean') {
+    errors.push(`${at}: "hidden" is true or false, got ${show(step.hidden)}`);
+  }
+  return errors;
+}
+
+/** A condition object (`expect`, `never`, `always`, `until`): one or more names with what they should read. */
+function conditionOf(field: string, value: unknown, at: string): string[] {
+  if (typeof value !== 'object' || value === null || Array.isArray(value) || Object.keys(value).length === 0) {
+    return [`${at}: "${field}" needs an object of what to check, e.g. { "K1": "closed", "%QX1": true }; got ${show(value)}`];
+  }
+  return Object.entries(value).flatMap(([key, v]) => {
+    const problem = checkExpectation(key, v, at);
+    return problem ? [problem.replace(': expect "', `: ${field} "`)] : [];
+  });
+}
+
+const isWholeMs = (v: unknown): v is number => Number.isInteger(v) && (v as number) >= 0 && (v as number) <= MAX_WAIT_MS;
+
 const STEP_CHECKS = {
   press: needsDevice('press', 'S2'),
   release: needsDevice('release', 'S2'),
@@ -67,28 +100,35 @@ const STEP_CHECKS = {
     Number.isInteger(step.wait) && (step.wait as number) >= 0 && (step.wait as number) <= MAX_WAIT_MS
       ? []
       : [`${at}: "wait" needs a whole number of ms from 0 to ${MAX_WAIT_MS}, got ${show(step.wait)}`],
-  expect: (step, at) => {
+  expect: (step, at) => [...conditionOf('expect', step.expect, at), ...checkFieldsOf(step, at)],
+  during: (step, at) => {
     const errors: string[] = [];
-    const expect = step.expect;
-    if (typeof expect !== 'object' || expect === null || Array.isArray(expect) || Object.keys(expect).length === 0) {
-      errors.push(`${at}: "expect" needs an object of what to check, e.g. { "K1": "closed", "%QX1": true }; got ${show(expect)}`);
-    } else {
-      for (const [key, value] of Object.entries(expect)) {
-        const problem = checkExpectation(key, value, at);
-        if (problem) errors.push(problem);
-      }
-    }
-    if (step.label !== undefined && (typeof step.label !== 'string' || step.label.length > 200)) {
-      errors.push(`${at}: "label" is text of at most 200 characters, got ${show(step.label)}`);
-    }
-    if (step.points !== undefined && !(Number.isInteger(step.points) && (step.points as number) >= 0 && (step.points as number) <= 100)) {
-      errors.push(`${at}: "points" is a whole number from 0 to 100, got ${show(step.points)}`);
-    }
-    if (step.hidden !== undefined && typeof step.hidden !== 'boolean') {
-      errors.push(`${at}: "hidden" is true or false, got ${show(step.hidden)}`);
-    }
-    return errors;
+    if (!(isWholeMs(step.during) && step.during >= 1)) errors.push(`${at}: "during" needs a whole number of ms from 1 to ${MAX_WAIT_MS}, got ${show(step.during)}`);
+    const has = (['never', 'always'] as const).filter((k) => step[k] !== undefined);
+    if (has.length !== 1) errors.push(`${at}: a "during" step needs exactly one of "never" and "always", got ${has.length === 0 ? 'neither' : 'both'}`);
+    for (const k of has) errors.push(...conditionOf(k, step[k], at));
+    return [...errors, ...checkFieldsOf(step, at)];
   },
+  until: (step, at) => {
+    const errors = conditionOf('until', step.until, at);
+    const w = step.within;
+    if (!(Array.isArray(w) && w.length === 2 && isWholeMs(w[0]) && isWholeMs(w[1]) && w[0] <= w[1])) {
+      errors.push(`${at}: "until" needs "within": [earliest, latest] in whole ms from 0 to ${MAX_WAIT_MS}, earliest ≤ latest, e.g. [4000, 10000]; got ${show(w)}`);
+    }
+    return [...errors, ...checkFieldsOf(step, at)];
+  },
+  force: (step, at) => [
+    ...(typeof step.force === 'string' && step.force !== '' ? [] : [`${at}: "force" needs a bit: an address such as "%IX2" or a tag, got ${show(step.force)}`]),
+    ...(typeof step.to === 'boolean' ? [] : [`${at}: "force" needs "to": true or false, got ${show(step.to)}`]),
+  ],
+  unforce: (step, at) =>
+    typeof step.unforce === 'string' && step.unforce !== '' ? [] : [`${at}: "unforce" needs a bit such as "%IX2", or "all", got ${show(step.unforce)}`],
+  preheat: (step, at) => [
+    ...needsDevice('preheat', 'F1')(step, at),
+    ...(isFiniteNumber(step.factor) && step.factor >= 0 && step.factor <= MAX_PREHEAT_FACTOR
+      ? []
+      : [`${at}: "preheat" needs "factor": the steady current before the test as a multiple of the setting, from 0 (cold) to ${MAX_PREHEAT_FACTOR} (hot); got ${show(step.factor)}`]),
+  ],
 } as const satisfies Record<StepAction, StepChecker>;
 
 function checkStep(raw: unknown, number: number): string[] {
@@ -133,6 +173,10 @@ export function parseCheckScript(json: unknown): ScriptResult {
     errors.push(`"steps" has ${steps.length} steps; a script has at most 2000`);
   } else {
     steps.forEach((step, i) => errors.push(...checkStep(step, i + 1)));
+  }
+  if (errors.length === 0 && !(steps as Record<string, unknown>[]).some((step) => CHECK_ACTIONS.some((a) => Object.hasOwn(step, a)))) {
+    // A script that checks nothing would pass any program, even one that does not run.
+    errors.push(`"steps" has no check: a script needs at least one ${CHECK_ACTIONS.map((a) => `"${a}"`).join(', ')} step`);
   }
   if (errors.length > 0) return { ok: false, errors };
   // The hand checks above mirror the schema; the schema has the last word and fills in defaults.

@@ -1,6 +1,6 @@
 /**
- * The grade report a check run produces, and its student view. Plain serialisable data; the same
- * inputs give the same report byte for byte (virtual time only, no clock).
+ * The grade report a check run produces (its student view is in `redact.ts`). Plain serialisable
+ * data; the same inputs give the same report byte for byte (virtual time only, no clock).
  */
 import type { Diagnostic } from '../engine';
 import type { FieldEvent } from '../field/events';
@@ -13,7 +13,7 @@ export const REPORT_FORMAT = 'rungwright.grade-report';
 export type Actual = string | boolean | number | null;
 
 export interface CheckResult {
-  /** The step's number in the script, counting from 1 (as error messages count). */
+  /** The step's number in the script, counting from 1 (as error messages count); in a student's report, in the student's script. */
   index: number;
   label: string;
   passed: boolean;
@@ -28,6 +28,19 @@ export interface CheckResult {
   steps: string[];
   /** Why a check could not be evaluated (program did not compile, a limit stopped the run). */
   note?: string;
+  /**
+   * The kind of check when it is not a plain `expect`: `never`/`always` over a `during` interval
+   * (then `expected` is that condition), or `until` (then `expected` is the awaited condition).
+   */
+  kind?: 'never' | 'always' | 'until';
+  /** A `during` or `until` check: the virtual time it spans, in ms as written (its scans run whole). */
+  spanMs?: number;
+  /** A `never`/`always` check that failed: the first scan (count since the start) and its time, in ms; `actual` is read there. */
+  failedAt?: { scan: number; atMs: number };
+  /** An `until` check: the window it must first hold in, in ms from the step's start. */
+  within?: [number, number];
+  /** An `until` check: ms from the step's start to the first scan where it held, or null if it never did. */
+  tookMs?: number | null;
 }
 
 /** An event with the script step during which it happened (0 = the settling time before step 1). */
@@ -39,6 +52,8 @@ export interface GradeReport {
   format: typeof REPORT_FORMAT;
   version: 1;
   panel: string;
+  /** The scan period of the run, in ms. Absent from reports graded before it was recorded. */
+  scanMs?: number;
   passed: boolean;
   score: number;
   maxScore: number;
@@ -56,79 +71,8 @@ export interface GradeReport {
   diagnostics: Diagnostic[];
   /** Why the run stopped before the end of the script (a limit), or null. */
   stoppedBy: string | null;
+  /** Remarks on how the script ran (a wait rounded up to whole scans, a force the program has no bit for). */
+  notes?: string[];
   virtualMs: number;
   scans: number;
-}
-
-/** A hidden check as a student sees it: pass or fail and its points, nothing more. */
-export interface HiddenCheckView {
-  index: number;
-  passed: boolean;
-  points: number;
-  hidden: true;
-}
-
-export interface StudentReport extends Omit<GradeReport, 'checks'> {
-  checks: (CheckResult | HiddenCheckView)[];
-  redacted: true;
-}
-
-/**
- * The report for a student: hidden checks reduced to pass/fail with no label, expected, actual or
- * steps, and the events and trace rows of the steps that led to a hidden check removed, so the
- * log does not give away what a hidden check does. When the script has hidden checks, the run is
- * also cut at the last visible check: events and trace rows after it are removed (and events the
- * log dropped are counted only for the steps shown), and `virtualMs`
- * and `scans` are the figures at that check, so the totals do not tell how long the hidden steps
- * run. A limit that stopped the run after that check is reported without its time.
- */
-export function redactReport(report: GradeReport): StudentReport {
-  if (!report.checks.some((c) => c.hidden)) return { ...report, redacted: true };
-  const hiddenSteps = new Set<number>();
-  const hiddenWindows: [number, number][] = [];
-  let previousIndex = 0;
-  let previousAt = -1;
-  for (const check of report.checks) {
-    if (check.hidden) {
-      for (let s = previousIndex + 1; s <= check.index; s += 1) hiddenSteps.add(s);
-      hiddenWindows.push([previousAt, check.atMs]);
-    }
-    previousIndex = check.index;
-    previousAt = check.atMs;
-  }
-  const lastVisible = report.checks.findLast((c) => !c.hidden);
-  // Without a visible check the student sees only the settling time before step 1 (step 0).
-  const lastStep = lastVisible?.index ?? 0;
-  const cutMs = lastVisible?.atMs ?? 0;
-  // Trace rows are recorded after scans: the rows of a segment have times in (previous check, check].
-  const shown = (t: number): boolean => t <= cutMs && !hiddenWindows.some(([from, to]) => t > from && t <= to);
-  // A limit hit after the cut would give its time away ("stopped at 12000 ms: …").
-  const stoppedAfterCut = report.stoppedBy !== null && report.virtualMs > cutMs;
-  const stepShown = (step: number): boolean => step <= lastStep && !hiddenSteps.has(step);
-  const droppedShown = report.eventsDroppedBySteps?.filter((d) => stepShown(d.step));
-  return {
-    ...report,
-    checks: report.checks.map((c) => (c.hidden ? { index: c.index, passed: c.passed, points: c.points, hidden: true as const } : c)),
-    events: report.events.filter((e) => stepShown(e.step)),
-    // A report from before the per-step count has only the total, which is all it can give.
-    ...(droppedShown && { eventsDropped: droppedShown.reduce((sum, d) => sum + d.count, 0), eventsDroppedBySteps: droppedShown }),
-    trace: { ...report.trace, rows: report.trace.rows.filter((row) => shown(row[0]!)) },
-    stoppedBy: stoppedAfterCut ? 'a limit stopped the run during the hidden checks' : report.stoppedBy,
-    virtualMs: Math.min(cutMs, report.virtualMs),
-    scans: scansAt(report, cutMs),
-    redacted: true,
-  };
-}
-
-/**
- * Scans run up to virtual time `ms`. The scan period is constant within a run and every check
- * falls on a scan boundary, so the count is `ms / scanMs`; the period is read from the first trace
- * row, which is recorded after scan 1 (`[scanMs, 1, …]`). No rows means no scan ran.
- */
-function scansAt(report: GradeReport, ms: number): number {
-  if (ms >= report.virtualMs) return report.scans;
-  const first = report.trace.rows[0];
-  if (!first || first[1]! <= 0) return 0;
-  const scanMs = first[0]! / first[1]!;
-  return Math.min(report.scans, Math.round(ms / scanMs));
 }

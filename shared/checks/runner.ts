@@ -12,7 +12,9 @@ import type { DeviceAction } from '../field/devices/model';
 import { checkScriptAgainstPanel } from './againstPanel';
 import { parseCheckScript } from './parseScript';
 import { REPORT_FORMAT, type Actual, type CheckResult, type GradeReport, type ReportEvent } from './report';
-import { stepAction, type CheckScript, type ExpectStep, type Expectation, type Step } from './script';
+import { isCheckStep, stepAction, stepSpanMs, type CheckScript, type CheckStep, type DuringStep, type Expectation, type Step, type UntilStep } from './script';
+import { preheatedState, type OverloadState } from '../field/devices/overload';
+import { describeStep } from './stepWords';
 import { createChangeTrace, type ChangeTrace } from './trace';
 
 export interface CheckLimits {
@@ -36,25 +38,6 @@ export interface RunChecksOptions {
 }
 
 export type RunChecksResult = { ok: true; report: GradeReport } | { ok: false; errors: string[] };
-
-/** Words for the steps list of a check. */
-function describeStep(step: Step): string {
-  const s = step as Record<string, unknown>;
-  switch (stepAction(step)) {
-    case 'set':
-      return `set ${String(s.set)} to ${String(s.to)}`;
-    case 'load':
-      return `load ${String(s.load)} at ${String(s.factor)} × FLA`;
-    case 'wait':
-      return `wait ${String(s.wait)} ms`;
-    case 'expect':
-      return 'check';
-    default: {
-      const action = stepAction(step);
-      return `${action} ${String(s[action])}`;
-    }
-  }
-}
 
 /** "K1 closed, M1 forward, %QX1 true": a label for a check that has none. */
 function defaultLabel(expect: Record<string, Expectation>): string {
@@ -92,38 +75,73 @@ export function runChecks(options: RunChecksOptions): RunChecksResult {
   return { ok: true, report: grade(created.simulation, script, limits, created.warnings) };
 }
 
-function expectSteps(script: CheckScript): { step: ExpectStep; index: number }[] {
-  return script.steps.flatMap((step, i) => ('expect' in step ? [{ step, index: i + 1 }] : []));
+/** The condition a check step tests. */
+function conditionOf(step: CheckStep): Record<string, Expectation> {
+  if ('expect' in step) return step.expect;
+  if ('until' in step) return step.until;
+  return step.never ?? step.always ?? {};
 }
 
-function failedCheck(step: ExpectStep, index: number, atMs: number, note: string, steps: string[]): CheckResult {
-  return {
+/** "never K1 closed, K2 closed during 5000 ms", "until F1 tripped within 4000..10000 ms". */
+function labelOf(step: CheckStep): string {
+  if (step.label !== undefined) return step.label;
+  const words = defaultLabel(conditionOf(step));
+  if ('during' in step) return `${step.never ? 'never' : 'always'} ${words} during ${step.during} ms`;
+  if ('until' in step) return `${words} within ${step.within[0]}..${step.within[1]} ms`;
+  return words;
+}
+
+/** The fields every result of `step` has, whatever its outcome. */
+function resultBase(step: CheckStep, index: number, atMs: number, steps: string[]): Omit<CheckResult, 'passed' | 'actual'> {
+  const base: Omit<CheckResult, 'passed' | 'actual'> = {
     index,
-    label: step.label ?? defaultLabel(step.expect),
-    passed: false,
+    label: labelOf(step),
     points: step.points ?? 1,
     hidden: step.hidden ?? false,
     atMs,
-    expected: step.expect,
-    actual: Object.fromEntries(Object.keys(step.expect).map((k) => [k, null])),
+    expected: conditionOf(step),
     steps,
+  };
+  if ('during' in step) return { ...base, kind: step.never ? 'never' : 'always', spanMs: step.during };
+  if ('until' in step) return { ...base, kind: 'until', spanMs: step.within[1], within: [step.within[0], step.within[1]] };
+  return base;
+}
+
+function failedCheck(step: CheckStep, index: number, atMs: number, note: string, steps: string[]): CheckResult {
+  const condition = conditionOf(step);
+  return {
+    ...resultBase(step, index, atMs, steps),
+    passed: false,
+    actual: Object.fromEntries(Object.keys(condition).map((k) => [k, null])),
+    ...('until' in step && { tookMs: null }),
     note,
   };
 }
 
-function summarise(checks: CheckResult[]): Pick<GradeReport, 'passed' | 'score' | 'maxScore'> {
+/** `ran` false: the program did not compile, so the report fails whatever its checks (even none). */
+function summarise(checks: CheckResult[], ran = true): Pick<GradeReport, 'passed' | 'score' | 'maxScore'> {
   const maxScore = checks.reduce((sum, c) => sum + c.points, 0);
   const score = checks.reduce((sum, c) => sum + (c.passed ? c.points : 0), 0);
-  return { passed: checks.every((c) => c.passed), score, maxScore };
+  return { passed: ran && checks.every((c) => c.passed), score, maxScore };
 }
 
 function unrunnable(script: CheckScript, panel: PanelLayout, error: string, diagnostics: GradeReport['diagnostics']): GradeReport {
-  const checks = expectSteps(script).map(({ step, index }) => failedCheck(step, index, 0, error, []));
+  // Each check still lists the steps that lead to it: a student's view is numbered from them.
+  const checks: CheckResult[] = [];
+  let pending: string[] = [];
+  script.steps.forEach((step, i) => {
+    if (!isCheckStep(step)) pending.push(describeStep(step));
+    else {
+      checks.push(failedCheck(step, i + 1, 0, error, pending));
+      pending = [];
+    }
+  });
   return {
     format: REPORT_FORMAT,
     version: 1,
     panel: panel.id,
-    ...summarise(checks),
+    scanMs: script.scanMs,
+    ...summarise(checks, false),
     checks,
     events: [],
     eventsDropped: 0,
@@ -159,9 +177,10 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
     seenSeq = sim.eventLog.total;
   };
   let stoppedBy: string | null = null;
-  /** Run whole scans for `ms`, unless that would pass a limit. */
-  const advance = (ms: number): boolean => {
-    const scans = Math.ceil(ms / sim.scanMs);
+  const notes: string[] = [];
+  let roundedNoted = false;
+  /** Would `scans` more scans pass a limit? Says so (and stops the run) if they would. */
+  const fits = (scans: number): boolean => {
     if (sim.timeMs + scans * sim.scanMs > limits.maxVirtualMs) {
       stoppedBy = `stopped at ${sim.timeMs} ms: the script would pass the limit of ${limits.maxVirtualMs} ms of virtual time`;
       return false;
@@ -170,58 +189,138 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
       stoppedBy = `stopped at ${sim.timeMs} ms: the script would pass the limit of ${limits.maxScans} scans`;
       return false;
     }
-    for (let n = 0; n < scans; n += 1) {
-      sim.scan();
-      trace.record(sim.timeMs, sim.scanCount);
-    }
     return true;
+  };
+  /** Whole scans covering `ms` (rounded up, noted once in the report). */
+  const scansFor = (ms: number, step: number): number => {
+    const scans = Math.ceil(ms / sim.scanMs);
+    if (scans * sim.scanMs !== ms && !roundedNoted) {
+      roundedNoted = true;
+      notes.push(`step ${step}: ${ms} ms is not a whole number of ${sim.scanMs} ms scans; it runs ${scans * sim.scanMs} ms, and so does every such span`);
+    }
+    return scans;
+  };
+  const scanOnce = (): void => {
+    sim.scan();
+    trace.record(sim.timeMs, sim.scanCount);
+  };
+  /** Run whole scans for `ms`, unless that would pass a limit. */
+  const advance = (ms: number, step: number): boolean => {
+    const scans = scansFor(ms, step);
+    if (!fits(scans)) return false;
+    for (let n = 0; n < scans; n += 1) scanOnce();
+    return true;
+  };
+  const readAll = (condition: Record<string, Expectation>): Record<string, Actual> =>
+    Object.fromEntries(Object.keys(condition).map((k) => [k, readActual(sim, k)]));
+  const holds = (condition: Record<string, Expectation>): boolean => Object.entries(condition).every(([k, v]) => matches(v, readActual(sim, k)));
+
+  /** A `during` check: scan through its span, noting the first scan that breaks it. */
+  const runDuring = (step: DuringStep, number: number, steps: string[]): CheckResult | null => {
+    const scans = scansFor(step.during, number);
+    if (!fits(scans)) return null;
+    const condition = conditionOf(step);
+    const broken = step.never ? () => holds(condition) : () => !holds(condition);
+    let failedAt: CheckResult['failedAt'];
+    let actual: Record<string, Actual> | undefined;
+    for (let n = 0; n < scans; n += 1) {
+      scanOnce();
+      if (failedAt === undefined && broken()) {
+        failedAt = { scan: sim.scanCount, atMs: sim.timeMs };
+        actual = readAll(condition);
+      }
+    }
+    return {
+      ...resultBase(step, number, sim.timeMs, steps),
+      passed: failedAt === undefined,
+      actual: actual ?? readAll(condition),
+      ...(failedAt && { failedAt }),
+    };
+  };
+
+  /** An `until` check: look before the first scan and after each one; the step lasts its whole window. */
+  const runUntil = (step: UntilStep, number: number, steps: string[]): CheckResult | null => {
+    const scans = scansFor(step.within[1], number);
+    if (!fits(scans)) return null;
+    const start = sim.timeMs;
+    const condition = conditionOf(step);
+    let tookMs: number | null = holds(condition) ? 0 : null;
+    let actual = tookMs === null ? null : readAll(condition);
+    for (let n = 0; n < scans; n += 1) {
+      scanOnce();
+      if (tookMs === null && holds(condition)) {
+        tookMs = sim.timeMs - start;
+        actual = readAll(condition);
+      }
+    }
+    const [earliest, latest] = step.within;
+    return {
+      ...resultBase(step, number, sim.timeMs, steps),
+      passed: tookMs !== null && tookMs >= earliest && tookMs <= latest,
+      actual: actual ?? readAll(condition),
+      tookMs,
+    };
+  };
+
+  const act = (step: Step, number: number): void => {
+    const s = step as Record<string, unknown>;
+    const action = stepAction(step);
+    if (action === 'force') {
+      const forced = sim.runtime.force(String(s.force), s.to as boolean);
+      if (!forced.ok) notes.push(`step ${number}: force ${String(s.force)} did nothing: ${forced.error}`);
+    } else if (action === 'unforce') {
+      if (s.unforce === 'all') sim.runtime.clearForces();
+      else sim.runtime.unforce(String(s.unforce));
+    } else if (action === 'preheat') {
+      // Through the simulation's own snapshot, so the contacts and words follow the new state.
+      const snapshot = sim.fieldSnapshot();
+      const i = snapshot.deviceIds.indexOf(String(s.preheat));
+      const states = [...snapshot.states];
+      states[i] = preheatedState(states[i] as OverloadState, s.factor as number);
+      sim.restoreField({ ...snapshot, states });
+    } else {
+      // Validated against the panel already; a refusal (an overload still too hot to reset) is logged as an event.
+      sim.act(String(s[action]), action as DeviceAction, { to: s.to as string | undefined, factor: s.factor as number | undefined });
+    }
   };
 
   const checks: CheckResult[] = [];
   let pending: string[] = [];
-  if (advance(script.settleMs)) collect(0);
+  if (advance(script.settleMs, 0)) collect(0);
   script.steps.forEach((step, i) => {
     const number = i + 1;
     const action = stepAction(step);
     if (stoppedBy !== null) {
-      if (action === 'expect') checks.push(failedCheck(step as ExpectStep, number, sim.timeMs, `not reached: ${stoppedBy}`, pending));
+      // Nothing runs any more, but each check still lists the steps that lead to it.
+      if (!isCheckStep(step)) pending.push(describeStep(step));
+      else {
+        checks.push(failedCheck(step, number, sim.timeMs, `not reached: ${stoppedBy}`, pending));
+        pending = [];
+      }
       return;
     }
-    if (action === 'expect') {
-      const e = step as ExpectStep;
-      const actual: Record<string, Actual> = {};
-      let passed = true;
-      for (const [key, expected] of Object.entries(e.expect)) {
-        actual[key] = readActual(sim, key);
-        if (!matches(expected, actual[key])) passed = false;
-      }
-      checks.push({
-        index: number,
-        label: e.label ?? defaultLabel(e.expect),
-        passed,
-        points: e.points ?? 1,
-        hidden: e.hidden ?? false,
-        atMs: sim.timeMs,
-        expected: e.expect,
-        actual,
-        steps: pending,
-      });
+    if (action === 'expect' && 'expect' in step) {
+      checks.push({ ...resultBase(step, number, sim.timeMs, pending), passed: holds(step.expect), actual: readAll(step.expect) });
       pending = [];
       return;
     }
-    pending.push(describeStep(step));
-    if (action === 'wait') advance((step as { wait: number }).wait);
-    else {
-      const s = step as Record<string, unknown>;
-      // Validated against the panel already; a refusal (an overload still too hot to reset) is logged as an event.
-      sim.act(String(s[action]), action as DeviceAction, { to: s.to as string | undefined, factor: s.factor as number | undefined });
+    if (isCheckStep(step)) {
+      const result = 'during' in step ? runDuring(step, number, pending) : runUntil(step as UntilStep, number, pending);
+      checks.push(result ?? failedCheck(step, number, sim.timeMs, `not reached: ${stoppedBy}`, pending));
+      pending = [];
+      collect(number);
+      return;
     }
+    pending.push(describeStep(step));
+    if (action === 'wait') advance(stepSpanMs(step), number);
+    else act(step, number);
     collect(number);
   });
   return {
     format: REPORT_FORMAT,
     version: 1,
     panel: sim.panel.id,
+    scanMs: sim.scanMs,
     ...summarise(checks),
     checks,
     events,
@@ -230,6 +329,7 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
     trace: trace.data(),
     diagnostics: warnings,
     stoppedBy,
+    ...(notes.length > 0 && { notes }),
     virtualMs: sim.timeMs,
     scans: sim.scanCount,
   };

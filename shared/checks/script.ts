@@ -1,5 +1,5 @@
 /**
- * The check-script format (DESIGN.md "Check scripts"): JSON that presses buttons, waits in virtual
+ * The check-script format (docs/check-scripts.md): JSON that presses buttons, waits in virtual
  * time and asserts what the panel and the program show. The zod schemas are the contract and give
  * the TypeScript types; `parseCheckScript` reads a script step by step so that every error names
  * the step, the field and what was expected (`step 4: "wait" needs a whole number of ms …`).
@@ -8,14 +8,50 @@
 import { z } from 'zod';
 
 /** Each action a step can take; a step has exactly one of these keys. */
-export type StepAction = 'press' | 'release' | 'set' | 'trip' | 'reset' | 'load' | 'block' | 'unblock' | 'wait' | 'expect';
+export type StepAction =
+  | 'press'
+  | 'release'
+  | 'set'
+  | 'trip'
+  | 'reset'
+  | 'load'
+  | 'block'
+  | 'unblock'
+  | 'wait'
+  | 'expect'
+  | 'during'
+  | 'until'
+  | 'force'
+  | 'unforce'
+  | 'preheat';
 
-export const STEP_ACTIONS: readonly StepAction[] = ['press', 'release', 'set', 'trip', 'reset', 'load', 'block', 'unblock', 'wait', 'expect'];
+export const STEP_ACTIONS: readonly StepAction[] = [
+  'press',
+  'release',
+  'set',
+  'trip',
+  'reset',
+  'load',
+  'block',
+  'unblock',
+  'wait',
+  'expect',
+  'during',
+  'until',
+  'force',
+  'unforce',
+  'preheat',
+];
+
+/** The steps that are checks (they earn points); every script needs at least one. */
+export const CHECK_ACTIONS: readonly StepAction[] = ['expect', 'during', 'until'];
 
 /** The longest single wait, in ms of virtual time (10 min). */
 export const MAX_WAIT_MS = 600_000;
 /** The largest load factor, as a multiple of FLA. */
 export const MAX_LOAD_FACTOR = 20;
+/** The largest preheat factor: the "hot" state is a steady run at up to the setting itself. */
+export const MAX_PREHEAT_FACTOR = 1;
 
 /** An expected value range for a number such as `T1.ET` (ms) or `C1.CV`: both ends included. */
 export const RangeSchema = z.strictObject({ min: z.number().optional(), max: z.number().optional() });
@@ -44,6 +80,46 @@ export const ExpectStepSchema = z.strictObject({
   hidden: z.boolean().optional(),
 });
 
+/** What every check step may carry besides its condition. */
+const checkFields = {
+  label: z.string().max(200).optional(),
+  points: z.number().int().min(0).max(100).optional(),
+  hidden: z.boolean().optional(),
+};
+const conditionSchema = z.record(z.string().min(1), ExpectationSchema);
+
+/**
+ * A check over an interval: `never` fails if any scan of the interval matches all of its
+ * entries; `always` fails if any scan breaks one. Exactly one of the two.
+ */
+export const DuringStepSchema = z
+  .strictObject({
+    during: z.number().int().min(1).max(MAX_WAIT_MS),
+    never: conditionSchema.optional(),
+    always: conditionSchema.optional(),
+    ...checkFields,
+  })
+  .refine((s) => (s.never === undefined) !== (s.always === undefined), { message: 'a "during" step has exactly one of "never" and "always"' });
+
+/**
+ * Waits for a condition and passes if it first holds between `within[0]` and `within[1]` ms from
+ * the step's start. The step always lasts until `within[1]`, so the steps after it start at a time
+ * that does not depend on the program (and a hidden one reads as a wait in a student's script).
+ */
+export const UntilStepSchema = z
+  .strictObject({
+    until: conditionSchema,
+    within: z.tuple([z.number().int().min(0).max(MAX_WAIT_MS), z.number().int().min(0).max(MAX_WAIT_MS)]),
+    ...checkFields,
+  })
+  .refine((s) => s.within[0] <= s.within[1], { message: '"within" is [earliest, latest] with earliest ≤ latest', path: ['within'] });
+
+/** Force a bit (an address or a tag) as the runtime does; `unforce` one, or "all". */
+export const ForceStepSchema = z.strictObject({ force: z.string().min(1), to: z.boolean() });
+export const UnforceStepSchema = z.strictObject({ unforce: z.string().min(1) });
+/** Start an overload relay "hot": its image at the steady state of running at `factor` × its setting. */
+export const PreheatStepSchema = z.strictObject({ preheat: deviceId, factor: z.number().min(0).max(MAX_PREHEAT_FACTOR) });
+
 export const StepSchema = z.union([
   PressStepSchema,
   ReleaseStepSchema,
@@ -55,6 +131,11 @@ export const StepSchema = z.union([
   UnblockStepSchema,
   WaitStepSchema,
   ExpectStepSchema,
+  DuringStepSchema,
+  UntilStepSchema,
+  ForceStepSchema,
+  UnforceStepSchema,
+  PreheatStepSchema,
 ]);
 export type Step = z.infer<typeof StepSchema>;
 
@@ -70,8 +151,30 @@ export const STEP_SCHEMAS = {
   unblock: UnblockStepSchema,
   wait: WaitStepSchema,
   expect: ExpectStepSchema,
+  during: DuringStepSchema,
+  until: UntilStepSchema,
+  force: ForceStepSchema,
+  unforce: UnforceStepSchema,
+  preheat: PreheatStepSchema,
 } as const satisfies Record<StepAction, z.ZodType<Step>>;
 export type ExpectStep = z.infer<typeof ExpectStepSchema>;
+export type DuringStep = z.infer<typeof DuringStepSchema>;
+export type UntilStep = z.infer<typeof UntilStepSchema>;
+/** A step that is a check: it has a label, points and may be hidden. */
+export type CheckStep = ExpectStep | DuringStep | UntilStep;
+
+/** Is the step a check (`expect`, `during` or `until`)? */
+export function isCheckStep(step: Step): step is CheckStep {
+  return 'expect' in step || 'during' in step || 'until' in step;
+}
+
+/** The virtual time a step spans by itself, in ms as written: a wait's, a during's, an until's window end. */
+export function stepSpanMs(step: Step): number {
+  if ('wait' in step) return step.wait;
+  if ('during' in step) return step.during;
+  if ('until' in step) return step.within[1];
+  return 0;
+}
 
 export const CheckScriptSchema = z.strictObject({
   /** The panel layout id the script is written for. */

@@ -1,5 +1,5 @@
 /**
- * `createSimulation`: a compiled program running against a field panel, scan by scan, as DESIGN.md
+ * `createSimulation`: a compiled program running against a field panel, scan by scan, as docs/names-and-rules.md
  * describes the scan cycle:
  *  1. each input bit = its device contact AND the input common (every contact in `inputCommon`);
  *  2. the engine solves the rungs;

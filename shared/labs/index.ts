@@ -16,6 +16,7 @@ export function standardLab(id: string): Lab | undefined {
 }
 
 export { BOX_COUNTER, FORWARD_REVERSE, IO_CHECKOUT, JOG_RUN, THREE_WIRE, TWO_WIRE, WARNING_HORN };
-export { SAFETY_CAUTION, type Lab } from './lab';
+export type { Lab } from './lab';
+export { SAFETY_CAUTION } from './safetyCaution';
 export { CONVEYOR_TAGS, conveyorTags } from './conveyorTags';
 export * as build from './build';

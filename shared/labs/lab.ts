@@ -5,6 +5,7 @@
  */
 import type { Program } from '../ladder/schema';
 import type { CheckScriptInput } from '../checks/script';
+import { SAFETY_CAUTION } from './safetyCaution';
 
 export interface Lab {
   /** Stable id, e.g. `three-wire`. */
@@ -22,16 +23,6 @@ export interface Lab {
   script: CheckScriptInput;
   solution: Program;
 }
-
-/**
- * The caution every lab shows (DESIGN.md "Safety cautions"): one plain line and the standards.
- */
-export const SAFETY_CAUTION = [
-  '> **Safety.** A simulator does not replace lockout/tagout. On a real panel, de-energise and lock out / tag out',
-  '> (OSHA 29 CFR 1910.147, CSA Z460), work to NFPA 70E / CSA Z462, keep the emergency stop hardwired and never rely on',
-  '> a PLC program for it (NFPA 79, IEC 60204-1, ISO 13850), clear and stop a controller\'s program before powering it',
-  '> on a panel, and defer to local codes and licensed practice.',
-].join('\n');
 
 /** Join the paragraphs of a brief and append the caution. */
 export function brief(...paragraphs: string[]): string {

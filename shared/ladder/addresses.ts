@@ -23,7 +23,7 @@ export interface AddressSpace {
   memory: number;
 }
 
-/** The default `reversing-conveyor` panel (DESIGN.md): 8 inputs, 6 outputs, 64 memory bits. */
+/** The default `reversing-conveyor` panel (docs/names-and-rules.md): 8 inputs, 6 outputs, 64 memory bits. */
 export const DEFAULT_ADDRESS_SPACE: AddressSpace = Object.freeze({ inputs: 8, outputs: 6, memory: 64 });
 
 const AREAS = {

@@ -11,6 +11,7 @@ export * from './operands';
 export * from './diagnostics';
 export * from './ids';
 export * from './restore';
+export * from './bounds';
 export * from './walk';
 export * from './shape';
 export * from './validate';

@@ -4,6 +4,7 @@
  * with a message naming the place (`rungs[2].network.items[0]: unknown element kind "lamp"`) and
  * checks that ids are unique. It does not rearrange networks: what was saved is what loads.
  */
+import { checkDocumentBounds } from './bounds';
 import { ID_PREFIX, freshId } from './ids';
 import { fail, ok, type Result } from './result';
 import {
@@ -35,8 +36,17 @@ const MAX_REPORTED = 5;
 
 type PathKey = PropertyKey;
 
-/** `rungs[2].network.items[0]`; the empty path is "the document". */
+/** Paths longer than this are shown with their middle left out (a deep branch is 60 keys long). */
+const LONGEST_SHOWN_PATH = 12;
+
+/**
+ * `rungs[2].network.items[0]`; the empty path is "the document". A path longer than
+ * `LONGEST_SHOWN_PATH` keys keeps its start and end around an ellipsis.
+ */
 export function formatIssuePath(path: readonly PathKey[]): string {
+  if (path.length > LONGEST_SHOWN_PATH) {
+    return `${formatIssuePath(path.slice(0, 7))}…${formatIssuePath(path.slice(-4))}`;
+  }
   let text = '';
   for (const key of path) {
     if (typeof key === 'number') text += `[${key}]`;
@@ -162,6 +172,10 @@ export function parseProgram(json: unknown): Result<Program> {
   if (json === null || typeof json !== 'object' || Array.isArray(json)) {
     return fail(`the document is not a Rungwright program: expected a JSON object, got ${describeValue(json)}`);
   }
+  // Before the schema, which recurses once per nesting level: a document nested past the limit
+  // would overflow the call stack there instead of being refused.
+  const outOfBounds = checkDocumentBounds(json);
+  if (outOfBounds) return fail(`${formatIssuePath(outOfBounds.path)}: ${outOfBounds.message}`);
   const parsed = ProgramSchema.safeParse(json);
   if (!parsed.success) return fail(joinProblems(describeIssues(parsed.error.issues, json, [])));
   const duplicate = findDuplicateId(parsed.data);

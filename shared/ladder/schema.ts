@@ -125,6 +125,24 @@ export const TagSchema = z.object({
 });
 export type Tag = z.infer<typeof TagSchema>;
 
+/**
+ * How big a program may be, so that every tool that walks it (validation, layout, compile, export,
+ * the zod schema itself, which recurses once per level) does bounded work. Checked by
+ * `checkDocumentBounds` (`bounds.ts`) on the raw JSON before the schema runs, and by the editor
+ * after every edit. A lab program uses a few levels and tens of elements per rung.
+ */
+export const DOCUMENT_LIMITS = {
+  /** Series and parallel branches nested in one another; the rung's root series is level 1. */
+  depth: 32,
+  /** Network nodes (elements, series and parallel branches) in one rung. */
+  nodesPerRung: 500,
+  /**
+   * Network nodes in the whole program. A 5,000-rung program of 15,000 nodes took 1.1–1.5 s of CPU
+   * to export as PLCopen XML (tests/perf/health.bench.ts), against the worker's 5 s limit.
+   */
+  nodesPerProgram: 20_000,
+} as const;
+
 export const ProgramSchema = z.object({
   format: z.literal(PROGRAM_FORMAT),
   version: z.literal(PROGRAM_VERSION),

@@ -1,11 +1,19 @@
 /**
  * The typed calls of the class screens: create a class, a new join code, the roster (students,
- * pending invitations, CSV upload) and removing a student. Each answer is parsed with the shared
+ * pending invitations, CSV upload, inviting one student) and removing a student. Each answer is parsed with the shared
  * schema of its route (`shared/api/classes.ts`); paths live in `CLASS_ENDPOINTS` only. Built on the
  * same `Http` as the rest of the client, so a 401 sends the user to sign-in the same way.
  */
 import { z } from 'zod';
-import { ClassSummarySchema, InvitationListSchema, RosterReportSchema, StudentListSchema, type CreateClassRequest } from '@shared/api/classes';
+import {
+  ClassInvitationSentSchema,
+  ClassSummarySchema,
+  InvitationListSchema,
+  RosterReportSchema,
+  StudentListSchema,
+  type CreateClassRequest,
+  type InviteStudentRequest,
+} from '@shared/api/classes';
 import { createHttp, type Http } from './http';
 import { SESSION_EXPIRED_EVENT } from './instance';
 
@@ -23,6 +31,7 @@ export const CLASS_ENDPOINTS = {
 
 const ClassAnswer = z.object({ class: ClassSummarySchema });
 const RosterAnswer = z.object({ report: RosterReportSchema });
+const InvitationAnswer = z.object({ invitation: ClassInvitationSentSchema });
 
 export function createClassesApi(http: Http) {
   return {
@@ -33,6 +42,9 @@ export function createClassesApi(http: Http) {
     removeStudent: (classId: string, userId: string) => http.raw(CLASS_ENDPOINTS.student(classId, userId), { method: 'DELETE' }).then(() => undefined),
     /** Every invitation of the class, used and expired ones too (`pendingInvitations` keeps the open ones). */
     listInvitations: (classId: string) => http.json(CLASS_ENDPOINTS.invitations(classId), InvitationListSchema).then((r) => r.invitations),
+    /** Invites one student; an open invitation to the same address is replaced (this sends it again). */
+    inviteStudent: (classId: string, body: InviteStudentRequest) =>
+      http.json(CLASS_ENDPOINTS.invitations(classId), InvitationAnswer, { method: 'POST', body }).then((r) => r.invitation),
     uploadRoster: (classId: string, file: File) => {
       const form = new FormData();
       form.append('file', file);

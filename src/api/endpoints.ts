@@ -7,7 +7,6 @@ const enc = encodeURIComponent;
 export const ENDPOINTS = {
   me: '/api/me',
   signIn: '/api/auth/sign-in',
-  signUp: '/api/auth/sign-up',
   signOut: '/api/auth/sign-out',
   passwordReset: '/api/auth/password-reset',
   passwordResetConfirm: '/api/auth/password-reset/confirm',

@@ -1,5 +1,5 @@
 /**
- * The palette: every element a student can place, with its name (DESIGN.md "Names"), the IEC
+ * The palette: every element a student can place, with its name (docs/names-and-rules.md, "Names"), the IEC
  * 61131-3 graphic symbol it is drawn as, and the key that inserts it at the selected drop slot.
  */
 import { BLOCK_SPECS, BLOCK_TYPES } from '@shared/ladder/blocks';

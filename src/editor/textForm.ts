@@ -1,5 +1,5 @@
 /**
- * The one-line text form of each rung shown under it on the canvas (DESIGN.md: "every rung also
+ * The one-line text form of each rung shown under it on the canvas (docs/names-and-rules.md: "every rung also
  * has a one-line text form, e.g. `S1 AND (S2 OR K1) -> K1`"), from `shared/ladder/text.ts`.
  */
 import type { Program } from '@shared/ladder/schema';

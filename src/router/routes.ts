@@ -20,6 +20,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { public: true, guestOnly: true, title: 'Join a class' },
   },
   {
+    path: '/join/finish',
+    name: 'join-finish',
+    component: () => import('../views/JoinFinishView.vue'),
+    meta: { public: true, title: 'Finish creating your account' },
+  },
+  {
     path: '/reset-password',
     name: 'reset-password',
     component: () => import('../views/ResetPasswordView.vue'),
@@ -98,6 +104,12 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('../views/SubmissionReviewView.vue'),
     props: true,
     meta: { roles: ['instructor', 'admin'], title: 'Submission' },
+  },
+  {
+    path: '/account',
+    name: 'account',
+    component: () => import('../views/AccountView.vue'),
+    meta: { title: 'Your account' },
   },
   {
     path: '/admin',

@@ -1,17 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SessionResponseSchema } from '@shared/api';
 import { createTestApp, type TestApp } from './helpers/testApp';
-import { addUser, call, PASSWORD, sessionCookieOf, signIn } from './helpers/fixtures';
-import { insertClass } from '../../server/db/classes';
+import { addUser, call, PASSWORD, signIn } from './helpers/fixtures';
 
 let t: TestApp;
-let classId: string;
 beforeAll(async () => {
   t = await createTestApp();
-  const teacher = await addUser(t, 'teacher@test.example', 'instructor');
   await addUser(t, 'Sam.Student@Test.example', 'student');
-  const cls = await insertClass(t.database.orm, { name: 'MC1', term: 'Fall', instructorId: teacher.id, joinCode: 'JOIN-1234', now: t.clock.now() });
-  classId = cls!.id;
 });
 afterAll(() => t.close());
 
@@ -73,36 +68,6 @@ describe('GET /api/me and sign-out', () => {
     const res = await call(t, 'post', '/api/auth/sign-out').send({});
     expect(res.status).toBe(204);
     expect(String(res.headers['set-cookie'])).toMatch(/rw_session=;.*Expires=Thu, 01 Jan 1970/);
-  });
-});
-
-describe('sign-up with a join code', () => {
-  it('creates a student account, enrols it in the class and signs it in', async () => {
-    const res = await call(t, 'post', '/api/auth/sign-up').send({ email: 'new.one@test.example', name: 'New One', password: 'long-enough-pw', joinCode: ' join-1234 ' });
-    expect(res.status).toBe(201);
-    expect(res.body.user).toMatchObject({ role: 'student', name: 'New One' });
-    const cookie = sessionCookieOf(res.headers['set-cookie']);
-    const classes = await call(t, 'get', '/api/classes', cookie);
-    expect(classes.body.classes.map((c: { id: string }) => c.id)).toEqual([classId]);
-    expect(classes.body.classes[0].joinCode).toBeNull();
-  });
-
-  it('refuses an unknown join code, naming the field', async () => {
-    const res = await call(t, 'post', '/api/auth/sign-up').send({ email: 'x@test.example', name: 'X', password: 'long-enough-pw', joinCode: 'ZZZZ-ZZZZ' });
-    expect(res.status).toBe(400);
-    expect(res.body.error.fields.joinCode).toMatch(/no class has this join code/);
-  });
-
-  it('refuses an e-mail that exists in another letter case with 409', async () => {
-    const res = await call(t, 'post', '/api/auth/sign-up').send({ email: 'SAM.student@test.EXAMPLE', name: 'Sam', password: 'long-enough-pw', joinCode: 'JOIN-1234' });
-    expect(res.status).toBe(409);
-    expect(res.body.error.fields).toHaveProperty('email');
-  });
-
-  it('refuses a short password, naming the field', async () => {
-    const res = await call(t, 'post', '/api/auth/sign-up').send({ email: 'y@test.example', name: 'Y', password: 'short', joinCode: 'JOIN-1234' });
-    expect(res.status).toBe(400);
-    expect(res.body.error.fields.password).toMatch(/at least 10/);
   });
 });
 

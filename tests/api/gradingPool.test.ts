@@ -8,6 +8,7 @@ import { FORWARD_REVERSE } from '@shared/labs';
 import { builtInPanel } from '@shared/field/panels';
 import { createGradingPool } from '../../server/grading/pool';
 import { createTestApp } from './helpers/testApp';
+import { documentWithRungs } from './helpers/fixtures';
 
 const pool = createGradingPool({ size: 1, timeoutMs: 1500, allowSpinForTests: true });
 afterAll(() => pool.close());
@@ -32,6 +33,24 @@ describe('grading pool', () => {
     const outcome = await plain.grade(job, { spin: true });
     expect(outcome.report?.passed).toBe(true);
     await plain.close();
+  }, 30_000);
+});
+
+describe('exports and imports in the pool', () => {
+  it('exports off the main thread, and stops an export past the wall-clock limit with a clear refusal', async () => {
+    const quick = createGradingPool({ size: 1, timeoutMs: 200 });
+    const exportOf = (rungs: number) =>
+      quick.exportProgram({ documentJson: JSON.stringify(documentWithRungs(rungs)), title: 'Plant', version: 1, format: 'plcopen', now: '2026-09-01T08:00:00.000Z' });
+    await quick.warm();
+    // 5,000 rungs take over a second of CPU (tests/perf/health.bench.ts), far past 200 ms.
+    const stopped = await exportOf(5000);
+    expect(stopped).toEqual({ ok: false, failure: { code: 'processing_limit', message: 'Exporting stopped after 0.2 s of wall-clock time: the program is too large to export.' } });
+    const small = await exportOf(2);
+    expect(small.ok && small.value.fileName).toBe('plant-v1.xml');
+    const imported = await quick.importProgram({ xml: small.ok ? new TextDecoder().decode(small.value.body) : '', fileName: 'plant.xml' });
+    expect(imported.ok && imported.value.program.rungs).toHaveLength(2);
+    await quick.close();
+    expect((await exportOf(2)).ok).toBe(false);
   }, 30_000);
 });
 

@@ -58,7 +58,7 @@ const expectNoSecrets = (raw: string) => {
 
 describe('authoring', () => {
   it('names the step and field of a bad script and the field of a bad panel', async () => {
-    const bad = await call(t, 'post', `/api/classes/${cast.classId}/labs`, cast.instructor.cookie).send({ title: 'Bad', script: { steps: [{ wait: 10 }, { press: 'Z9' }] } });
+    const bad = await call(t, 'post', `/api/classes/${cast.classId}/labs`, cast.instructor.cookie).send({ title: 'Bad', script: { steps: [{ wait: 10 }, { press: 'Z9' }, { expect: { P2: 'lit' }, label: 'red lamp at rest' }] } });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields['script.steps.1']).toMatch(/step 2/);
     const badPanel = await call(t, 'post', `/api/classes/${cast.classId}/labs`, cast.instructor.cookie).send({ title: 'Bad', script: SCRIPT, panel: { kind: 'custom', layout: { format: 'nope' } } });
@@ -117,7 +117,8 @@ describe('the student side', () => {
     expect(res.status).toBe(200);
     expectNoSecrets(res.text);
     expect(res.body.script.steps.filter((s: object) => 'expect' in s).map((s: { label: string }) => s.label)).toEqual(['red lamp on at rest', 'runs forward, sealed in']);
-    expect(res.body.stepMap).toEqual([1, 2, 3, 4, 5, 6]);
+    // Steps 1-6, up to the last visible check; the hidden steps after it stay on the server.
+    expect(res.body.script.steps).toEqual(SCRIPT.steps.slice(0, 6));
     expect(res.body.withheld).toEqual({ hiddenChecks: 2, hiddenPoints: 7 });
   });
 
@@ -129,7 +130,7 @@ describe('the student side', () => {
     expectNoSecrets(res.text);
     const hidden = res.body.submission.report.checks.filter((c: { hidden: boolean }) => c.hidden);
     expect(hidden).toHaveLength(2);
-    for (const h of hidden) expect(Object.keys(h).sort()).toEqual(['hidden', 'index', 'passed', 'points']);
+    for (const h of hidden) expect(Object.keys(h).sort()).toEqual(['hidden', 'passed', 'points']);
     const mine = await call(t, 'get', `/api/labs/${labId}/submissions/mine`, cast.studentA.cookie);
     expect(mine.body.submissions).toHaveLength(1);
     expectNoSecrets(mine.text);

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ProgramDetailSchema, VersionListSchema } from '@shared/api';
 import { createTestApp, type TestApp } from './helpers/testApp';
 import { call, createCast, documentWithRungs, type Cast } from './helpers/fixtures';
+import { labOf, programOf } from './helpers/classroom';
 
 let t: TestApp;
 let cast: Cast;
@@ -41,10 +42,13 @@ describe('creating and loading programs', () => {
     expect(res.body.programs.every((p: { ownerId: string }) => p.ownerId === cast.studentA.user.id)).toBe(true);
   });
 
-  it('lets the class instructor list a student\'s programs with ?ownerId', async () => {
+  it('lets the class instructor list a student\'s programs in the class\'s labs with ?ownerId, and nothing outside labs', async () => {
+    const lab = await labOf(t, cast.classId, cast.instructor.user.id, 'Seal-in lab');
+    const inLab = await programOf(t, cast.studentA, 'Seal-in try', lab.id);
     const res = await call(t, 'get', `/api/programs?ownerId=${cast.studentA.user.id}`, cast.instructor.cookie);
     expect(res.status).toBe(200);
-    expect(res.body.programs.length).toBeGreaterThan(0);
+    expect(res.body.programs.map((p: { id: string }) => p.id)).toEqual([inLab]);
+    expect(res.body.programs[0].labTitle).toBe('Seal-in lab');
   });
 
   it('refuses a missing title naming the field (400)', async () => {

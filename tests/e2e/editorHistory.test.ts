@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import type { BrowserContext, Page } from 'playwright-core';
 import type { Program } from '@shared/ladder/schema';
+import { layoutProgram } from '@/editor/layout';
 import { DEMO_ADMIN, DEMO_CLASS, DEMO_STUDENTS, type DemoAccount } from '../../server/db/demoAccounts';
 import { SHOTS, useBrowserSuite } from './support/browserSuite';
 
@@ -193,12 +194,14 @@ describe('workbench paths in a real browser', () => {
     expect(await canvas.getAttribute('data-zoom')).toBe('1.2');
     await page.getByRole('button', { name: /^Zoom out/ }).click();
     await page.getByRole('button', { name: /^Zoom out/ }).click();
-    expect(await canvas.getAttribute('data-zoom')).toBe('0.83');
+    // Zoom 1 is the smallest: canvas text stays at 11 px or more, and a wide program scrolls instead.
+    expect(await canvas.getAttribute('data-zoom')).toBe('1');
+    // Fit makes the rungs as wide as the canvas (rounded down to hundredths), between 1 and 1.5.
+    await page.getByRole('button', { name: /^Zoom in/ }).click();
     await page.getByRole('button', { name: /^Fit to view/ }).click();
-    const fitted = Number(await canvas.getAttribute('data-zoom'));
-    expect(fitted).toBeGreaterThan(0.4);
-    expect(fitted).toBeLessThanOrEqual(1.5);
-    expect(fitted).not.toBe(0.83);
+    const columnWidth = await canvas.evaluate((el) => el.clientWidth);
+    const drawingWidth = layoutProgram(startStop('')).width;
+    expect(Number(await canvas.getAttribute('data-zoom'))).toBe(Math.min(1.5, Math.max(1, Math.floor((columnWidth / drawingWidth) * 100) / 100)));
     await page.screenshot({ path: `${SHOTS}/workbench-fitted.png` });
 
     const download = page.waitForEvent('download');
@@ -263,20 +266,33 @@ describe('workbench paths in a real browser', () => {
 describe('accounts in a real browser', () => {
   const newStudent = { email: 'sam.okafor@larch-hollow.example', name: 'Sam Okafor (demo student)', password: 'demo-first-password' };
 
-  it('signs up with the demo join code, then resets the password through the local mailbox', async () => {
+  it('signs up with the demo join code, finishes from the mailed link, then resets the password through the local mailbox', async () => {
     const context = await suite.browser.newContext({ viewport: { width: 1280, height: 860 } });
     const page = await context.newPage();
     await page.goto(`${suite.server.url}/join`, { waitUntil: 'networkidle' });
     await page.getByLabel('Join code').fill(DEMO_CLASS.joinCode);
     await page.getByLabel('Your name').fill(newStudent.name);
     await page.getByLabel('E-mail').fill(newStudent.email);
+    await page.getByRole('button', { name: 'E-mail me the link' }).click();
+    await page.getByTestId('sign-up-sent').waitFor();
+
+    // The mailbox, read as the demo admin: the mail to the new student with this subject, once it has arrived.
+    const admin = await signedInContext(DEMO_ADMIN);
+    const mailAbout = async (subject: string) => {
+      const mail = await admin.page.evaluate(async () => ((await (await fetch('/api/dev/mail')).json()) as { mail: { to: string; subject: string; text: string }[] }).mail);
+      return mail.find((m) => m.to.includes(newStudent.email) && m.subject === subject);
+    };
+    await expect.poll(() => mailAbout('Finish creating your Rungwright account'), { timeout: 10_000 }).toBeTruthy();
+    const finish = (await mailAbout('Finish creating your Rungwright account'))!.text.match(/https?:\/\/\S+\/join\/finish#token=[\w-]+/)?.[0];
+    expect(finish).toBeDefined();
+    await page.goto(finish!, { waitUntil: 'networkidle' });
     await page.getByLabel('Password').fill('short');
     await page.getByRole('button', { name: 'Create my account' }).click();
     await page.getByText(/at least 10/).first().waitFor();
     await page.screenshot({ path: `${SHOTS}/join-class-error.png` });
     await page.getByLabel('Password').fill(newStudent.password);
     await page.getByRole('button', { name: 'Create my account' }).click();
-    await page.waitForURL(/\/programs$/);
+    await page.waitForURL(/\/classes\/[^/]+\/labs$/);
     await context.clearCookies();
 
     await page.goto(`${suite.server.url}/reset-password`, { waitUntil: 'networkidle' });
@@ -284,11 +300,9 @@ describe('accounts in a real browser', () => {
     await page.getByRole('button', { name: 'Send me a reset link' }).click();
     await page.locator('.n-alert').first().waitFor();
 
-    const admin = await signedInContext(DEMO_ADMIN);
-    const mail = await admin.page.evaluate(async () => ((await (await fetch('/api/dev/mail')).json()) as { mail: { to: string; subject: string; text: string }[] }).mail);
+    await expect.poll(() => mailAbout('Reset your Rungwright password'), { timeout: 10_000 }).toBeTruthy();
+    const reset = await mailAbout('Reset your Rungwright password');
     await admin.context.close();
-    const reset = mail.find((m) => m.to.includes(newStudent.email));
-    expect(reset).toBeDefined();
     const link = reset!.text.match(/https?:\/\/\S+\/reset-password#token=[\w-]+/)?.[0];
     expect(link).toBeDefined();
 

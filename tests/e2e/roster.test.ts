@@ -1,12 +1,14 @@
 /**
  * Rosters and invitations in a real browser: the demo instructor uploads a roster to the demo
  * class, the invited person accepts from the e-mailed link and lands in the class, the instructor
- * removes them again; the admin invites an instructor. Mail is read from the local fake mailbox.
+ * removes them again; the admin invites an instructor; an existing account is invited by hand and
+ * joins only signed in as itself, and an admin's address is invited like any other and refused at
+ * acceptance. Mail is read from the local fake mailbox.
  */
 import { describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import type { SentMailEntry } from '@shared/api/mail';
-import { DEMO_ADMIN, DEMO_CLASS, DEMO_INSTRUCTOR } from '../../server/db/demoAccounts';
+import { DEMO_ADMIN, DEMO_CLASS, DEMO_INSTRUCTOR, DEMO_STUDENTS, type DemoAccount } from '../../server/db/demoAccounts';
 import { SHOTS, useBrowserSuite } from './support/browserSuite';
 import { signInThroughPage } from './support/signIn';
 
@@ -84,12 +86,11 @@ describe('class rosters and invitations in a real browser', () => {
     await expect.poll(() => teacher.getByTestId('roster-students').innerText()).toMatch(/Ana Reyes/);
     expect(await teacher.getByTestId('roster-students').innerText()).not.toMatch(/Lee Moss/);
 
-    // ── Upload: one new address, one bad row; the report shows four groups. ──
+    // ── Upload: one new address, one bad row; the report shows its three groups. ──
     await teacher.setInputFiles('input[aria-label="Roster CSV file"]', { name: 'motor-control-roster.csv', mimeType: 'text/csv', buffer: Buffer.from(ROSTER_CSV) });
     await teacher.getByTestId('roster-report').waitFor();
     expect(await teacher.getByTestId('roster-invited').innerText()).toMatch(/^Invited 1[\s\S]*line 2[\s\S]*Lee Moss · lee\.moss@larch-hollow\.example/);
     expect(await teacher.getByTestId('roster-rejected').innerText()).toMatch(/^Rejected 1[\s\S]*line 3[\s\S]*not-an-address[\s\S]*not a valid e-mail address/);
-    expect(await teacher.getByTestId('roster-added').innerText()).toMatch(/^Enrolled now 0/);
     expect(await teacher.getByTestId('roster-already').innerText()).toMatch(/^Already in 0/);
     await expect.poll(() => teacher.getByTestId('roster-invitations').innerText()).toMatch(/lee\.moss@larch-hollow\.example[\s\S]*Lee Moss/);
     await teacher.getByTestId('roster-report').scrollIntoViewIfNeeded();
@@ -210,7 +211,7 @@ describe('class rosters and invitations in a real browser', () => {
     expect(problems).toEqual([]);
     await context.close();
   }, 120_000);
-  it('names a roster without its header line, and sends someone who got an account meanwhile to sign in', async () => {
+  it('names a roster without its header line', async () => {
     const problems: string[] = [];
     const context = await suite.browser.newContext({ viewport: VIEWPORT });
     const teacher = await signIn(context, DEMO_INSTRUCTOR);
@@ -223,36 +224,111 @@ describe('class rosters and invitations in a real browser', () => {
     await expect.poll(() => teacher.getByRole('alert').innerText()).toMatch(/^no-header\.csv: The roster needs a header line "email,name"/);
     expect(await teacher.getByTestId('roster-report').count()).toBe(0);
 
-    const kai = { email: 'kai.ortiz@larch-hollow.example', name: 'Kai Ortiz', password: 'sawmill-shift-7' };
-    await teacher.setInputFiles('input[aria-label="Roster CSV file"]', { name: 'kai.csv', mimeType: 'text/csv', buffer: Buffer.from(`email,name\n${kai.email},${kai.name}\n`) });
-    await expect.poll(() => teacher.getByTestId('roster-invited').innerText()).toMatch(/^Invited 1/);
+    expect(problems).toEqual([]);
+    await context.close();
+  }, 120_000);
 
-    // Kai signs up with the join code before opening the invitation.
-    const visitor = await suite.browser.newContext({ viewport: VIEWPORT });
-    const page = await visitor.newPage();
-    watch(page, 'kai', problems, [/^GET \/api\/me 401/, /invitations\/accept 409/]);
-    await page.goto(`${suite.server.url}/join`, { waitUntil: 'networkidle' });
-    await page.getByLabel('Join code').fill(DEMO_CLASS.joinCode);
-    await page.getByLabel('Your name').fill(kai.name);
-    await page.getByLabel('E-mail').fill(kai.email);
-    await page.getByLabel('Password').fill(kai.password);
-    await page.getByRole('button', { name: 'Create my account' }).click();
-    await page.waitForURL(/\/programs$/);
-    // Leave the signed-in page first: signed out under it, its reads would answer 401.
-    await page.goto('about:blank');
-    await visitor.clearCookies();
+  it('invites an existing account by hand, which joins signed in as itself; an admin address is invited like any other and refused at acceptance', async () => {
+    const problems: string[] = [];
+    const teacherContext = await suite.browser.newContext({ viewport: VIEWPORT });
+    const adminContext = await suite.browser.newContext({ viewport: VIEWPORT });
+    const priyaContext = await suite.browser.newContext({ viewport: VIEWPORT });
+    const darkContext = await suite.browser.newContext({ viewport: VIEWPORT, colorScheme: 'dark' });
+    const [ana, , priya] = DEMO_STUDENTS as [DemoAccount, DemoAccount, DemoAccount];
+    const priyaName = priya.name;
 
-    const adminContext = await suite.browser.newContext();
+    // ── Priya (a demo student) has left the class; the instructor invites her back by hand. ──
+    const teacher = await signIn(teacherContext, DEMO_INSTRUCTOR);
+    watch(teacher, 'instructor', problems);
+    await teacher.goto(`${suite.server.url}/classes`, { waitUntil: 'networkidle' });
+    await teacher.getByRole('row', { name: DEMO_CLASS.name }).getByRole('link', { name: /students: open the roster$/ }).click();
+    await teacher.waitForURL(/\/classes\/[^/]+\/students$/);
+    const classId = teacher.url().split('/').slice(-2)[0]!;
+    const left = await teacher.evaluate(
+      async ({ classId, email }) => {
+        const { students } = (await (await fetch(`/api/classes/${classId}/students`)).json()) as { students: { id: string; email: string }[] };
+        const priya = students.find((s) => s.email === email)!;
+        return (await fetch(`/api/classes/${classId}/students/${priya.id}`, { method: 'DELETE' })).status;
+      },
+      { classId, email: priya.email },
+    );
+    expect(left).toBe(204);
+    await teacher.reload({ waitUntil: 'networkidle' });
+    await expect.poll(() => teacher.getByTestId('roster-students').innerText()).not.toMatch(/Priya Nair/);
+
+    await teacher.getByLabel('Student e-mail').fill('not an address');
+    await teacher.getByRole('button', { name: 'Send invitation' }).click();
+    await teacher.getByText('not a valid e-mail address').waitFor();
+    await teacher.getByLabel('Student e-mail').fill(priya.email);
+    await teacher.getByLabel('Student name').fill('Priya Nair');
+    await teacher.getByRole('button', { name: 'Send invitation' }).click();
+    await expect.poll(() => teacher.getByTestId('roster-invitation-sent').innerText()).toMatch(/^Invitation sent to priya\.nair@larch-hollow\.example\. The link expires /);
+    await teacher.getByTestId('roster-invitation-sent').scrollIntoViewIfNeeded();
+    await shootBoth(teacher, 'roster-invite-one');
+    expect(await teacher.getByTestId('roster-students').innerText()).not.toMatch(/Priya Nair/);
+
+    // ── A roster with the admin's address and a new one: both reported alike, as invited. ──
+    const csv = `email,name\n${DEMO_ADMIN.email},Dana Okafor\nsky.lund@larch-hollow.example,Sky Lund\n`;
+    await teacher.setInputFiles('input[aria-label="Roster CSV file"]', { name: 'more.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await teacher.getByTestId('roster-report').waitFor();
+    expect(await teacher.getByTestId('roster-invited').innerText()).toMatch(
+      /^Invited 2[\s\S]*line 2[\s\S]*Dana Okafor · admin@larch-hollow\.example[\s\S]*line 3[\s\S]*Sky Lund · sky\.lund@larch-hollow\.example/,
+    );
+    expect(await teacher.getByTestId('roster-report').innerText()).not.toMatch(/admin account|instructor account|has an account/i);
+
+    // ── Priya's mail says the address has an account. ──
     const admin = await signIn(adminContext, DEMO_ADMIN);
-    await expect.poll(async () => (await mailTo(admin, kai.email)).length, { timeout: 10_000 }).toBe(1);
-    await page.goto(invitationLink((await mailTo(admin, kai.email))[0]!), { waitUntil: 'networkidle' });
-    await page.getByLabel('Password').fill(kai.password);
-    await page.getByRole('button', { name: 'Set my password and sign in' }).click();
-    await expect.poll(() => page.getByRole('alert').innerText()).toBe('An account with this e-mail exists already; sign in instead.');
-    await page.getByRole('link', { name: 'Sign in', exact: true }).waitFor();
-    await shoot(page, 'accept-invitation-has-account-light.png');
+    watch(admin, 'admin', problems);
+    const invitationTo = async (address: string) => (await mailTo(admin, address)).find((m) => m.subject === `You are invited to ${DEMO_CLASS.name}`);
+    await expect.poll(() => invitationTo(priya.email), { timeout: 10_000 }).toBeTruthy();
+    const priyaMail = (await invitationTo(priya.email))!;
+    expect(priyaMail.text).toMatch(/has a Rungwright account already/);
+    const link = invitationLink(priyaMail);
+
+    // ── Signed in as someone else (Ana): the page says so and offers to sign out. ──
+    const page = await signIn(priyaContext, ana);
+    watch(page, 'priya', problems);
+    await page.goto(link, { waitUntil: 'networkidle' });
+    await page.getByTestId('invitation-someone-else').waitFor();
+    expect(await page.getByTestId('invitation-someone-else').innerText()).toContain(`signed in as ${ana.email}, and this invitation is for ${priya.email}.`);
+    await shoot(page, 'accept-invitation-someone-else-light.png');
+    await page.getByRole('button', { name: 'Sign out' }).click();
+
+    // ── Signed out: sign in first, and the page comes back with the invitation (never in the address). ──
+    await page.getByTestId('invitation-sign-in').waitFor();
+    await shoot(page, 'accept-invitation-sign-in-light.png');
+    await page.getByRole('button', { name: 'Sign in to join' }).click();
+    await page.waitForURL(/\/sign-in\?next=(%2F|\/)accept-invitation$/);
+    await page.getByLabel('E-mail').fill(priya.email);
+    await page.getByLabel('Password').fill(priya.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/accept-invitation$/);
+    await page.getByTestId('invitation-join').waitFor();
+    await shoot(page, 'accept-invitation-join-light.png');
+    const dark = await darkContext.newPage();
+    watch(dark, 'signed out (dark)', problems, [/^GET \/api\/me 401/]);
+    await dark.goto(link, { waitUntil: 'networkidle' });
+    await dark.getByTestId('invitation-sign-in').waitFor();
+    await shoot(dark, 'accept-invitation-sign-in-dark.png');
+
+    // Not in the class until the button.
+    expect(await page.evaluate(async () => ((await (await fetch('/api/classes')).json()) as { classes: unknown[] }).classes.length)).toBe(0);
+    await page.getByRole('button', { name: `Join ${DEMO_CLASS.name}` }).click();
+    await page.waitForURL(new RegExp(`/classes/${classId}/labs$`));
+    await expect.poll(() => page.locator('h1').innerText()).toContain(DEMO_CLASS.name);
+
+    // ── The admin opens the invitation to their own address: only student accounts join. ──
+    await admin.goto(invitationLink((await invitationTo(DEMO_ADMIN.email))!), { waitUntil: 'networkidle' });
+    await admin.getByTestId('invitation-not-a-student').waitFor();
+    expect(await admin.getByTestId('invitation-not-a-student').innerText()).toMatch(/^Only student accounts join a class as students, and admin@larch-hollow\.example is an admin account/);
+    await shoot(admin, 'accept-invitation-not-a-student-light.png');
+
+    // ── The instructor sees Priya back in the class, and the admin not in it. ──
+    await teacher.reload({ waitUntil: 'networkidle' });
+    await expect.poll(() => teacher.getByTestId('roster-students').innerText()).toMatch(new RegExp(priyaName.replace(/[()]/g, '\\$&')));
+    expect(await teacher.getByTestId('roster-students').innerText()).not.toMatch(/Dana Okafor/);
 
     expect(problems).toEqual([]);
-    await Promise.all([context.close(), visitor.close(), adminContext.close()]);
-  }, 120_000);
+    await Promise.all([teacherContext.close(), adminContext.close(), priyaContext.close(), darkContext.close()]);
+  }, 180_000);
 });

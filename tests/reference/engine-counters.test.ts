@@ -1,6 +1,6 @@
 /**
  * Counter vectors V8–V9 (IEC 61131-3:2013 6.6.3.5.4, Table 45), the CTUD rules, bistable vector
- * V10 (6.6.3.5.2, Table 43) and the edge detectors (6.6.3.5.3, Table 44), as REFERENCES.md
+ * V10 (6.6.3.5.2, Table 43) and the edge detectors (6.6.3.5.3, Table 44), as docs/published-values.md
  * summarises them ([memory], consistent with the clauses). Each runs through a compiled program, not
  * the step functions alone, so the wiring of power-flow and operand inputs is checked too.
  */

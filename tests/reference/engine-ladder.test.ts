@@ -1,6 +1,6 @@
 /**
  * Contact and coil truth tables, IEC 61131-3:2013 clause 8.2 (contacts 8.2.4, coils 8.2.5,
- * evaluation order 8.2.7; [memory] for the sub-numbers), as REFERENCES.md summarises them: the left
+ * evaluation order 8.2.7; [memory] for the sub-numbers), as docs/published-values.md summarises them: the left
  * rail is ON, series passes state on, a vertical join is the OR of its links, NO passes when its
  * variable is TRUE, NC when FALSE, edge contacts for one evaluation after a change; a coil writes the
  * left state, a negated coil its inverse, set/reset coils latch.

@@ -1,9 +1,9 @@
 /**
- * Timer vectors V1–V7 of REFERENCES.md against IEC 61131-3:2013 6.6.3.5.5, Table 46 / Figure 15
+ * Timer vectors V1–V7 of docs/published-values.md against IEC 61131-3:2013 6.6.3.5.5, Table 46 / Figure 15
  * (the semantics as summarised there are [memory], consistent with the clause). Each program is
  * %IX1 → timer T1 → %QX1, run with a 10 ms scan. Rows are stamped at the end of each scan (see
  * `tests/unit/engine/scenario.ts`); where a vector says "just after", the check is the first row
- * after the change, i.e. a tolerance of one scan as REFERENCES.md allows.
+ * after the change, i.e. a tolerance of one scan as docs/published-values.md allows.
  */
 import { describe, expect, it } from 'vitest';
 import type { BlockType } from '@shared/ladder/schema';

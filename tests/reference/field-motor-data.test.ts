@@ -1,4 +1,4 @@
-/** The default panel's motor and overload data against NEC (NFPA 70) Article 430, as REFERENCES.md gives it. */
+/** The default panel's motor and overload data against NEC (NFPA 70) Article 430, as docs/published-values.md gives it. */
 import { describe, expect, it } from 'vitest';
 import { REVERSING_CONVEYOR } from '@shared/field';
 

@@ -1,7 +1,7 @@
 /**
  * Literal forms of IEC 61131-3:2013 that Rungwright reads, checked against the standard's own
  * examples (recalled: the standard is sold, no public copy was at hand; clause and table numbers
- * are [memory], as in REFERENCES.md) and, for the arithmetic of durations, against mathjs's unit
+ * are [memory], as in docs/published-values.md) and, for the arithmetic of durations, against mathjs's unit
  * conversion as an independent reference.
  */
 import { describe, expect, it } from 'vitest';

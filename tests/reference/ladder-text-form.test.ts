@@ -4,7 +4,7 @@
  * mathjs (`evaluate` with `and`/`or`/`not`, a general-purpose reference evaluator) against a
  * direct reading of the network: a series conducts when all its items do, a parallel when any
  * branch does, a NO contact when its bit is TRUE, an NC contact when it is FALSE (IEC 61131-3
- * clause 8.2 [memory for the sub-clause numbers], REFERENCES.md).
+ * clause 8.2 [memory for the sub-clause numbers], docs/published-values.md).
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';

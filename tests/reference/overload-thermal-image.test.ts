@@ -3,7 +3,7 @@
  * Engineering, §12.7.1 (IEC 60255-8 style): dθ/dt = (I² − θ)/τ, trip at θ = k²;
  * from cold t = τ·ln(I²/(I² − k²)); from a steady load Ip t = τ·ln((I² − Ip²)/(I² − k²)).
  * The closed forms are evaluated from their text by mathjs (an independent evaluator), and the
- * derived values of REFERENCES.md ([derived], k = 1.125) are checked to their printed precision.
+ * derived values of docs/published-values.md ([derived], k = 1.125) are checked to their printed precision.
  */
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
@@ -14,7 +14,7 @@ const fromCold = (tau: number, i: number): number => evaluate('tau * log(I^2 / (
 const fromLoad = (tau: number, i: number, ip: number): number =>
   evaluate('tau * log((I^2 - Ip^2) / (I^2 - k^2))', { tau, I: i, Ip: ip, k: K }) as number;
 
-// REFERENCES.md [derived]: τ per class for k = 1.125 and the resulting trip times in s.
+// docs/published-values.md [derived]: τ per class for k = 1.125 and the resulting trip times in s.
 const DERIVED = {
   '10': { tau: 323.7, cold72: 8.0, cold6: 11.6, hot15: 77, after105at12: 214 },
   '20': { tau: 647.3, cold72: 16.0, cold6: 23.2, hot15: 155, after105at12: 427 },
@@ -23,7 +23,7 @@ const DERIVED = {
 
 const CLASSES = Object.keys(DERIVED) as (keyof typeof DERIVED)[];
 
-describe('Sheldrake §12.7.1: τ per trip class (REFERENCES.md, derived)', () => {
+describe('Sheldrake §12.7.1: τ per trip class (docs/published-values.md, derived)', () => {
   it.each(CLASSES)('class %s has τ as derived', (c) => {
     expect(timeConstantS(c)).toBeCloseTo(DERIVED[c].tau, 0);
     expect(Math.abs(timeConstantS(c) - DERIVED[c].tau)).toBeLessThan(0.05);
@@ -33,7 +33,7 @@ describe('Sheldrake §12.7.1: τ per trip class (REFERENCES.md, derived)', () =>
   });
 });
 
-describe('Sheldrake §12.7.1: closed-form trip times (REFERENCES.md, derived)', () => {
+describe('Sheldrake §12.7.1: closed-form trip times (docs/published-values.md, derived)', () => {
   it.each(CLASSES)('class %s: 7.2 × and 6 × from cold', (c) => {
     const tau = timeConstantS(c);
     expect(tripTimeS(7.2, tau)).toBeCloseTo(fromCold(tau, 7.2), 9);

@@ -1,7 +1,7 @@
 /**
  * The overload relay's trip times against IEC 60947-4-1 (thermal overload relays, trip classes).
  * The model is stepped exactly as the simulator steps it (10 ms scans) and its trip time compared
- * with the limits of the standard, as REFERENCES.md gives them.
+ * with the limits of the standard, as docs/published-values.md gives them.
  */
 import { describe, expect, it } from 'vitest';
 import { DEVICE_MODELS, TRIP_CLASSES, timeConstantS, type DeviceInputs, type OverloadState, type TripClass } from '@shared/field';
@@ -29,7 +29,7 @@ function steadyAt(tripClass: TripClass, multiple: number): OverloadState {
 }
 
 // IEC 60947-4-1, Table 3 (trip classes): trip time at 7.2 × the current setting from cold
-// [limits confirmed only in manufacturers' literature, REFERENCES.md].
+// [limits confirmed only in manufacturers' literature, docs/published-values.md].
 const TABLE_3 = {
   '10A': { above: 2, atMost: 10 },
   '10': { above: 4, atMost: 10 },

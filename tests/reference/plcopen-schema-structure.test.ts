@@ -1,6 +1,6 @@
 /**
  * The structure "PLCopen TC6 XML Formats for IEC 61131-3, Version 2.01" (schema tc6_xml_v201.xsd)
- * requires of an exported file, checked element by element (REFERENCES.md, PLCopen section). The
+ * requires of an exported file, checked element by element (docs/published-values.md, PLCopen section). The
  * schema itself carries no open licence and cannot be fetched here, so it is not used; the file is
  * read with fast-xml-parser's own validator and parser, independently of Rungwright's reader. The
  * order of children inside each xsd:sequence is from memory of the schema.

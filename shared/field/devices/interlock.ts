@@ -1,6 +1,6 @@
 /**
  * Mechanical interlock between two contactors (the reversing pair): a lever that lets only one
- * carrier pull in. Rule of this simulator (DESIGN.md): once one carrier is engaged (picking up,
+ * carrier pull in. Rule of this simulator (docs/names-and-rules.md): once one carrier is engaged (picking up,
  * closed, or still dropping out) the other is held open; if both coils are energised in the same
  * step while both carriers are at rest, neither closes and the panel reports an interlock conflict.
  */

@@ -108,3 +108,12 @@ export const overload: DeviceModel<OverloadParams, OverloadState> = {
     },
   },
 };
+
+/**
+ * The relay as it stands after carrying `perUnit` × its setting long enough to settle: the image
+ * at its steady state θ = perUnit². At 1 this is the "hot" state from which IEC 60947-4-1 times
+ * its overload tests; 0 is cold. Trip latch and its cause are kept: heat does not reset a relay.
+ */
+export function preheatedState(state: OverloadState, perUnit: number): OverloadState {
+  return { ...state, theta: perUnit * perUnit, overMs: 0 };
+}

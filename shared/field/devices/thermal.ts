@@ -5,7 +5,7 @@
  *
  * Closed forms: from cold t = τ·ln(I² / (I² − k²)); from a steady load Ip,
  * t = τ·ln((I² − Ip²) / (I² − k²)). τ per trip class is chosen so that the trip at 7.2 × the setting
- * from cold falls inside the IEC 60947-4-1 Table 3 band ([derived] in REFERENCES.md): 8 / 16 / 24 s
+ * from cold falls inside the IEC 60947-4-1 Table 3 band ([derived] in docs/published-values.md): 8 / 16 / 24 s
  * for classes 10 / 20 / 30 (0.8 × the class number) and 6 s, the middle of 2–10 s, for class 10A
  * (our choice). With k = 1.125 that gives τ = 323.7 / 647.3 / 971.0 s and 242.7 s for 10A.
  */

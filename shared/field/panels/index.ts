@@ -10,7 +10,7 @@ function builtIn(input: unknown): PanelLayout {
   return parsed.value;
 }
 
-/** The default panel (DESIGN.md), validated and with defaults filled in. */
+/** The default panel (docs/names-and-rules.md), validated and with defaults filled in. */
 export const REVERSING_CONVEYOR: PanelLayout = builtIn(REVERSING_CONVEYOR_INPUT);
 
 export const DEFAULT_PANEL_ID = 'reversing-conveyor';

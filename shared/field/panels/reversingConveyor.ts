@@ -1,5 +1,5 @@
 /**
- * The default panel layout `reversing-conveyor` (DESIGN.md): the reversible belt conveyor at the
+ * The default panel layout `reversing-conveyor` (docs/names-and-rules.md): the reversible belt conveyor at the
  * Larch Hollow Timber Co. — a demo scenario, invented data.
  *
  * S0 is hardwired ahead of both commons (11-12 on the input common, 21-22 on the output common);

@@ -5,7 +5,7 @@
  * schema `tc6_xml_v201.xsd`, which carries no open licence and is not kept here).
  */
 
-/** The TC6 XML 2.01 namespace (REFERENCES.md, PLCopen). */
+/** The TC6 XML 2.01 namespace (docs/published-values.md, PLCopen). */
 export const TC6_NAMESPACE = 'http://www.plcopen.org/xml/tc6_0201';
 /** `formattedText` (comments, documentation) holds XHTML. */
 export const XHTML_NAMESPACE = 'http://www.w3.org/1999/xhtml';
@@ -31,7 +31,7 @@ export const PRODUCT_VERSION = '0.1.0';
 export const COMPANY_NAME = 'Rungwright';
 /** Name of the one program POU; IEC 61131-3 identifiers cannot hold a free-text title. */
 export const POU_NAME = 'Main';
-/** DESIGN.md: the simulator's default scan period, written as the task interval. */
+/** docs/check-scripts.md: the simulator's default scan period, written as the task interval. */
 export const TASK_INTERVAL = 'T#10ms';
 /** Written when the caller passes no `now`: `shared/` reads no clock. */
 export const DEFAULT_CREATION_DATE_TIME = '1970-01-01T00:00:00Z';

@@ -24,6 +24,11 @@ export function checkXmlInput(xml: unknown, maxBytes: number): Result<true> {
   }
   if (xml.trim() === '') return fail('the file is empty');
 
+  const invalid = findInvalidCharacter(xml);
+  if (invalid !== null) {
+    return fail(`${where(xml, invalid)}: the character ${codePointName(xml.codePointAt(invalid) ?? 0)} is not allowed in XML`);
+  }
+
   const doctype = findOutsideMarkup(xml, /<!DOCTYPE/i);
   if (doctype !== null) {
     return fail(`${where(xml, doctype)}: a DOCTYPE declaration is not accepted (PLCopen files need none; it could declare entities)`);
@@ -35,6 +40,9 @@ export function checkXmlInput(xml: unknown, maxBytes: number): Result<true> {
   if (reference !== null) {
     const at = where(xml, reference.index);
     if (reference.name === null) return fail(`${at}: a bare "&" must be written &amp;`);
+    if (reference.invalidCode !== undefined) {
+      return fail(`${at}: the character reference "&${reference.name};" names ${codePointName(reference.invalidCode)}, which is not allowed in XML`);
+    }
     return fail(`${at}: the entity reference "&${reference.name};" is not defined in XML`);
   }
 
@@ -105,15 +113,51 @@ function findOutsideMarkup(source: string, pattern: RegExp): number | null {
   return found;
 }
 
-/** The first `&` that does not start a predefined entity or a character reference (`name` null when unterminated). */
-function findUndefinedEntity(source: string): { index: number; name: string | null } | null {
-  let found: { index: number; name: string | null } | null = null;
+/**
+ * The characters XML 1.0 allows (XML 1.0 Fifth Edition, 2.2 "Characters", production [2] Char):
+ * tab, line feed, carriage return, U+0020–U+D7FF, U+E000–U+FFFD, U+10000–U+10FFFF. NUL and the
+ * other C0 controls are not among them, in the text or as character references.
+ */
+function isXmlChar(code: number): boolean {
+  return code === 0x9 || code === 0xa || code === 0xd || (code >= 0x20 && code <= 0xd7ff) || (code >= 0xe000 && code <= 0xfffd) || (code >= 0x10000 && code <= 0x10ffff);
+}
+
+/** Index of the first character that is not an XML `Char` (an unpaired surrogate counts), or null. */
+function findInvalidCharacter(source: string): number | null {
+  for (let i = 0; i < source.length; i += 1) {
+    const code = source.codePointAt(i)!;
+    if (!isXmlChar(code)) return i;
+    if (code > 0xffff) i += 1;
+  }
+  return null;
+}
+
+function charRefCode(name: string): number {
+  return name.startsWith('#x') ? Number.parseInt(name.slice(2), 16) : Number.parseInt(name.slice(1), 10);
+}
+
+/** `U+0000 (NUL)`-style name of a code point for a message. */
+function codePointName(code: number): string {
+  const hex = `U+${code.toString(16).toUpperCase().padStart(4, '0')}`;
+  return code === 0 ? `${hex} (NUL)` : hex;
+}
+
+/**
+ * The first `&` that does not start a predefined entity or a valid character reference (`name`
+ * null when unterminated; `invalidCode` set for a reference to a character XML does not allow).
+ */
+function findUndefinedEntity(source: string): { index: number; name: string | null; invalidCode?: number } | null {
+  let found: { index: number; name: string | null; invalidCode?: number } | null = null;
   scanOutsideOpaque(source, (segment, offset) => {
     const pattern = /&([^;\s<&]*);?/g;
     for (let match = pattern.exec(segment); match; match = pattern.exec(segment)) {
       const name = match[1] ?? '';
       const terminated = match[0].endsWith(';');
       const isCharRef = /^#(\d+|x[0-9A-Fa-f]+)$/.test(name);
+      if (terminated && isCharRef && !isXmlChar(charRefCode(name))) {
+        found = { index: offset + match.index, name, invalidCode: charRefCode(name) };
+        return true;
+      }
       if (terminated && (PREDEFINED_ENTITIES.has(name) || isCharRef)) continue;
       found = { index: offset + match.index, name: terminated && name !== '' ? name : null };
       return true;

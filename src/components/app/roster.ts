@@ -13,9 +13,8 @@ export type RosterGroupKey = keyof RosterReport;
 
 /** How each group of the upload report is headed and what it means, in the order shown. */
 export const ROSTER_GROUPS = {
-  added: { title: 'Enrolled now', hint: 'had a student account and are in the class' },
-  invited: { title: 'Invited', hint: 'an invitation e-mail is on its way' },
-  already: { title: 'Already in', hint: 'enrolled or invited before; nothing changed' },
+  invited: { title: 'Invited', hint: 'an invitation e-mail is on its way; they join when they accept it' },
+  already: { title: 'Already in', hint: 'in the class or invited before; nothing changed' },
   rejected: { title: 'Rejected', hint: 'fix these lines and upload them again' },
 } as const satisfies Record<RosterGroupKey, { title: string; hint: string }>;
 
@@ -26,7 +25,7 @@ export interface RosterGroup {
   rows: RosterReport[RosterGroupKey];
 }
 
-/** The report as four groups, rows in file order, every group present (an empty one says 0). */
+/** The report as its groups, rows in file order, every group present (an empty one says 0). */
 export function rosterGroups(report: RosterReport): RosterGroup[] {
   return (Object.keys(ROSTER_GROUPS) as RosterGroupKey[]).map((key) => ({
     key,

@@ -5,6 +5,7 @@
  */
 import Papa from 'papaparse';
 import type { Gradebook } from '@shared/api/labs';
+import { SAFE_CSV_OPTIONS } from '@shared/api/csv';
 
 /** Header and rows as plain values, in the gradebook's order. */
 export function gradebookTable(book: Gradebook): (string | number)[][] {
@@ -13,7 +14,10 @@ export function gradebookTable(book: Gradebook): (string | number)[][] {
   return [header, ...rows];
 }
 
-/** CSV text with `\r\n` line ends (RFC 4180) and fields quoted where needed. */
+/**
+ * CSV text with `\r\n` line ends (RFC 4180) and fields quoted where needed; a name or title a
+ * spreadsheet would take for a formula is written as text (`SAFE_CSV_OPTIONS`).
+ */
 export function gradebookToCsv(book: Gradebook): string {
-  return Papa.unparse(gradebookTable(book), { newline: '\r\n' });
+  return Papa.unparse(gradebookTable(book), SAFE_CSV_OPTIONS);
 }

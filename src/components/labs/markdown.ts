@@ -5,7 +5,7 @@
  */
 import DOMPurify from 'dompurify';
 import { marked } from 'marked';
-import { SAFETY_CAUTION } from '@shared/labs';
+import { SAFETY_CAUTION } from '@shared/labs/safetyCaution';
 
 /** Markdown → safe HTML. Links open in a new tab without giving it this page (`noopener`). */
 export function renderMarkdown(source: string): string {

@@ -4,7 +4,7 @@
  * session exactly as the shared runner drives its simulation — settle, then each step: device
  * actions at once, waits as whole scans — so it reaches the check's `atMs` in the same state.
  */
-import { parseCheckScript, stepAction, type CheckScript } from '@shared/checks';
+import { parseCheckScript, stepAction, stepSpanMs, type CheckScript } from '@shared/checks';
 import type { ActionArgs, DeviceAction } from '@shared/field';
 
 /** The part of a simulator session a replay needs (`src/simulation/session.ts` has it). */
@@ -20,7 +20,7 @@ export interface ReplayOutcome {
   virtualMs: number;
   /** The step the replay stopped after (the check's own number). */
   stepNumber: number;
-  /** Device actions the panel refused on the way (as the runner would log them). */
+  /** Device actions the panel refused on the way (as the runner would log them), and steps not replayed. */
   refused: string[];
 }
 
@@ -39,8 +39,14 @@ export function replayTo(target: ReplayTarget, script: CheckScript, stepNumber: 
     const step = script.steps[i]!;
     const action = stepAction(step);
     if (action === 'expect') continue;
-    if (action === 'wait') {
-      wait((step as { wait: number }).wait);
+    if (action === 'wait' || action === 'during' || action === 'until') {
+      // A check over time runs its scans as a wait does (an `until` lasts its whole window).
+      wait(stepSpanMs(step));
+      continue;
+    }
+    if (action === 'force' || action === 'unforce' || action === 'preheat') {
+      // The workbench session takes device actions only: say so rather than pretend.
+      refused.push(`step ${i + 1}: ${action} ${String((step as Record<string, unknown>)[action])} (not replayed in the workbench)`);
       continue;
     }
     const s = step as Record<string, unknown>;

@@ -47,6 +47,11 @@ export interface PresentedReport {
   maxScore: number;
   /** "7 / 10". */
   scoreText: string;
+  /**
+   * The visible checks' points, "7 / 7": what a self-check of the same document shows, so a
+   * student can compare the two. Equal to the score when nothing is hidden.
+   */
+  visibleText: string;
   passed: boolean;
   /** Checks shown in full (every check for an instructor; visible ones for a student). */
   rows: CheckRow[];
@@ -109,8 +114,21 @@ function rowOf(check: CheckResult): CheckRow {
     atMs: check.atMs,
     lines,
     steps: check.steps,
-    note: check.note ?? null,
+    note: [timedWords(check), check.note].filter(Boolean).join('; ') || null,
   };
+}
+
+/** What a check over time found, in words: the lines alone would read a `never` backwards. */
+function timedWords(check: CheckResult): string | null {
+  if (check.kind === 'never' || check.kind === 'always') {
+    const span = `${check.kind} over ${check.spanMs ?? 0} ms`;
+    return check.failedAt ? `${span}: first broken at ${check.failedAt.atMs} ms (scan ${check.failedAt.scan}), values read there` : `${span}: held at every scan`;
+  }
+  if (check.kind === 'until') {
+    const window = check.within ? ` (wanted between ${check.within[0]} and ${check.within[1]} ms)` : '';
+    return check.tookMs === null || check.tookMs === undefined ? `never held${window}` : `first held after ${check.tookMs} ms${window}`;
+  }
+  return null;
 }
 
 /** The report as rows; a redacted report's hidden checks become counts, never rows. */
@@ -132,19 +150,18 @@ export function presentReport(report: AnyReport): PresentedReport {
         }
       : null;
   const compileError = report.checks.length > 0 && report.scans === 0 ? rows.find((r) => r.note)?.note ?? null : null;
+  const visibleRows = rows.filter((r) => !r.hidden);
+  const visibleEarned = visibleRows.reduce((sum, r) => sum + r.earned, 0);
+  const visiblePossible = visibleRows.reduce((sum, r) => sum + r.points, 0);
   return {
     score: report.score,
     maxScore: report.maxScore,
     scoreText: `${report.score} / ${report.maxScore}`,
+    visibleText: `${visibleEarned} / ${visiblePossible}`,
     passed: report.passed,
     rows,
     hidden,
     problem: report.stoppedBy ?? compileError,
     failedCount: report.checks.filter((c) => !c.passed).length,
   };
-}
-
-/** A script with only its visible checks: what a student's self-check runs (hidden checks stay on the server). */
-export function visibleOnly<S extends { steps: readonly unknown[] }>(script: S): S {
-  return { ...script, steps: script.steps.filter((s) => !(typeof s === 'object' && s !== null && (s as { hidden?: unknown }).hidden === true)) };
 }

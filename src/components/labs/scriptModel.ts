@@ -22,8 +22,19 @@ export interface ScriptValidation {
   byStep: Map<number, string[]>;
 }
 
-/** The device actions; `wait` and `expect` are the two steps that name no device. */
-const DEVICE_ACTIONS_OF_STEPS = STEP_ACTIONS.filter((a): a is StepAction & DeviceAction => a !== 'wait' && a !== 'expect');
+/** Steps that name no device: time, checks, forces (a bit, not a device). */
+const NO_DEVICE: ReadonlySet<StepAction> = new Set<StepAction>(['wait', 'expect', 'during', 'until', 'force', 'unforce']);
+
+/** The device actions of the runtime's device models (`preheat` names a device but is the runner's own). */
+const DEVICE_ACTIONS_OF_STEPS = STEP_ACTIONS.filter((a): a is StepAction & DeviceAction => !NO_DEVICE.has(a) && a !== 'preheat');
+
+/** Steps the step list shows as text only: they are edited in the JSON view. */
+export const JSON_ONLY_ACTIONS: ReadonlySet<StepAction> = new Set<StepAction>(['during', 'until', 'force', 'unforce']);
+
+/** Is this draft step a check (it earns points)? */
+export function isDraftCheck(step: DraftStep): boolean {
+  return 'expect' in step || 'during' in step || 'until' in step;
+}
 
 /** Words for each action in the step picker. */
 export const ACTION_LABELS = {
@@ -37,6 +48,11 @@ export const ACTION_LABELS = {
   unblock: 'Clear photo-eye',
   wait: 'Wait',
   expect: 'Check',
+  during: 'Check over a time',
+  until: 'Check when it happens',
+  force: 'Force a bit',
+  unforce: 'Remove a force',
+  preheat: 'Preheat overload',
 } as const satisfies Record<StepAction, string>;
 
 /** The action a draft step takes (the first action key it has). */
@@ -46,8 +62,8 @@ export function draftAction(step: DraftStep): StepAction {
 
 /** Devices of `panel` that can take `action`, as `{ id, label }` for a picker. */
 export function devicesFor(action: StepAction, panel: PanelLayout): { id: string; label: string }[] {
-  if (action === 'wait' || action === 'expect') return [];
-  const kinds = new Set<string>(kindsFor(action));
+  if (NO_DEVICE.has(action)) return [];
+  const kinds = new Set<string>(action === 'preheat' ? ['overload'] : kindsFor(action as DeviceAction));
   return panel.devices.filter((d) => kinds.has(d.kind)).map((d) => ({ id: d.id, label: `${d.id} ${d.label}` }));
 }
 
@@ -91,6 +107,18 @@ export function newStep(action: StepAction, panel: PanelLayout): DraftStep {
     }
     case 'load':
       return { load: first, factor: 1 };
+    case 'during':
+    case 'until': {
+      const target = expectTargets(panel)[0];
+      const condition = target ? { [target.key]: target.values[0]! } : {};
+      return action === 'during' ? { during: 1000, never: condition, points: 1 } : { until: condition, within: [0, 1000], points: 1 };
+    }
+    case 'force':
+      return { force: '%IX1', to: true };
+    case 'unforce':
+      return { unforce: 'all' };
+    case 'preheat':
+      return { preheat: first, factor: 1 };
     default:
       return { [action]: first } as DraftStep;
   }
@@ -153,7 +181,7 @@ export function setCheckField(step: DraftStep, field: 'label' | 'points' | 'hidd
 
 /** Points of all checks (1 for a check that does not say). */
 export function totalPoints(script: DraftScript): number {
-  return script.steps.reduce((sum, step) => sum + ('expect' in step ? (step.points ?? 1) : 0), 0);
+  return script.steps.reduce((sum, step) => sum + (isDraftCheck(step) ? ((step as { points?: number }).points ?? 1) : 0), 0);
 }
 
 /** The raw JSON view of a script: two-space indent, steps in order. */
@@ -211,7 +239,30 @@ export function describeDraftStep(step: DraftStep): string {
     const points = step.points ?? 1;
     return `check${step.label ? ` “${step.label}”` : ''}: ${what || 'nothing yet'} (${points} pt${points === 1 ? '' : 's'}${step.hidden ? ', hidden' : ''})`;
   }
+  if (action === 'during' && 'during' in step) {
+    const kind = step.never ? 'never' : 'always';
+    return `check${step.label ? ` “${step.label}”` : ''}: ${kind} ${conditionWords(step.never ?? step.always)} for ${String(step.during)} ms${pointWords(step)}`;
+  }
+  if (action === 'until' && 'until' in step) {
+    const [from, to] = Array.isArray(step.within) ? step.within : [];
+    return `check${step.label ? ` “${step.label}”` : ''}: ${conditionWords(step.until)} first between ${String(from)} and ${String(to)} ms${pointWords(step)}`;
+  }
+  if (action === 'force') return `force ${String(s.force)} to ${String(s.to)}`;
+  if (action === 'unforce') return s.unforce === 'all' ? 'remove every force' : `remove the force on ${String(s.unforce)}`;
+  if (action === 'preheat') return `preheat ${String(s.preheat)} (steady at ${String(s.factor)} × its setting)`;
   return `${action} ${String(s[action])}`;
+}
+
+/** "K1 closed, P1 lit" for a condition (or "nothing yet"). */
+function conditionWords(condition: Record<string, Expectation> | undefined): string {
+  const words = Object.entries(condition ?? {}).map(([k, v]) => `${k} ${typeof v === 'object' ? JSON.stringify(v) : String(v)}`);
+  return words.length > 0 ? words.join(', ') : 'nothing yet';
+}
+
+/** " (2 pts, hidden)" for a check step. */
+function pointWords(step: { points?: number; hidden?: boolean }): string {
+  const points = step.points ?? 1;
+  return ` (${points} pt${points === 1 ? '' : 's'}${step.hidden ? ', hidden' : ''})`;
 }
 
 /** Device actions a step can take, in the schema's order (for tests and pickers). */

@@ -12,6 +12,7 @@ export interface ServerProcess {
   pid: number;
   /** `http://127.0.0.1:<port>` once the server printed its listening line. */
   url: string;
+  stdout(): string;
   stderr(): string;
   /** Resolves with the exit code (or the signal name) when the process ends. */
   exited: Promise<number | string>;
@@ -39,7 +40,7 @@ export function startServerProcess(dataDir: string, env: Record<string, string> 
     child.stdout.on('data', (chunk: Buffer) => {
       out += chunk.toString();
       const match = /Rungwright listening on (http:\/\/\S+)/.exec(out);
-      if (match) resolve({ child, pid: child.pid ?? -1, url: match[1], stderr: () => err, exited });
+      if (match) resolve({ child, pid: child.pid ?? -1, url: match[1], stdout: () => out, stderr: () => err, exited });
     });
     child.stderr.on('data', (chunk: Buffer) => {
       err += chunk.toString();

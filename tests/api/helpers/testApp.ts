@@ -39,6 +39,10 @@ export interface TestApp {
 export interface TestAppOptions {
   /** Grades the app's submissions; default a fresh worker pool. Closed by `close()` either way. */
   grader?: Grader;
+  /** A built client to serve after the API, as `npm start` does with `dist`. */
+  clientDir?: string;
+  /** Wraps the real mailer the app sends through (e.g. to hold mail back and see what waits for it). */
+  wrapMailer?: (mailer: Mailer) => Mailer;
 }
 
 /** Loads the template dump written by globalSetup into a new in-memory database. */
@@ -58,12 +62,13 @@ export async function createTestApp(env: Record<string, string> = {}, options: T
   const app = createApp({
     grader,
     db: database,
-    mailer,
+    mailer: options.wrapMailer ? options.wrapMailer(mailer) : mailer,
     clock,
     config,
     logger: createLogger('silent'),
     sessionKey: new TextEncoder().encode('test-session-key-0123456789abcdef'),
     passwordParams: TEST_SCRYPT,
+    clientDir: options.clientDir,
   });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));

@@ -5,7 +5,9 @@
 import { describe, expect, it } from 'vitest';
 import { redactReport, runChecks, type GradeReport } from '@shared/checks';
 import { REVERSING_CONVEYOR } from '@shared/field';
-import { THREE_WIRE } from '@shared/labs';
+import { THREE_WIRE, WARNING_HORN } from '@shared/labs';
+import { buildProgram, coil, no, rung } from '@shared/labs/build';
+import { conveyorTags } from '@shared/labs/conveyorTags';
 
 function grade(script: unknown): GradeReport {
   const result = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script });
@@ -71,8 +73,8 @@ describe('redactReport past the last visible check', () => {
   it('still counts the hidden checks in the score, as pass or fail only', () => {
     expect(student.score).toBe(full.score);
     expect(student.checks.slice(2)).toEqual([
-      { index: 9, passed: full.checks[2]!.passed, points: 1, hidden: true },
-      { index: 12, passed: full.checks[3]!.passed, points: 1, hidden: true },
+      { passed: full.checks[2]!.passed, points: 1, hidden: true },
+      { passed: full.checks[3]!.passed, points: 1, hidden: true },
     ]);
   });
 
@@ -92,5 +94,28 @@ describe('redactReport past the last visible check', () => {
     expect(shown.stoppedBy).toBe('a limit stopped the run during the hidden checks');
     expect(JSON.stringify(shown)).not.toContain('2030');
     expect(shown.virtualMs).toBe(800);
+  });
+});
+
+describe('redactReport of a report graded before the scan period and every step were recorded', () => {
+  it('reads the scan period from the trace and gives the same student view', () => {
+    const full = runChecks({ program: WARNING_HORN.solution, panel: REVERSING_CONVEYOR, script: { ...WARNING_HORN.script, scanMs: 7 } });
+    if (!full.ok) throw new Error(full.errors.join('\n'));
+    const { scanMs, ...older } = full.report;
+    expect(scanMs).toBe(7);
+    expect(redactReport(older)).toEqual({ ...redactReport(full.report), scanMs: undefined });
+  });
+
+  it('numbers the steps it has no words for without joining any, and still gives no hidden check a place', () => {
+    const broken = runChecks({ program: buildProgram('broken', '', conveyorTags(), [rung('', no('%IX42'), coil('%QX1'))]), panel: REVERSING_CONVEYOR, script: WARNING_HORN.script });
+    if (!broken.ok) throw new Error(broken.errors.join('\n'));
+    expect(broken.report.scans).toBe(0);
+    // Before, a program that did not compile got no steps listed for its checks.
+    const older: GradeReport = { ...broken.report, checks: broken.report.checks.map((c) => ({ ...c, steps: [] })) };
+    const student = redactReport(older);
+    const visible = student.checks.filter((c) => !c.hidden);
+    const hiddenBefore = (index: number) => older.checks.filter((c) => c.hidden && c.index < index).length;
+    expect(visible.map((c) => ('index' in c ? c.index : null))).toEqual(older.checks.filter((c) => !c.hidden).map((c) => c.index - hiddenBefore(c.index)));
+    expect(student.checks.filter((c) => c.hidden).every((c) => !('index' in c))).toBe(true);
   });
 });

@@ -7,7 +7,8 @@ const errorsOf = (json: unknown): string[] => {
   const r = parseCheckScript(json);
   return r.ok ? [] : r.errors;
 };
-const script = (...steps: unknown[]) => ({ panel: 'reversing-conveyor', steps });
+/** A script of `steps`, ended by a check (a script without one is refused). */
+const script = (...steps: unknown[]) => ({ panel: 'reversing-conveyor', steps: [...steps, { expect: { K1: 'open' } }] });
 const fit = (json: unknown): string[] => {
   const r = parseCheckScript(json);
   if (!r.ok) throw new Error(r.errors.join('\n'));
@@ -15,7 +16,7 @@ const fit = (json: unknown): string[] => {
 };
 
 describe('parseCheckScript', () => {
-  it('accepts the example of DESIGN.md and fills in the defaults', () => {
+  it('accepts the example of docs/check-scripts.md and fills in the defaults', () => {
     const r = parseCheckScript({
       panel: 'reversing-conveyor',
       scanMs: 10,
@@ -51,7 +52,7 @@ describe('parseCheckScript', () => {
     expect(errorsOf(script({ set: 'S4' }))).toEqual(['step 1: "set" needs "to": the position name, e.g. "RUN"; got nothing']);
     expect(errorsOf(script({ load: 'M1', factor: 50 }))).toEqual(['step 1: "load" needs "factor": the load as a multiple of FLA from 0 to 20 (6 ≈ jammed); got 50']);
     expect(errorsOf(script({ press: 3 }))).toEqual(['step 1: "press" needs a device id such as "S2", got 3']);
-    expect(errorsOf(script({ presss: 'S2' }))[0]).toBe('step 1: no action; a step has one of press, release, set, trip, reset, load, block, unblock, wait, expect');
+    expect(errorsOf(script({ presss: 'S2' }))[0]).toBe('step 1: no action; a step has one of press, release, set, trip, reset, load, block, unblock, wait, expect, during, until, force, unforce, preheat');
     expect(errorsOf(script({ press: 'S2', wait: 10 }))).toEqual(['step 1: one action per step, got "press" and "wait"']);
     expect(errorsOf(script({ expect: { K1: 'open' }, lable: 'x' }))).toEqual(['step 1: unknown field "lable" (an "expect" step also takes label, points, hidden)']);
     expect(errorsOf(script({ expect: {} }))[0]).toMatch(/^step 1: "expect" needs an object of what to check/);
@@ -92,7 +93,7 @@ describe('checkScriptAgainstPanel', () => {
     expect(fit(script({ expect: { 'K1_Aux': true, 'T1.Q': true, 'C1.CV': { min: 2 } } }))).toEqual([]);
   });
   it('refuses a script written for another panel', () => {
-    expect(fit({ panel: 'mixer', steps: [{ wait: 1 }] })).toEqual(['the script is written for panel "mixer", but the panel given is "reversing-conveyor"']);
+    expect(fit({ panel: 'mixer', steps: [{ expect: { K1: 'open' } }] })).toEqual(['the script is written for panel "mixer", but the panel given is "reversing-conveyor"']);
   });
   it('knows which kinds take each action', () => {
     expect(kindsFor('trip')).toEqual(['overload']);

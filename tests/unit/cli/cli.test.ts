@@ -35,8 +35,10 @@ const files = {
   'panel.json': fixture('reversing-conveyor.panel.json'),
   'broken.json': '{ "format": "rungwright.program", ',
   'notaprogram.json': '{ "hello": 1 }',
-  'bad-script.json': JSON.stringify({ steps: [{ press: 'S2' }, { wait: 10 }, { wait: 10 }, { trip: 'K1' }] }),
-  'other-panel.json': JSON.stringify({ panel: 'mixer', steps: [{ wait: 10 }] }),
+  'bad-script.json': JSON.stringify({ steps: [{ press: 'S2' }, { wait: 10 }, { wait: 10 }, { trip: 'K1' }, { expect: { K1: 'open' } }] }),
+  'no-check.json': JSON.stringify({ steps: [{ press: 'S2' }, { wait: 10 }] }),
+  'coil-on-input.json': JSON.stringify({ format: 'rungwright.program', version: 1, rungs: [{ id: 'r1', network: { kind: 'series', id: 's', items: [{ kind: 'contact', id: 'c', variant: 'no', operand: '%IX1' }, { kind: 'coil', id: 'q', variant: 'coil', operand: '%IX2' }] } }] }),
+  'other-panel.json': JSON.stringify({ panel: 'mixer', steps: [{ wait: 10 }, { expect: { K1: 'open' } }] }),
   'bad-panel.json': JSON.stringify({ format: 'rungwright.panel', version: 1, id: 'x', title: 'x', devices: [{ id: 'S1', kind: 'pushbutton', label: 'a', feeds: '%IX9' }] }),
   'invalid-program.json': JSON.stringify({ format: 'rungwright.program', version: 1, rungs: [{ id: 'r1', network: { kind: 'series', id: 's', items: [{ kind: 'contact', id: 'c', variant: 'no', operand: '%IX42' }, { kind: 'coil', id: 'q', variant: 'coil', operand: '%QX1' }] } }] }),
   'bad.xml': '<project xmlns="http://www.plcopen.org/xml/tc6_0201"><unclosed></project>',
@@ -56,7 +58,7 @@ describe('parseCliArgs', () => {
   it('says what is missing or wrong', () => {
     expect(parseCliArgs(['check', '--program', 'p.json'])).toEqual({ ok: false, error: '"check" needs --script S' });
     expect(parseCliArgs(['st'])).toEqual({ ok: false, error: '"st" needs --program P' });
-    expect(parseCliArgs(['grade'])).toEqual({ ok: false, error: 'unknown command "grade"; use check, validate or st (--help for usage)' });
+    expect(parseCliArgs(['grade'])).toEqual({ ok: false, error: 'unknown command "grade"; use check, validate, st or create-admin (--help for usage)' });
     expect(parseCliArgs(['st', '--program', 'p', '--script', 's'])).toEqual({ ok: false, error: '"st" does not take --script' });
     const unknown = parseCliArgs(['check', '--colour']);
     expect(unknown.ok).toBe(false);
@@ -113,13 +115,59 @@ describe('cli check', () => {
   });
 });
 
+describe('exit codes: one meaning for check, validate and st', () => {
+  // 0 all good; 1 the program is at fault; 2 the inputs cannot be used.
+  it('a coil on an input: 1 from check, validate and st alike, with the diagnostic on stderr', () => {
+    for (const argv of [
+      ['check', '--program', 'coil-on-input.json', '--script', 'checks.json'],
+      ['validate', '--program', 'coil-on-input.json'],
+      ['validate', '--program', 'coil-on-input.json', '--json'],
+      ['st', '--program', 'coil-on-input.json'],
+    ]) {
+      const m = memoryIO(files);
+      expect(cliMain(argv, m.io), argv.join(' ')).toBe(1);
+      const text = argv[0] === 'validate' && !argv.includes('--json') ? m.out() : m.err();
+      expect(text, argv.join(' ')).toMatch(/coil-on-input\.json: error \(rung r1, element q\): .*%IX2/);
+    }
+  });
+  it('check: a program that does not compile fails, "passed" false, every check failed, diagnostics on stderr', () => {
+    const m = memoryIO(files);
+    expect(cliMain(['check', '--program', 'invalid-program.json', '--script', 'checks.json'], m.io)).toBe(1);
+    const report = JSON.parse(m.out());
+    expect(report.passed).toBe(false);
+    expect(report.checks.length).toBeGreaterThan(0);
+    expect(report.checks.every((c: { passed: boolean }) => !c.passed)).toBe(true);
+    expect(m.err()).toMatch(/^invalid-program\.json: does not compile, so every check fails:\n {2}invalid-program\.json: error/);
+  });
+  it('a script with no check is bad input (2), whatever the program, even one that does not compile', () => {
+    for (const program of ['solution.json', 'invalid-program.json']) {
+      const m = memoryIO(files);
+      expect(cliMain(['check', '--program', program, '--script', 'no-check.json'], m.io)).toBe(2);
+      expect(m.err()).toContain('no-check.json: not a valid check script:\n  "steps" has no check');
+      expect(m.out()).toBe('');
+    }
+  });
+  it('st and validate exit 2 on an unreadable or malformed file', () => {
+    for (const argv of [['st', '--program', 'bad.xml'], ['validate', '--program', 'broken.json'], ['st', '--program', 'missing.json']]) {
+      const m = memoryIO(files);
+      expect(cliMain(argv, m.io), argv.join(' ')).toBe(2);
+      expect(m.err()).toMatch(/^(bad\.xml|broken\.json|missing\.json): /);
+    }
+  });
+  it('--help states the three codes', () => {
+    const m = memoryIO(files);
+    cliMain(['--help'], m.io);
+    expect(m.out()).toMatch(/0 {2}all good[^]*1 {2}the program is at fault[^]*2 {2}the inputs cannot be used/);
+  });
+});
+
 describe('cli validate and st', () => {
-  it('validate exits 0 on a clean program and 2 when it has errors, naming them', () => {
+  it('validate exits 0 on a clean program and 1 (the program is at fault) when it has errors, naming them', () => {
     const ok = memoryIO(files);
     expect(cliMain(['validate', '--program', 'solution.json'], ok.io)).toBe(0);
     expect(ok.out()).toBe('solution.json: no problems found\n');
     const bad = memoryIO(files);
-    expect(cliMain(['validate', '--program', 'invalid-program.json', '--json'], bad.io)).toBe(2);
+    expect(cliMain(['validate', '--program', 'invalid-program.json', '--json'], bad.io)).toBe(1);
     const parsed = JSON.parse(bad.out());
     expect(parsed.ok).toBe(false);
     expect(parsed.diagnostics.some((d: { message: string }) => d.message.includes('%IX42'))).toBe(true);

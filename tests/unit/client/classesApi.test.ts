@@ -18,7 +18,7 @@ describe('the roster calls', () => {
   });
 
   it('uploads the roster as multipart in the field "file" and answers the report', async () => {
-    const report = { added: [], invited: [{ line: 2, email: 'lee.moss@larch-hollow.example', name: 'Lee Moss' }], already: [], rejected: [] };
+    const report = { invited: [{ line: 2, email: 'lee.moss@larch-hollow.example', name: 'Lee Moss' }], already: [], rejected: [] };
     const fetch = fakeFetch(() => ({ status: 200, body: { report } }));
     const classes = createClassesApi(createHttp({ fetchImpl: fetch.impl }));
     const answer = await classes.uploadRoster(CLASS_ID, new File(['email,name\nlee.moss@larch-hollow.example,Lee Moss\n'], 'roster.csv', { type: 'text/csv' }));
@@ -30,7 +30,7 @@ describe('the roster calls', () => {
   });
 
   it('refuses an answer that is not a roster report', async () => {
-    const fetch = fakeFetch(() => ({ status: 200, body: { report: { added: [] } } }));
+    const fetch = fakeFetch(() => ({ status: 200, body: { report: { invited: [] } } }));
     const failure = await createClassesApi(createHttp({ fetchImpl: fetch.impl }))
       .uploadRoster(CLASS_ID, new File([''], 'roster.csv'))
       .catch((e: unknown) => e);
@@ -55,12 +55,15 @@ describe('the invitation calls', () => {
     await invitations.lookup(token).catch(() => undefined);
     await invitations.accept({ token, name: 'Lee Moss', password: 'long enough pass' }).catch(() => undefined);
     expect(fetch.calls.map((c) => c.url)).toEqual(['/api/auth/invitations/lookup', '/api/auth/invitations/accept']);
+    await invitations.join(token).catch(() => undefined);
+    expect(fetch.calls[2]).toMatchObject({ method: 'POST', url: '/api/auth/invitations/join', body: { token } });
     expect(fetch.calls.every((c) => !c.url.includes(token) && (c.body as { token: string }).token === token)).toBe(true);
-    expect(onUnauthenticated).not.toHaveBeenCalled();
+    // Joining is made signed in: a 401 there is a session that ended.
+    expect(onUnauthenticated).toHaveBeenCalledTimes(1);
   });
 
   it('answers the invitation, the signed-in user, and the instructor invitation sent', async () => {
-    const view = { email: 'lee.moss@larch-hollow.example', role: 'student', name: 'Lee Moss', className: 'Motor Control 1', expiresAt: '2026-03-17T09:00:00.000Z' };
+    const view = { email: 'lee.moss@larch-hollow.example', role: 'student', name: 'Lee Moss', classId: CLASS_ID, className: 'Motor Control 1', expiresAt: '2026-03-17T09:00:00.000Z', hasAccount: false };
     const sent = { email: 'r.holt@larch-hollow.example', role: 'instructor', expiresAt: '2026-03-17T09:00:00.000Z' };
     const fetch = fakeFetch((call) => {
       if (call.url.endsWith('/lookup')) return { status: 200, body: { invitation: view } };

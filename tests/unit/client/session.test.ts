@@ -59,12 +59,41 @@ describe('the session store', () => {
     expect(expired).not.toHaveBeenCalled();
   });
 
-  it('forgets the user on sign-out even when the server cannot be reached', async () => {
+  it('signs out with a bodiless POST and forgets the user once the server has ended the session', async () => {
+    const fetch = serve((call) => (call.url === '/api/auth/sign-out' ? { status: 204 } : { status: 200, body: { user: ANA } }));
+    const session = useSessionStore();
+    await session.refresh();
+    await session.signOut();
+    expect(session.user).toBeNull();
+    expect(session.checked).toBe(true);
+    const out = fetch.calls.find((c) => c.url === '/api/auth/sign-out');
+    expect(out).toMatchObject({ method: 'POST', body: undefined });
+    expect(out?.headers['Content-Type']).toBeUndefined();
+  });
+
+  it('stays signed in when the server cannot be reached: the session is still open there', async () => {
     serve((call) => (call.url === '/api/auth/sign-out' ? 'network-down' : { status: 200, body: { user: ANA } }));
     const session = useSessionStore();
     await session.refresh();
     await expect(session.signOut()).rejects.toMatchObject({ code: 'network' });
+    expect(session.user).toEqual(ANA);
+  });
+
+  it('stays signed in when the server fails to sign out (5xx)', async () => {
+    serve((call) => (call.url === '/api/auth/sign-out' ? { status: 500, body: { error: { code: 'internal', message: 'Something went wrong on the server.' } } } : { status: 200, body: { user: ANA } }));
+    const session = useSessionStore();
+    await session.refresh();
+    await expect(session.signOut()).rejects.toMatchObject({ code: 'internal' });
+    expect(session.user).toEqual(ANA);
+  });
+
+  it('signs out everywhere and forgets the user', async () => {
+    const fetch = serve((call) => (call.url === '/api/auth/sign-out-everywhere' ? { status: 204 } : { status: 200, body: { user: ANA } }));
+    const session = useSessionStore();
+    await session.refresh();
+    await session.signOutEverywhere();
     expect(session.user).toBeNull();
+    expect(fetch.calls.map((c) => `${c.method} ${c.url}`)).toEqual(['GET /api/me', 'POST /api/auth/sign-out-everywhere']);
   });
 
   it('forgets the user on expiry without asking the server again', async () => {

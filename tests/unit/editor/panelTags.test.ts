@@ -6,7 +6,7 @@ describe('default tags from the reversing-conveyor panel', () => {
   const tags = panelTags(REVERSING_CONVEYOR);
   const byName = Object.fromEntries(tags.map((t) => [t.name, t.address]));
 
-  it('names each input device by its reference designation, as wired in DESIGN.md', () => {
+  it('names each input device by its reference designation, as wired in docs/names-and-rules.md', () => {
     expect(byName).toMatchObject({ S1: '%IX1', S2: '%IX2', S3: '%IX3', S4: '%IX4', B1: '%IX5', F1: '%IX6' });
   });
 

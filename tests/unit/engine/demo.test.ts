@@ -5,7 +5,7 @@ import { planOf } from './build';
 
 /**
  * The reversing conveyor (demo data) on an engine-only harness: inputs set directly. At rest the
- * stop button's NC contact is closed, so %IX1 reads TRUE (DESIGN.md, common practice).
+ * stop button's NC contact is closed, so %IX1 reads TRUE (docs/names-and-rules.md, common practice).
  */
 function atRest(): Runtime {
   const rt = createRuntime(planOf(demoProgram()));

@@ -46,7 +46,7 @@ interface Decoded {
   localTypes: Set<number>;
 }
 
-const MEMORY_ACCESS = new Set<number>([OP.i32Load, OP.i64Load, OP.f64Load, OP.i32Load8U, OP.i32Load16U, OP.i32Store, OP.i64Store, OP.f64Store, OP.i32Store8, OP.i32Store16]);
+const MEMORY_ACCESS = new Set<number>([OP.i32Load, OP.f64Load, OP.i32Store, OP.f64Store]);
 const LOCAL = new Set<number>([OP.localGet, OP.localSet, OP.localTee]);
 
 function decode(bytes: Uint8Array): Decoded {

@@ -144,7 +144,7 @@ describe('contactor', () => {
   });
 });
 
-describe('mechanical interlock rule (DESIGN.md)', () => {
+describe('mechanical interlock rule (docs/names-and-rules.md)', () => {
   it('holds the other contactor open once one is engaged', () => {
     expect(interlockRule(true, true, true, false)).toEqual({ blockA: false, blockB: true, conflict: false });
   });

@@ -24,7 +24,7 @@ function errorsOf(json: unknown): string[] {
 describe('the default panel layout reversing-conveyor', () => {
   const byId = new Map(REVERSING_CONVEYOR.devices.map((d) => [d.id, d]));
 
-  it('wires each device to the address DESIGN.md gives', () => {
+  it('wires each device to the address docs/names-and-rules.md gives', () => {
     const feeds = Object.fromEntries(REVERSING_CONVEYOR.devices.filter((d) => d.feeds).map((d) => [d.feeds, `${d.id} ${d.contact ?? ''}`.trim()]));
     expect(feeds).toEqual({
       '%IX1': 'S1',

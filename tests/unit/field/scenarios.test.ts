@@ -1,5 +1,5 @@
 /**
- * The facts of the trade the simulator must honour (DESIGN.md, common practice): each scenario
+ * The facts of the trade the simulator must honour (docs/names-and-rules.md, common practice): each scenario
  * runs a program on the default panel and looks at the field, not just at the program's bits.
  */
 import { describe, expect, it } from 'vitest';
@@ -84,7 +84,7 @@ describe('common practice: the overload has the last word', () => {
     expect(sim.word('F1')).toBe('tripped');
     expect(sim.word('K1')).toBe('open');
     const trip = sim.events().find((e) => e.kind === 'overload');
-    // 8.0 s from cold (REFERENCES.md, class 10); the starting current and 1 s at full load warmed it a little first.
+    // 8.0 s from cold (docs/published-values.md, class 10); the starting current and 1 s at full load warmed it a little first.
     expect(trip?.message).toMatch(/^F1 tripped at 7\.2 × setting after 7\.[5-9] s$/);
   });
 });

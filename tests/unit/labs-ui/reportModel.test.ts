@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { redactReport, runChecks, type GradeReport } from '@shared/checks';
+import { redactReport, runChecks, studentScript, type CheckResult, type GradeReport } from '@shared/checks';
 import { REVERSING_CONVEYOR } from '@shared/field';
-import { THREE_WIRE } from '@shared/labs';
-import { formatValue, presentReport, visibleOnly } from '@/components/labs/reportModel';
+import { THREE_WIRE, WARNING_HORN } from '@shared/labs';
+import { formatValue, presentReport } from '@/components/labs/reportModel';
 import { replayTo, replayableScript } from '@/components/labs/replay';
 import { createSimulatorSession } from '@/simulation/session';
 
@@ -40,6 +40,20 @@ describe('the grade report on screen', () => {
     expect(shown.scoreText).toBe('11 / 11');
   });
 
+  it('shows on the student\'s report the visible score a self-check of the same program shows', () => {
+    for (const program of [THREE_WIRE.starter, THREE_WIRE.solution]) {
+      const self = runChecks({ program, panel: REVERSING_CONVEYOR, script: studentScript(replayableScript(THREE_WIRE.script)!).script });
+      if (!self.ok) throw new Error(self.errors.join('; '));
+      const selfShown = presentReport(self.report);
+      const reportShown = presentReport(redactReport(grade(program)));
+      expect(reportShown.visibleText).toBe(selfShown.scoreText);
+      expect(selfShown.visibleText).toBe(selfShown.scoreText);
+    }
+    expect(presentReport(redactReport(grade(THREE_WIRE.solution))).visibleText).toBe('7 / 7');
+    // An instructor's full report counts only the checks not hidden.
+    expect(presentReport(grade(THREE_WIRE.solution)).visibleText).toBe('7 / 7');
+  });
+
   it('counts the hidden checks a student failed', () => {
     const shown = presentReport(redactReport(grade()));
     expect(shown.hidden!.failed + shown.hidden!.passed).toBe(3);
@@ -63,12 +77,6 @@ describe('the grade report on screen', () => {
     expect(formatValue({ min: 5 })).toBe('≥ 5');
     expect(formatValue(null)).toMatch(/^nothing/);
   });
-
-  it('keeps only the visible checks for a self-check', () => {
-    const visible = visibleOnly(THREE_WIRE.script);
-    expect(visible.steps.filter((s) => 'expect' in s)).toHaveLength(5);
-    expect(visible.steps.length).toBe(THREE_WIRE.script.steps.length - 3);
-  });
 });
 
 describe('"show me": replaying a check run in the simulator', () => {
@@ -88,7 +96,36 @@ describe('"show me": replaying a check run in the simulator', () => {
     }
   });
 
+  it('replays the self-check script to each visible check of a student report, at the time the grader saw it', () => {
+    // The warning-horn lab has a hidden check between two waits, which the student's script joins.
+    const graded = runChecks({ program: WARNING_HORN.starter, panel: REVERSING_CONVEYOR, script: WARNING_HORN.script });
+    if (!graded.ok) throw new Error(graded.errors.join('; '));
+    const script = studentScript(replayableScript(WARNING_HORN.script)!).script;
+    const visible = redactReport(graded.report).checks.filter((c): c is CheckResult => 'label' in c);
+    expect(visible).toHaveLength(4);
+    for (const check of visible) {
+      const session = createSimulatorSession({ program: WARNING_HORN.starter, panel: REVERSING_CONVEYOR, scanMs: script.scanMs });
+      expect(replayTo(session, script, check.index).virtualMs, check.label).toBe(check.atMs);
+      expect(script.steps[check.index - 1], check.label).toMatchObject({ label: check.label });
+    }
+  });
+
   it('has nothing to replay for a script that does not parse', () => {
     expect(replayableScript({ steps: [] })).toBeNull();
+  });
+});
+
+describe('a check over time in the report', () => {
+  it('says in words where a never/always broke and when an until held', () => {
+    const run = runChecks({
+      program: THREE_WIRE.solution,
+      panel: REVERSING_CONVEYOR,
+      script: { steps: [{ press: 'S2' }, { during: 500, never: { K1: 'closed' } }, { until: { K1: 'open' }, within: [0, 100] }, { release: 'S2' }, { press: 'S1' }, { until: { K1: 'open' }, within: [0, 200] }] },
+    });
+    if (!run.ok) throw new Error(run.errors.join());
+    const notes = presentReport(run.report).rows.map((r) => r.note);
+    expect(notes[0]).toMatch(/^never over 500 ms: first broken at \d+ ms \(scan \d+\), values read there$/);
+    expect(notes[1]).toBe('never held (wanted between 0 and 100 ms)');
+    expect(notes[2]).toMatch(/^first held after \d+ ms \(wanted between 0 and 200 ms\)$/);
   });
 });

@@ -5,6 +5,7 @@ import { STANDARD_LABS, THREE_WIRE } from '@shared/labs';
 import { STEP_ACTIONS, type StepAction } from '@shared/checks';
 import {
   changeAction,
+  describeDraftStep,
   devicesFor,
   draftAction,
   expectTargets,
@@ -46,7 +47,8 @@ describe('the check-script editor model', () => {
 
   it('makes a new step of every action that the shared validator accepts on the default panel', () => {
     for (const action of STEP_ACTIONS) {
-      const script: DraftScript = { panel: panel.id, steps: [newStep(action, panel)] };
+      // Ended by a check: a script without one is refused.
+      const script: DraftScript = { panel: panel.id, steps: [newStep(action, panel), { expect: { K1: 'open' } }] };
       expect(validateScript(script, panel), action).toMatchObject({ ok: true, errors: [] });
       expect(draftAction(script.steps[0]!)).toBe(action);
     }
@@ -130,8 +132,30 @@ describe('the check-script editor model', () => {
     expect(fixed.byStep.has(1)).toBe(false);
   });
 
+  it('shows the timed checks, forces and preheat as readable text, and counts the points of every check', () => {
+    const steps: DraftStep[] = [
+      { during: 5000, never: { K1: 'closed', K2: 'closed' }, label: 'never both', points: 2 },
+      { until: { F1: 'tripped' }, within: [4001, 10000], hidden: true },
+      { force: '%IX2', to: true },
+      { unforce: 'all' },
+      { unforce: '%IX2' },
+      { preheat: 'F1', factor: 1 },
+    ];
+    expect(steps.map(describeDraftStep)).toEqual([
+      'check “never both”: never K1 closed, K2 closed for 5000 ms (2 pts)',
+      'check: F1 tripped first between 4001 and 10000 ms (1 pt, hidden)',
+      'force %IX2 to true',
+      'remove every force',
+      'remove the force on %IX2',
+      'preheat F1 (steady at 1 × its setting)',
+    ]);
+    expect(totalPoints({ panel: panel.id, steps })).toBe(3);
+    expect(devicesFor('preheat', panel).map((d) => d.id)).toEqual(['F1']);
+    expect(devicesFor('force', panel)).toEqual([]);
+  });
+
   it('files a script-wide problem under step 0', () => {
-    const result = validateScript({ panel: 'other-panel', steps: [{ wait: 1 }] }, panel);
+    const result = validateScript({ panel: 'other-panel', steps: [{ wait: 1 }, { expect: { K1: 'open' } }] }, panel);
     expect(result.byStep.get(0)).toEqual(['the script is written for panel "other-panel", but the panel given is "reversing-conveyor"']);
   });
 });

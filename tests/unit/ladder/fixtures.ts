@@ -30,7 +30,7 @@ export function program(rungs: Rung[], tags: Tag[] = []): Program {
   return { format: 'rungwright.program', version: 1, title: 'Demo: Larch Hollow conveyor', description: '', tags, rungs };
 }
 
-/** The demo tags of the reversing-conveyor panel (DESIGN.md). */
+/** The demo tags of the reversing-conveyor panel (docs/names-and-rules.md). */
 export const CONVEYOR_TAGS: Tag[] = [
   tag('S1', '%IX1', 'stop, NC'),
   tag('S2', '%IX2', 'forward'),

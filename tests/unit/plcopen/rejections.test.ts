@@ -52,6 +52,20 @@ describe('refusing unsafe or broken input before parsing', () => {
     expect(errorOf(project(contact(2, from(1), '&nbsp;') + rail))).toMatch(/: the entity reference "&nbsp;" is not defined in XML$/);
   });
 
+  it('refuses a character XML does not allow, NUL above all, with where it is', () => {
+    // XML 1.0 (Fifth Edition), 2.2 Characters, production [2] Char: no C0 control but tab, LF, CR.
+    const xml = project(rail + contact(2, from(1), '%IX1\u0000'));
+    expect(errorOf(xml)).toMatch(/^line \d+, column \d+: the character U\+0000 \(NUL\) is not allowed in XML$/);
+    expect(errorOf(project(rail).replace('<project', '\u0001<project'))).toBe('line 2, column 1: the character U+0001 is not allowed in XML');
+    expect(errorOf(project(rail + contact(2, from(1), 'A\uD800B')))).toMatch(/the character U\+D800 is not allowed in XML$/);
+  });
+
+  it('refuses a character reference to a character XML does not allow', () => {
+    expect(errorOf(project(rail + contact(2, from(1), '%IX&#0;')))).toMatch(/: the character reference "&#0;" names U\+0000 \(NUL\), which is not allowed in XML$/);
+    expect(errorOf(project(rail + contact(2, from(1), '%IX&#x1F;')))).toMatch(/names U\+001F, which is not allowed/);
+    expect(errorOf(project(rail + contact(2, from(1), '%IX&#99999999999;')))).toMatch(/which is not allowed in XML$/);
+  });
+
   it('refuses a bare ampersand', () => {
     expect(errorOf(project(contact(2, from(1), 'A & B') + rail))).toMatch(/: a bare "&" must be written &amp;$/);
   });

@@ -9,7 +9,7 @@ function roundTrip(p: Program): { program: Program; warnings: string[] } {
   return result.value;
 }
 
-/** Demo data: the Larch Hollow Timber Co. reversing conveyor (invented scenario, DESIGN.md). */
+/** Demo data: the Larch Hollow Timber Co. reversing conveyor (invented scenario, docs/names-and-rules.md). */
 function reversingConveyor(): Program {
   const b = createBuilders();
   return program(
