@@ -23,6 +23,7 @@ import {
   type Operand,
   type SymbolTable,
 } from './operands';
+import type { Result } from './result';
 import type { Block, Coil, Contact, Program, Rung } from './schema';
 import { checkRungShape } from './shape';
 import { looksLikeTimeLiteral } from './time';
@@ -33,6 +34,8 @@ interface Context {
   symbols: SymbolTable;
   space: AddressSpace;
   found: Diagnostic[];
+  /** Each distinct operand text resolved once (a long program repeats a few hundred texts thousands of times). */
+  resolved: Map<string, Result<Operand>>;
 }
 
 interface Place {
@@ -57,7 +60,11 @@ function resolveErrorCode(text: string, symbols: SymbolTable): DiagnosticCode {
 
 /** Resolve an operand, reporting failures and out-of-range addresses; null when unusable. */
 function resolveAt(text: string, place: Place, ctx: Context): Operand | null {
-  const resolved = resolveOperand(text, ctx.symbols);
+  let resolved = ctx.resolved.get(text);
+  if (resolved === undefined) {
+    resolved = resolveOperand(text, ctx.symbols);
+    ctx.resolved.set(text, resolved);
+  }
   if (!resolved.ok) {
     ctx.found.push(createDiagnostic(resolveErrorCode(text, ctx.symbols), { operand: text.trim(), reason: resolved.error }, place));
     return null;
@@ -189,10 +196,30 @@ function checkBlock(block: Block, place: Place, ctx: Context): void {
   }
 }
 
-/** Validate a program against a panel's address space. */
+/**
+ * Results already worked out, per document object and address space. Documents are immutable
+ * (every edit makes a new object), so the same object always validates the same: the editor's
+ * validation of an edit and the engine's compile of that same document then cost one validation,
+ * not two. Entries go with their document (a WeakMap); results are frozen, as they are shared.
+ */
+const validated = new WeakMap<Program, Map<string, readonly Diagnostic[]>>();
+const spaceKey = (space: AddressSpace): string => `${space.inputs}/${space.outputs}/${space.memory}`;
+
+/** Validate a program against a panel's address space (once per document object and space; see `validated`). */
 export function validateProgram(program: Program, space: AddressSpace = DEFAULT_ADDRESS_SPACE): Diagnostic[] {
+  const key = spaceKey(space);
+  let bySpace = validated.get(program);
+  const known = bySpace?.get(key);
+  if (known !== undefined) return known as Diagnostic[];
+  const found = Object.freeze(findProblems(program, space));
+  if (bySpace === undefined) validated.set(program, (bySpace = new Map()));
+  bySpace.set(key, found);
+  return found as Diagnostic[];
+}
+
+function findProblems(program: Program, space: AddressSpace): Diagnostic[] {
   const symbols = buildSymbolTable(program);
-  const ctx: Context = { symbols, space, found: validateTags(program.tags, space) };
+  const ctx: Context = { symbols, space, found: validateTags(program.tags, space), resolved: new Map() };
   const firstInstance = new Map<string, { type: Block['type']; rung: number }>();
   const lastWriter = new Map<string, number>();
 

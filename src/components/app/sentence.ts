@@ -7,8 +7,3 @@ export function asSentence(text: string): string {
   const capitalised = `${text.charAt(0).toUpperCase()}${text.slice(1)}`;
   return /[.!?]$/.test(capitalised) ? capitalised : `${capitalised}.`;
 }
-
-/** A count with its noun: "1 student", "3 students", "0 students". `many` for irregular plurals. */
-export function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n} ${n === 1 ? one : many}`;
-}

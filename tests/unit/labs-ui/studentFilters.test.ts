@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import type { LabStudentRow } from '@shared/api/teaching';
 import { filterFrom, matchesFilter, neighbours, reviewOrder, studentListLink } from '@/components/teaching/studentFilters';
 import { mailPieces } from '@/components/admin/mailText';
-import { plural } from '@/components/app/sentence';
 
 const row = (name: string, over: Partial<LabStudentRow> = {}): LabStudentRow => ({
   student: { id: name, name, email: `${name.toLowerCase()}@larch-hollow.example` },
@@ -54,11 +53,5 @@ describe('a mail as pieces', () => {
       { kind: 'text', text: '.' },
     ]);
     expect(mailPieces('<b>no markup</b> javascript:alert(1)', 'http://x')).toEqual([{ kind: 'text', text: '<b>no markup</b> javascript:alert(1)' }]);
-  });
-});
-
-describe('plural', () => {
-  it('says 1 student, 0 students, 2 students', () => {
-    expect([plural(1, 'student'), plural(0, 'student'), plural(2, 'student'), plural(2, 'person', 'people')]).toEqual(['1 student', '0 students', '2 students', '2 people']);
   });
 });
