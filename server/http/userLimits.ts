@@ -1,6 +1,6 @@
 /**
  * Per-user limits on the calls that cost the server real work: exports, imports, gradings (trial
- * runs, submissions, regrades) and uploads. Counted in the database (`db/rateCounters.ts`), so
+ * runs, submissions, regrades), uploads and database backups. Counted in the database (`db/rateCounters.ts`), so
  * every app process sharing it counts the same calls. Past the limit the call is answered 429 with
  * `Retry-After` (seconds) and a sentence saying how long to wait; nothing runs.
  *
@@ -12,7 +12,7 @@ import type { AppContext } from '../context';
 import { countAttempt } from '../db/rateCounters';
 import { sendFailure } from './errorHandler';
 
-export type LimitedWork = 'export' | 'import' | 'grading' | 'upload';
+export type LimitedWork = 'export' | 'import' | 'grading' | 'upload' | 'backup';
 
 export interface UserLimit {
   /** Calls allowed per window. */
@@ -29,6 +29,8 @@ export const USER_LIMITS = {
   import: { limit: 20, windowMs: FIVE_MINUTES, what: 'imports' },
   grading: { limit: 30, windowMs: FIVE_MINUTES, what: 'gradings (trial runs, submissions and regrades)' },
   upload: { limit: 20, windowMs: FIVE_MINUTES, what: 'uploads' },
+  // A dump copies the whole database: a few a day is plenty.
+  backup: { limit: 3, windowMs: FIVE_MINUTES, what: 'backups' },
 } as const satisfies Record<LimitedWork, UserLimit>;
 
 /** Which route counts against which limit. */
@@ -40,6 +42,7 @@ export const LIMITED_ROUTES: readonly { method: 'get' | 'post'; path: string; wo
   { method: 'post', path: '/labs/:id/regrade', work: 'grading' },
   { method: 'post', path: '/classes/:id/roster', work: 'upload' },
   { method: 'post', path: '/labs/:id/attachments', work: 'upload' },
+  { method: 'get', path: '/admin/backup', work: 'backup' },
 ];
 
 /** `2 min 5 s`, `40 s`. */

@@ -40,17 +40,29 @@ export function adminConsoleRouter(ctx: AppContext): Router {
     res.json({ invitations: await listInvitationEntries(ctx) });
   });
 
-  // PGlite's own dump of the data directory, gzipped; docs/backup.md says how to restore it.
+  // PGlite's own dump of the data directory, gzipped; docs/backup.md says how to restore it. One
+  // at a time: a dump copies the whole database, and two at once only make both slower.
+  let backupRunning = false;
   router.get('/admin/backup', requireRole('admin'), async (_req, res) => {
     if (!ctx.backup) {
       sendFailure(res, { code: 'conflict', message: 'The database is on a PostgreSQL server: back it up there (pg_dump), not from here' });
       return;
     }
-    const tar = Buffer.from(await (await ctx.backup()).arrayBuffer());
-    const body = await gzipAsync(tar);
-    res.type('application/gzip');
-    res.attachment(backupFilename(ctx.clock.now()));
-    res.send(body);
+    if (backupRunning) {
+      res.setHeader('Retry-After', '10');
+      sendFailure(res, { code: 'conflict', message: 'A backup is being made right now; download it again in a moment' });
+      return;
+    }
+    backupRunning = true;
+    try {
+      const tar = Buffer.from(await (await ctx.backup()).arrayBuffer());
+      const body = await gzipAsync(tar);
+      res.type('application/gzip');
+      res.attachment(backupFilename(ctx.clock.now()));
+      res.send(body);
+    } finally {
+      backupRunning = false;
+    }
   });
 
   router.post('/invitations/:id/resend', requireUser, async (req, res) => {
