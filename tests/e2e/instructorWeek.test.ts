@@ -34,6 +34,23 @@ function watch(page: Page, problems: string[]): void {
   });
 }
 
+/**
+ * Presses the page's Print (with the browser's dialog stubbed out: headless has none), then writes
+ * the page as Chromium prints it: a PDF, and a screenshot in print media to look at.
+ */
+async function printToPdf(page: Page, name: string): Promise<void> {
+  await page.evaluate(() => {
+    window.print = () => undefined;
+  });
+  await page.getByRole('button', { name: /^Print/ }).first().click();
+  await page.getByTestId('print-sheet').locator('img').waitFor({ state: 'attached' });
+  const pdf = await page.pdf({ path: `${SHOTS}/${name}.pdf`, format: 'A4', printBackground: true, margin: { top: '15mm', bottom: '15mm', left: '12mm', right: '12mm' } });
+  expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+  await page.emulateMedia({ media: 'print' });
+  await page.screenshot({ path: `${SHOTS}/${name}-print-media.png`, fullPage: true });
+  await page.emulateMedia({ media: 'screen' });
+}
+
 /** The student whose submission the review page shows. */
 async function reviewedStudent(page: Page): Promise<string> {
   await page.getByRole('navigation', { name: 'Students of this lab' }).waitFor();
@@ -96,6 +113,11 @@ describe('the instructor’s week', () => {
     await page.keyboard.press('p');
     await expect.poll(() => reviewedStudent(page)).toBe(NAMES[1]);
 
+    // ── Print this submission: checked as a PDF (Chromium's page.pdf) and as a print-media screenshot. ──
+    await printToPdf(page, 'print-submission');
+    const sheet = page.getByTestId('print-sheet');
+    for (const text of [NAMES[1]!, DEMO_CLASS.name, FORWARD_REVERSE.title, 'Version', 'Grade report', 'Tags', 'Rungs', 'K1_Coil']) expect(await sheet.innerText()).toContain(text);
+
     // ── Return all three with one note. ──
     await page.goBack();
     await page.goBack();
@@ -135,4 +157,32 @@ describe('the instructor’s week', () => {
     expect(problems).toEqual([]);
     await context.close();
   }, 240_000);
+
+  it('prints a student’s own program with their name, class, lab, version, date, tags and rungs', async () => {
+    const context = await suite.browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const ana = DEMO_STUDENTS[0]!;
+    const page = await signInThroughPage(context, suite.server.url, ana);
+    await page.getByRole('link', { name: 'Forward/reverse (demo)', exact: true }).click();
+    await page.waitForURL(/\/programs\/[^/]+$/);
+    await page.getByRole('button', { name: /^Print/ }).waitFor();
+    await printToPdf(page, 'print-program');
+    const text = await page.getByTestId('print-sheet').innerText();
+    for (const part of [ana.name, DEMO_CLASS.name, FORWARD_REVERSE.title, 'Version', 'Printed', 'Tags', 'Rungs', 'Stop_PB']) expect(text).toContain(part);
+    await context.close();
+  }, 120_000);
+
+  it('explains the simulator to a signed-out visitor, linked from the sign-in page, with only lab-sized demos', async () => {
+    const context = await suite.browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await context.newPage();
+    await page.goto(`${suite.server.url}/sign-in`, { waitUntil: 'networkidle' });
+    await page.getByRole('link', { name: 'Try the simulator without an account' }).click();
+    await page.waitForURL(/\/simulator$/);
+    const about = page.getByTestId('simulator-about');
+    await about.getByText('Nothing is saved here.').waitFor();
+    expect(await page.getByLabel('Demo program').locator('option').allInnerTexts()).toEqual(['Three-wire reversing (demo)', 'Two-wire (demo)']);
+    await shoot(page, 'simulator-signed-out');
+    await about.getByRole('link', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/sign-in$/);
+    await context.close();
+  }, 60_000);
 });
