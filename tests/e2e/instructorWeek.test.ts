@@ -92,11 +92,14 @@ describe('the instructor’s week', () => {
     // ── Grade three submissions: feedback on each, moving on with the button, then the keys. ──
     const seen: string[] = [];
     for (const [i, how] of (['button', 'key', 'last'] as const).entries()) {
+      // The page shows the one before until the next one has loaded.
+      await expect.poll(() => reviewedStudent(page)).not.toBe(seen.at(-1));
       const name = await reviewedStudent(page);
       seen.push(name);
       await page.getByLabel('Feedback').fill(`Checked by hand (${i + 1}).`);
+      const saved = await page.getByText('Feedback saved.').count();
       await page.getByRole('button', { name: 'Save feedback' }).click();
-      await page.getByText('Feedback saved.').waitFor();
+      await expect.poll(() => page.getByText('Feedback saved.').count()).toBe(saved + 1);
       if (i === 0) await shoot(page, 'review-with-navigation');
       const url = page.url();
       if (how === 'button') await page.getByRole('button', { name: 'Next student →' }).click();
