@@ -58,7 +58,8 @@ async function signedInContext(account: DemoAccount): Promise<{ context: Browser
   const page = await context.newPage();
   await page.goto(`${suite.server.url}/sign-in`, { waitUntil: 'networkidle' });
   await signIn(page, account);
-  await page.waitForURL(/\/programs$/);
+  // Each role lands on its own page: a student on their programs, the admin on the console.
+  await page.waitForURL(/\/(programs|overview|admin)$/);
   return { context, page };
 }
 
