@@ -268,6 +268,18 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
       states: [...states],
       inputs: inputs.map((x) => ({ ...x })),
     }),
+    fieldStates(into = new Array<unknown>(states.length)) {
+      for (let i = 0; i < states.length; i += 1) into[i] = states[i];
+      return into;
+    },
+    loadFieldStates(next) {
+      for (let i = 0; i < states.length; i += 1) {
+        if (states[i] === next[i]) continue;
+        states[i] = next[i];
+        words[i] = models[i]!.word(states[i], params[i]);
+        refresh(i);
+      }
+    },
     restoreField(snapshot) {
       const fits =
         snapshot.panelId === wiring.panel.id &&

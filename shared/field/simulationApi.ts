@@ -83,4 +83,11 @@ export interface Simulation {
   fieldSnapshot(): FieldSnapshot;
   /** Put back a field snapshot of the same panel; false, and nothing changed, when it does not fit. */
   restoreField(snapshot: FieldSnapshot): boolean;
+  /**
+   * The device states alone, in layout order, into `into` when given (no allocation then): for a
+   * search over many states (shared/proof), where the per-device inputs are recomputed every scan.
+   */
+  fieldStates(into?: unknown[]): unknown[];
+  /** Put back device states from `fieldStates` of this simulation (contacts and words follow). */
+  loadFieldStates(states: readonly unknown[]): void;
 }

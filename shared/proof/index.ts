@@ -1,0 +1,5 @@
+/** Proof: every behaviour of a program on a panel explored, properties decided with replayed counterexamples. */
+export * from './property';
+export { ABSTRACTIONS } from './abstraction';
+export { prove, DEFAULT_MAX_STATES, type PropertyResult, type ProveOptions, type ProveResult, type Verdict } from './prove';
+export { proofReport, PROOF_REPORT_FORMAT, proofExitCode, type ProofReport } from './report';
