@@ -1,6 +1,7 @@
 /**
  * Breadth-first search over the model of `model.ts`: from the power-up state, every set of moves
- * the environment can make before each scan, one scan per level. The first state found that hits
+ * the environment can make before each scan, one scan per level. Goals watch the state after
+ * every scan. The first state found that hits
  * a goal is therefore reached in the fewest scans (the shortest counterexample or witness in
  * time). The search ends when every reachable state has been visited (a complete search), when
  * the state budget is spent or when the caller's `shouldStop` says so (a cut search, whose
@@ -83,10 +84,9 @@ export function search(model: ProofModel, goals: readonly Goal[], options: Searc
     moves: NO_MOVES,
     depth: 0,
   };
-  for (const g of observe(goals.map((goal) => goal.initial), root)) {
-    hits[g] = root;
-    open -= 1;
-  }
+  // Power-up is not observed: a property speaks of the states after each scan, as the program
+  // has run at least once there (at power-up every output is off, every lamp dark).
+  root.monitors.push(...goals.map((goal) => goal.initial));
   const keyOf = (bytes: Uint8Array, field: readonly unknown[], monitors: readonly number[]): string =>
     `${model.engineKey(bytes)}|${model.fieldKey(field)}|${monitors.join(',')}`;
   const visited = new Set<string>([keyOf(root.bytes, root.field, root.monitors)]);
@@ -95,8 +95,6 @@ export function search(model: ProofModel, goals: readonly Goal[], options: Searc
   let transitions = 0;
   let depth = 0;
   const done = (complete: boolean, cutBy: SearchResult['cutBy']): SearchResult => ({ complete, cutBy, states: visited.size, transitions, depth, hits });
-  if (open === 0) return done(true, null);
-
   const active = model.active;
   const monitors = { monitors: new Array<number>(goals.length).fill(0) };
   const choice = new Int32Array(active.length);
