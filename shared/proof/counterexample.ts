@@ -69,7 +69,9 @@ export function counterexampleScript(property: Property, label: string, hit: Sea
   const base = { panel: ctx.panelId, scanMs: ctx.scanMs, settleMs: 0, title: `Counterexample: ${label}` };
   if ('after' in property) {
     // Back from the violation to the scan where the oldest waiting trigger became true.
-    let trigger = last - 1;
+    // The hit is the first scan past the window: the script covers the window up to the scan before.
+    const end = last - 1;
+    let trigger = end;
     while (trigger > 0 && monitorAge(path[trigger]!.monitors[goalIndex]!) !== 0) trigger -= 1;
     const steps: Step[] = replaySteps(path, 0, trigger, ctx);
     steps.push({ expect: ctx.actual(path[trigger]!, keysOf(property.after, property.expect)), label: `the trigger becomes true: ${label}` });
@@ -79,7 +81,7 @@ export function counterexampleScript(property: Property, label: string, hit: Sea
       if (scans > 0) steps.push({ during: scans * ctx.scanMs, never: property.expect, label: `still not as expected: ${label}` });
       scans = 0;
     };
-    for (let i = trigger + 1; i <= last; i += 1) {
+    for (let i = trigger + 1; i <= end; i += 1) {
       const node = path[i]!;
       if (node.moves.length > 0) {
         flush();

@@ -3,7 +3,8 @@
  * condition holds, `always` where `when` holds and `always` does not, `reachable` where its
  * condition holds. `after … within … expect` has a monitor: whether the trigger held in the state
  * before (to see it become true) and the age in scans of the oldest trigger still waiting for the
- * expectation; it is hit in the first state where that age passes the window.
+ * expectation; it is hit in the first state after the window (the counterexample stops at the
+ * window's last scan).
  */
 import type { Expectation } from '../checks/script';
 import type { Simulation } from '../field/simulation';
@@ -67,10 +68,11 @@ export function goalOf(sim: Simulation, property: Property): Goal {
       const before = (monitor & 1) === 1;
       let age = monitorAge(monitor);
       if (age >= 0) age += 1;
+      // The first scan past the window with a trigger still waiting: too late, whatever it shows.
+      if (age > limit) return HIT;
       const now = trigger();
       if (expected()) age = -1;
       else if (now && !before && age < 0) age = 0;
-      if (age > limit) return HIT;
       return ((age + 1) << 1) | (now ? 1 : 0);
     },
   };
