@@ -30,6 +30,8 @@ export interface PropertyResult {
   verdict: Verdict;
   /** States visited by the search that decided it. */
   states: number;
+  /** Scans simulated by that search (each state is left by one scan per set of moves). */
+  transitions: number;
   /** Scans from power-up the search covered completely. */
   depth: number;
   /** Why `unknown`. */
@@ -135,7 +137,7 @@ export function prove(options: ProveOptions): ProveResult {
 
 function decide(property: Property, found: SearchResult, hit: SearchNode | null, goal: number, model: ProofModel, options: ProveOptions, scanMs: number): PropertyResult {
   const label = propertyLabel(property);
-  const base = { label, states: found.states, depth: found.depth };
+  const base = { label, states: found.states, transitions: found.transitions, depth: found.depth };
   const reachable = 'reachable' in property;
   if (hit === null) {
     if (found.complete) return { ...base, verdict: reachable ? 'unreachable' : 'proved' };
