@@ -102,7 +102,6 @@ export function search(model: ProofModel, goals: readonly Goal[], options: Searc
     const node = queue[head]!;
     head += 1;
     depth = node.depth;
-    if (visited.size >= options.maxStates) return done(false, 'states');
     if ((head & 255) === 0 && options.shouldStop?.({ states: visited.size, depth }) === true) return done(false, 'stopped');
     const options_ = active.map((d) => model.movesOf(d, node.field[d]));
     choice.fill(0);
@@ -131,6 +130,7 @@ export function search(model: ProofModel, goals: readonly Goal[], options: Searc
         const found = observe(node.monitors, monitors);
         const key = keyOf(after.bytes, after.field, monitors.monitors);
         if (!visited.has(key) || found.length > 0) {
+          if (visited.size >= options.maxStates) return done(false, 'states');
           visited.add(key);
           const child: SearchNode = {
             bytes: after.bytes.slice(),
