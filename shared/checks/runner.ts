@@ -16,6 +16,7 @@ import { isCheckStep, stepAction, stepSpanMs, type CheckScript, type CheckStep, 
 import { preheatedState, type OverloadState } from '../field/devices/overload';
 import { describeStep } from './stepWords';
 import { createChangeTrace, type ChangeTrace } from './trace';
+import { proveCondition, proveLabel, runProveStep } from './proveStep';
 
 export interface CheckLimits {
   /** Total virtual time a script may run, in ms (settling included). */
@@ -79,12 +80,14 @@ export function runChecks(options: RunChecksOptions): RunChecksResult {
 function conditionOf(step: CheckStep): Record<string, Expectation> {
   if ('expect' in step) return step.expect;
   if ('until' in step) return step.until;
+  if ('prove' in step) return proveCondition(step);
   return step.never ?? step.always ?? {};
 }
 
 /** "never K1 closed, K2 closed during 5000 ms", "until F1 tripped within 4000..10000 ms". */
 function labelOf(step: CheckStep): string {
   if (step.label !== undefined) return step.label;
+  if ('prove' in step) return proveLabel(step);
   const words = defaultLabel(conditionOf(step));
   if ('during' in step) return `${step.never ? 'never' : 'always'} ${words} during ${step.during} ms`;
   if ('until' in step) return `${words} within ${step.within[0]}..${step.within[1]} ms`;
@@ -297,6 +300,18 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
         checks.push(failedCheck(step, number, sim.timeMs, `not reached: ${stoppedBy}`, pending));
         pending = [];
       }
+      return;
+    }
+    if ('prove' in step) {
+      // Every behaviour from power-up: the script's timeline does not move.
+      const program = sim.runtime.plan.program;
+      const replay = (cx: CheckScript): string | null => {
+        const run = runChecks({ program, panel: sim.panel, script: cx });
+        if (!run.ok) return run.errors.join('; ');
+        return run.report.passed ? null : run.report.checks.filter((c) => !c.passed).map((c) => `step ${c.index} (${c.label}) failed`).join('; ');
+      };
+      checks.push(runProveStep(step, resultBase(step, number, sim.timeMs, pending), program, sim.panel, sim.scanMs, replay));
+      pending = [];
       return;
     }
     if (action === 'expect' && 'expect' in step) {

@@ -23,7 +23,8 @@ export type StepAction =
   | 'until'
   | 'force'
   | 'unforce'
-  | 'preheat';
+  | 'preheat'
+  | 'prove';
 
 export const STEP_ACTIONS: readonly StepAction[] = [
   'press',
@@ -41,10 +42,11 @@ export const STEP_ACTIONS: readonly StepAction[] = [
   'force',
   'unforce',
   'preheat',
+  'prove',
 ];
 
 /** The steps that are checks (they earn points); every script needs at least one. */
-export const CHECK_ACTIONS: readonly StepAction[] = ['expect', 'during', 'until'];
+export const CHECK_ACTIONS: readonly StepAction[] = ['expect', 'during', 'until', 'prove'];
 
 /** The longest single wait, in ms of virtual time (10 min). */
 export const MAX_WAIT_MS = 600_000;
@@ -120,6 +122,13 @@ export const UnforceStepSchema = z.strictObject({ unforce: z.string().min(1) });
 /** Start an overload relay "hot": its image at the steady state of running at `factor` × its setting. */
 export const PreheatStepSchema = z.strictObject({ preheat: deviceId, factor: z.number().min(0).max(MAX_PREHEAT_FACTOR) });
 
+/**
+ * A proof as a check (docs/proof.md): passes when the property holds for every behaviour from
+ * power-up, whatever the script's other steps do. The property's shape is checked by
+ * `parseCheckScript` with `PropertySchema` (shared/proof/property.ts, which builds on this file).
+ */
+export const ProveStepSchema = z.strictObject({ prove: z.record(z.string(), z.unknown()), ...checkFields });
+
 export const StepSchema = z.union([
   PressStepSchema,
   ReleaseStepSchema,
@@ -136,6 +145,7 @@ export const StepSchema = z.union([
   ForceStepSchema,
   UnforceStepSchema,
   PreheatStepSchema,
+  ProveStepSchema,
 ]);
 export type Step = z.infer<typeof StepSchema>;
 
@@ -156,16 +166,18 @@ export const STEP_SCHEMAS = {
   force: ForceStepSchema,
   unforce: UnforceStepSchema,
   preheat: PreheatStepSchema,
+  prove: ProveStepSchema,
 } as const satisfies Record<StepAction, z.ZodType<Step>>;
 export type ExpectStep = z.infer<typeof ExpectStepSchema>;
 export type DuringStep = z.infer<typeof DuringStepSchema>;
 export type UntilStep = z.infer<typeof UntilStepSchema>;
+export type ProveStep = z.infer<typeof ProveStepSchema>;
 /** A step that is a check: it has a label, points and may be hidden. */
-export type CheckStep = ExpectStep | DuringStep | UntilStep;
+export type CheckStep = ExpectStep | DuringStep | UntilStep | ProveStep;
 
 /** Is the step a check (`expect`, `during` or `until`)? */
 export function isCheckStep(step: Step): step is CheckStep {
-  return 'expect' in step || 'during' in step || 'until' in step;
+  return 'expect' in step || 'during' in step || 'until' in step || 'prove' in step;
 }
 
 /** The virtual time a step spans by itself, in ms as written: a wait's, a during's, an until's window end. */

@@ -18,6 +18,7 @@ export function describeStep(step: Step): string {
     case 'expect':
     case 'during':
     case 'until':
+    case 'prove':
       return 'check';
     case 'force':
       return `force ${String(s.force)} to ${String(s.to)}`;

@@ -3,7 +3,7 @@
  * (proved, or reached for `reachable`), 1 when one is refuted or unreachable, 3 when one is
  * unknown and none failed (2, bad input, is the caller's).
  */
-import type { PropertyResult } from './prove';
+import type { PropertyResult } from './decide';
 
 export const PROOF_REPORT_FORMAT = 'rungwright.proof-report';
 
