@@ -143,12 +143,12 @@ export function decideProperties(options: ProveOptions, replay: Replay): ProveRe
 
 function decide(property: Property, found: SearchResult, hit: SearchNode | null, goal: number, model: ProofModel, options: ProveOptions, scanMs: number, replay: Replay): PropertyResult {
   const label = propertyLabel(property);
-  const base = { label, states: found.states, transitions: found.transitions, depth: found.depth };
+  const figures = { states: found.states, transitions: found.transitions, depth: found.depth };
   const reachable = 'reachable' in property;
   if (hit === null) {
-    if (found.complete) return { ...base, verdict: reachable ? 'unreachable' : 'proved' };
+    if (found.complete) return { label, verdict: reachable ? 'unreachable' : 'proved', ...figures };
     const why = found.cutBy === 'states' ? `state limit of ${options.maxStates ?? DEFAULT_MAX_STATES} reached` : 'stopped';
-    return { ...base, verdict: 'unknown', reason: `${why} after ${found.states} states; every behaviour up to ${found.depth} scans (${found.depth * scanMs} ms) from power-up was explored without a ${reachable ? 'witness' : 'counterexample'}` };
+    return { label, verdict: 'unknown', ...figures, reason: `${why} after ${found.states} states; every behaviour up to ${found.depth} scans (${found.depth * scanMs} ms) from power-up was explored without a ${reachable ? 'witness' : 'counterexample'}` };
   }
   const ctx: ScriptContext = {
     panelId: model.wiring.panel.id,
@@ -167,7 +167,7 @@ function decide(property: Property, found: SearchResult, hit: SearchNode | null,
   const script = counterexampleScript(property, label, hit, goal, ctx);
   const failed = replay(script);
   if (failed !== null) {
-    return { ...base, verdict: 'unknown', defect: true, reason: `defect: the ${reachable ? 'witness' : 'counterexample'} found did not replay in the simulator (${failed})`, counterexample: script };
+    return { label, verdict: 'unknown', ...figures, defect: true, reason: `defect: the ${reachable ? 'witness' : 'counterexample'} found did not replay in the simulator (${failed})`, counterexample: script };
   }
-  return { ...base, verdict: reachable ? 'reached' : 'refuted', counterexample: script };
+  return { label, verdict: reachable ? 'reached' : 'refuted', ...figures, counterexample: script };
 }
