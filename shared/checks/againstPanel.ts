@@ -10,6 +10,7 @@ import { DEVICE_KINDS, modelOf } from '../field/devices';
 import type { DeviceAction, DeviceKind } from '../field/devices/model';
 import type { DeviceSpec, PanelLayout } from '../field/layout';
 import { conditionsOf, type Property } from '../proof/property';
+import { UNOBSERVABLE_KINDS } from '../proof/abstraction';
 import { isCheckStep, stepAction, type CheckScript, type Expectation } from './script';
 
 /** Memory bits the simulator gives every program (the engine's default space). */
@@ -90,7 +91,9 @@ export function checkScriptAgainstPanel(script: CheckScript, panel: PanelLayout)
       // Parsed against PropertySchema already (parseCheckScript).
       for (const condition of conditionsOf(step.prove as unknown as Property)) {
         for (const [key, value] of Object.entries(condition)) {
-          const problem = checkExpectKey(key, value, panel, byId, at);
+          const device = byId.get(key);
+          const unobservable = device ? UNOBSERVABLE_KINDS[device.kind] : undefined;
+          const problem = unobservable ? `${at}: "${key}" is ${modelOf(device!.kind).noun}: ${unobservable}` : checkExpectKey(key, value, panel, byId, at);
           if (problem) errors.push(problem);
         }
       }

@@ -55,6 +55,11 @@ describe('the prove step of a check script', () => {
     expect(unknown).toEqual({ ok: false, errors: ['step 1: "K9" is not a device on panel reversing-conveyor; as a tag it is a bit: expect true or false, got "closed"'] });
   });
 
+  it('refuses a property on the motor, whose speed the proof does not model', () => {
+    const result = runChecks({ program: lab.solution, panel: REVERSING_CONVEYOR, script: { steps: [{ prove: { never: { M1: 'reverse' } } }] } });
+    expect(result).toEqual({ ok: false, errors: ['step 1: "M1" is a motor: its speed is not modelled by the proof; name its contactors instead (e.g. "K1": "closed")'] });
+  });
+
   it('counts as the check a script needs', () => {
     expect(parseCheckScript({ steps: [{ prove: { never: { '%QX1': true, '%QX2': true } } }] }).ok).toBe(true);
   });
