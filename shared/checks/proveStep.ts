@@ -12,6 +12,12 @@ import { PropertySchema, propertyLabel, type Condition, type Property } from '..
 import type { CheckResult } from './report';
 import type { ProveStep } from './script';
 
+/**
+ * A grading run must end: a proof step simulates at most this many scans (some seconds of CPU at
+ * the rates `npm run bench -- proof` prints), then says "undecided" and fails.
+ */
+export const PROVE_STEP_MAX_SCANS = 1_000_000;
+
 /** The property's main condition, shown as the check's `expected`. */
 export function proveCondition(step: ProveStep): Condition {
   const p = step.prove as unknown as Property;
@@ -29,7 +35,7 @@ export function proveLabel(step: ProveStep): string {
 export function runProveStep(step: ProveStep, base: Omit<CheckResult, 'passed' | 'actual'>, program: Program, panel: PanelLayout, scanMs: number, replay: Replay): CheckResult {
   const property = PropertySchema.safeParse(step.prove);
   if (!property.success) return { ...base, passed: false, actual: {}, note: 'the property is not valid (docs/proof.md)' };
-  const decided = decideProperties({ program, panel, properties: [property.data], scanMs }, replay);
+  const decided = decideProperties({ program, panel, properties: [property.data], scanMs, maxScans: PROVE_STEP_MAX_SCANS }, replay);
   if (!decided.ok) return { ...base, passed: false, actual: {}, note: `the proof cannot run: ${decided.errors.join('; ')}` };
   const r = decided.results[0]!;
   const passed = 'reachable' in property.data ? r.verdict === 'reached' : r.verdict === 'proved';

@@ -54,6 +54,8 @@ export interface ProveOptions {
   scanMs?: number;
   /** Budget of visited states per search (200 000 if omitted). */
   maxStates?: number;
+  /** Budget of simulated scans per search (none if omitted): bounds the time a search can take. */
+  maxScans?: number;
   /** Asked now and then; true stops the search (its verdicts become `unknown`). */
   shouldStop?: (progress: SearchProgress) => boolean;
   /** A clock the caller supplies (shared code has none), to stamp each result with `ms`. */
@@ -132,7 +134,7 @@ export function decideProperties(options: ProveOptions, replay: Replay): ProveRe
     if (!fresh.ok) return { ok: false, errors: [fresh.error], diagnostics: fresh.diagnostics };
     const model = fresh.model;
     const goals = group.map((i) => goalOf(model.sim, properties[i]!));
-    const found = search(model, goals, { maxStates, shouldStop: options.shouldStop });
+    const found = search(model, goals, { maxStates, maxScans: options.maxScans, shouldStop: options.shouldStop });
     const ms = start !== undefined && options.now ? Math.round(options.now() - start) : undefined;
     group.forEach((i, g) => {
       results[i] = { ...decide(properties[i]!, found, found.hits[g] ?? null, g, model, options, scanMs, replay), ...(ms !== undefined && { ms }) };
@@ -147,7 +149,8 @@ function decide(property: Property, found: SearchResult, hit: SearchNode | null,
   const reachable = 'reachable' in property;
   if (hit === null) {
     if (found.complete) return { label, verdict: reachable ? 'unreachable' : 'proved', ...figures };
-    const why = found.cutBy === 'states' ? `state limit of ${options.maxStates ?? DEFAULT_MAX_STATES} reached` : 'stopped';
+    const why =
+      found.cutBy === 'states' ? `state limit of ${options.maxStates ?? DEFAULT_MAX_STATES} reached` : found.cutBy === 'scans' ? `limit of ${options.maxScans ?? 0} simulated scans reached` : 'stopped';
     return { label, verdict: 'unknown', ...figures, reason: `${why} after ${found.states} states; every behaviour up to ${found.depth} scans (${found.depth * scanMs} ms) from power-up was explored without a ${reachable ? 'witness' : 'counterexample'}` };
   }
   const ctx: ScriptContext = {

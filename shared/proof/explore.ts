@@ -40,6 +40,8 @@ export interface SearchProgress {
 export interface SearchOptions {
   /** Stop after visiting this many states (a cut search). */
   maxStates: number;
+  /** Stop after simulating this many scans (a cut search); no limit if omitted. */
+  maxScans?: number;
   /** Asked every few hundred states; true stops the search (a cut search). */
   shouldStop?: (progress: SearchProgress) => boolean;
 }
@@ -48,7 +50,7 @@ export interface SearchResult {
   /** Every reachable state was visited (or every goal was hit). */
   complete: boolean;
   /** Why the search was cut, when it was. */
-  cutBy: 'states' | 'stopped' | null;
+  cutBy: 'states' | 'scans' | 'stopped' | null;
   states: number;
   transitions: number;
   /** Scans from power-up of the deepest level fully explored. */
@@ -102,6 +104,7 @@ export function search(model: ProofModel, goals: readonly Goal[], options: Searc
     const node = queue[head]!;
     head += 1;
     depth = node.depth;
+    if (options.maxScans !== undefined && transitions >= options.maxScans) return done(false, 'scans');
     if ((head & 255) === 0 && options.shouldStop?.({ states: visited.size, depth }) === true) return done(false, 'stopped');
     const options_ = active.map((d) => model.movesOf(d, node.field[d]));
     choice.fill(0);
