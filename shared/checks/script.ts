@@ -46,8 +46,8 @@ export const STEP_ACTIONS: readonly StepAction[] = [
 /** The steps that are checks (they earn points); every script needs at least one. */
 export const CHECK_ACTIONS: readonly StepAction[] = ['expect', 'during', 'until'];
 
-/** The longest single wait, in ms of virtual time (10 min). */
-export const MAX_WAIT_MS = 600_000;
+/** The longest single wait (or `during`, or `until` window), in ms of virtual time: 4 h. */
+export const MAX_WAIT_MS = 4 * 3_600_000;
 /** The largest load factor, as a multiple of FLA. */
 export const MAX_LOAD_FACTOR = 20;
 /** The largest preheat factor: the "hot" state is a steady run at up to the setting itself. */

@@ -186,6 +186,9 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     return devices[link.a === i ? link.b : link.a]!.id;
   };
 
+  /** The devices that changed in the scan `quietScans` last looked at: the ones a leap moves on. */
+  const moving: number[] = [];
+
   const scan = (): void => {
     readInputs();
     runtime.scan();
@@ -268,6 +271,38 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
       states: [...states],
       inputs: inputs.map((x) => ({ ...x })),
     }),
+    probe(into) {
+      const probe = into ?? { engine: runtime.saveState(), states: [], words: [] };
+      if (into) runtime.saveState(into.engine);
+      probe.states.length = 0;
+      probe.words.length = 0;
+      for (let i = 0; i < states.length; i += 1) {
+        probe.states.push(states[i]);
+        probe.words.push(words[i]!);
+      }
+      return probe;
+    },
+    quietScans(probe, timers = true) {
+      // Words first: a word that moved may move contacts, and the next scan reads those.
+      for (let i = 0; i < states.length; i += 1) if (words[i] !== probe.words[i]) return 0;
+      let quiet = Number.POSITIVE_INFINITY;
+      moving.length = 0;
+      for (let i = 0; i < states.length && quiet > 0; i += 1) {
+        const before = probe.states[i];
+        if (states[i] === before) continue;
+        moving.push(i);
+        const model = models[i]!;
+        quiet = Math.min(quiet, model.quietSteps && model.leap ? model.quietSteps(before, states[i], params[i], inputs[i]!, dtMs) : 0);
+      }
+      if (quiet === 0) return 0;
+      return Math.min(quiet, runtime.quietScans(probe.engine, timers));
+    },
+    leap(scans) {
+      if (scans <= 0) return;
+      // Every device that changed in the probed scan has a closed form (quietScans said so).
+      runtime.leap(scans);
+      for (const i of moving) states[i] = models[i]!.leap!(states[i], params[i], inputs[i]!, dtMs, scans);
+    },
     restoreField(snapshot) {
       const fits =
         snapshot.panelId === wiring.panel.id &&

@@ -96,6 +96,16 @@ export interface DeviceModel<P, S> {
   words(params: P): readonly string[];
   /** Advance by `dtMs` of virtual time. Absent for devices that only change by actions. */
   step?(state: S, params: P, inputs: DeviceInputs, dtMs: number): S;
+  /**
+   * For a device that keeps changing at rest in a known closed form (the overload's thermal image):
+   * given its state `before` and `after` one step with `inputs`, how many further steps with the
+   * same inputs are certain to keep its word (so its contacts and messages): Infinity for never a
+   * change, 0 when it cannot say. Such a device must be read by the others only through its
+   * contacts. Absent: a device is quiet only when a step returns the very same state.
+   */
+  quietSteps?(before: S, after: S, params: P, inputs: DeviceInputs, dtMs: number): number;
+  /** The state after `steps` more steps with `inputs`, exactly what stepping gives (after `quietSteps` allowed them). */
+  leap?(state: S, params: P, inputs: DeviceInputs, dtMs: number, steps: number): S;
   readonly actions: DeviceActions<P, S>;
 }
 

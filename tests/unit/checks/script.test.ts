@@ -47,8 +47,8 @@ describe('parseCheckScript', () => {
     }
   });
   it('names the step, the field and what was expected', () => {
-    expect(errorsOf(script({ press: 'S2' }, { wait: 'abc' }))).toEqual(['step 2: "wait" needs a whole number of ms from 0 to 600000, got "abc"']);
-    expect(errorsOf(script({ wait: 1.5 }))).toEqual(['step 1: "wait" needs a whole number of ms from 0 to 600000, got 1.5']);
+    expect(errorsOf(script({ press: 'S2' }, { wait: 'abc' }))).toEqual(['step 2: "wait" needs a whole number of ms from 0 to 14400000, got "abc"']);
+    expect(errorsOf(script({ wait: 1.5 }))).toEqual(['step 1: "wait" needs a whole number of ms from 0 to 14400000, got 1.5']);
     expect(errorsOf(script({ set: 'S4' }))).toEqual(['step 1: "set" needs "to": the position name, e.g. "RUN"; got nothing']);
     expect(errorsOf(script({ load: 'M1', factor: 50 }))).toEqual(['step 1: "load" needs "factor": the load as a multiple of FLA from 0 to 20 (6 ≈ jammed); got 50']);
     expect(errorsOf(script({ press: 3 }))).toEqual(['step 1: "press" needs a device id such as "S2", got 3']);
