@@ -84,7 +84,7 @@ export function checkScriptAgainstPanel(script: CheckScript, panel: PanelLayout)
   script.steps.forEach((step, i) => {
     const at = `step ${i + 1}`;
     const action = stepAction(step);
-    if (action === 'wait') return;
+    if (action === 'wait' || action === 'power') return;
     if (isCheckStep(step)) {
       const s = step as Partial<Record<'expect' | 'never' | 'always' | 'until', Record<string, Expectation>>>;
       const condition = s.expect ?? s.never ?? s.always ?? s.until ?? {};

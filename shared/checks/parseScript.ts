@@ -28,6 +28,7 @@ const EXTRA_FIELDS = {
   force: ['to'],
   unforce: [],
   preheat: ['factor'],
+  power: [],
 } as const satisfies Record<StepAction, readonly string[]>;
 
 type StepChecker = (step: Record<string, unknown>, at: string) => string[];
@@ -129,6 +130,7 @@ const STEP_CHECKS = {
       ? []
       : [`${at}: "preheat" needs "factor": the steady current before the test as a multiple of the setting, from 0 (cold) to ${MAX_PREHEAT_FACTOR} (hot); got ${show(step.factor)}`]),
   ],
+  power: (step, at) => (step.power === 'off' || step.power === 'on' ? [] : [`${at}: "power" is "off" (the controller loses power) or "on" (a warm restart), got ${show(step.power)}`]),
 } as const satisfies Record<StepAction, StepChecker>;
 
 function checkStep(raw: unknown, number: number): string[] {

@@ -284,6 +284,9 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
     } else if (action === 'unforce') {
       if (s.unforce === 'all') sim.runtime.clearForces();
       else sim.runtime.unforce(String(s.unforce));
+    } else if (action === 'power') {
+      if (s.power === 'off') sim.powerOff();
+      else sim.powerOn();
     } else if (action === 'preheat') {
       // Through the simulation's own snapshot, so the contacts and words follow the new state.
       const snapshot = sim.fieldSnapshot();

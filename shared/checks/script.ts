@@ -23,7 +23,8 @@ export type StepAction =
   | 'until'
   | 'force'
   | 'unforce'
-  | 'preheat';
+  | 'preheat'
+  | 'power';
 
 export const STEP_ACTIONS: readonly StepAction[] = [
   'press',
@@ -41,6 +42,7 @@ export const STEP_ACTIONS: readonly StepAction[] = [
   'force',
   'unforce',
   'preheat',
+  'power',
 ];
 
 /** The steps that are checks (they earn points); every script needs at least one. */
@@ -120,6 +122,13 @@ export const UnforceStepSchema = z.strictObject({ unforce: z.string().min(1) });
 /** Start an overload relay "hot": its image at the steady state of running at `factor` × its setting. */
 export const PreheatStepSchema = z.strictObject({ preheat: deviceId, factor: z.number().min(0).max(MAX_PREHEAT_FACTOR) });
 
+/**
+ * The controller loses power ("off": no scan, every output open, the field goes on) or gets it
+ * back ("on": a warm restart, IEC 61131-3: retained variables keep their values, all others start
+ * at their initial values, and the first scan reads the inputs as they are).
+ */
+export const PowerStepSchema = z.strictObject({ power: z.enum(['off', 'on']) });
+
 export const StepSchema = z.union([
   PressStepSchema,
   ReleaseStepSchema,
@@ -136,6 +145,7 @@ export const StepSchema = z.union([
   ForceStepSchema,
   UnforceStepSchema,
   PreheatStepSchema,
+  PowerStepSchema,
 ]);
 export type Step = z.infer<typeof StepSchema>;
 
@@ -156,6 +166,7 @@ export const STEP_SCHEMAS = {
   force: ForceStepSchema,
   unforce: UnforceStepSchema,
   preheat: PreheatStepSchema,
+  power: PowerStepSchema,
 } as const satisfies Record<StepAction, z.ZodType<Step>>;
 export type ExpectStep = z.infer<typeof ExpectStepSchema>;
 export type DuringStep = z.infer<typeof DuringStepSchema>;

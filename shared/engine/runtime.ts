@@ -84,6 +84,15 @@ export interface Runtime {
    * a fixed point. See `leap.ts`.
    */
   quietScans(before: SavedState, timers?: boolean): number;
+  /** Whether the controller has power (it runs scans); true from the start. */
+  readonly powered: boolean;
+  /**
+   * The controller loses power: no scan runs (a scan only counts its time), every output opens;
+   * retained variables are kept (see `restart.ts`). Nothing happens if it has none already.
+   */
+  powerOff(): void;
+  /** Power returns: a warm restart (retained variables as kept, all else initial). Nothing happens if it has power. */
+  powerOn(): void;
   /**
    * Count `scans` scans without running them: valid only right after `quietScans` said at least
    * that many are quiet (and nothing changed since); gives the state running them would give.

@@ -83,6 +83,7 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     if (common) return `output common de-energised (${common.label} open)`;
     const series = firstOpen(load.through);
     if (series) return `${series.label} opened`;
+    if (!runtime.powered) return 'the controller has no power';
     if (!runtime.getOutput(load.output)) return `${load.address} turned OFF`;
     return '';
   };
@@ -271,6 +272,16 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
       states: [...states],
       inputs: inputs.map((x) => ({ ...x })),
     }),
+    powerOff() {
+      if (!runtime.powered) return;
+      runtime.powerOff();
+      emit(null, 'action', 'controller power off: no scan, every output open');
+    },
+    powerOn() {
+      if (runtime.powered) return;
+      runtime.powerOn();
+      emit(null, 'action', 'controller power on: warm restart, retained variables kept, all others at their initial values');
+    },
     probe(into) {
       const probe = into ?? { engine: runtime.saveState(), states: [], words: [] };
       if (into) runtime.saveState(into.engine);

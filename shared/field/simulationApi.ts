@@ -94,6 +94,10 @@ export interface Simulation {
   fieldSnapshot(): FieldSnapshot;
   /** Put back a field snapshot of the same panel; false, and nothing changed, when it does not fit. */
   restoreField(snapshot: FieldSnapshot): boolean;
+  /** The controller loses power (`Runtime.powerOff`): outputs open, the field goes on; logged. */
+  powerOff(): void;
+  /** Power returns to the controller: a warm restart (`Runtime.powerOn`); logged. */
+  powerOn(): void;
   /** Keep the state as it is now, before a scan (into `into` when given: no allocation then). */
   probe(into?: QuietProbe): QuietProbe;
   /**

@@ -122,6 +122,11 @@ export const TagSchema = z.object({
     .regex(/^[A-Za-z_][A-Za-z0-9_]*$/, 'a tag name starts with a letter or "_" and uses letters, digits and "_"'),
   address: z.string().max(16),
   comment: z.string().max(200).default(''),
+  /**
+   * The variable keeps its value through a power loss and a warm restart (IEC 61131-3 RETAIN);
+   * absent means not retained. Meaningful for output and memory bits.
+   */
+  retain: z.boolean().optional(),
 });
 export type Tag = z.infer<typeof TagSchema>;
 

@@ -44,7 +44,7 @@ export function replayTo(target: ReplayTarget, script: CheckScript, stepNumber: 
       wait(stepSpanMs(step));
       continue;
     }
-    if (action === 'force' || action === 'unforce' || action === 'preheat') {
+    if (action === 'force' || action === 'unforce' || action === 'preheat' || action === 'power') {
       // The workbench session takes device actions only: say so rather than pretend.
       refused.push(`step ${i + 1}: ${action} ${String((step as Record<string, unknown>)[action])} (not replayed in the workbench)`);
       continue;

@@ -23,7 +23,7 @@ export interface ScriptValidation {
 }
 
 /** Steps that name no device: time, checks, forces (a bit, not a device). */
-const NO_DEVICE: ReadonlySet<StepAction> = new Set<StepAction>(['wait', 'expect', 'during', 'until', 'force', 'unforce']);
+const NO_DEVICE: ReadonlySet<StepAction> = new Set<StepAction>(['wait', 'expect', 'during', 'until', 'force', 'unforce', 'power']);
 
 /** The device actions of the runtime's device models (`preheat` names a device but is the runner's own). */
 const DEVICE_ACTIONS_OF_STEPS = STEP_ACTIONS.filter((a): a is StepAction & DeviceAction => !NO_DEVICE.has(a) && a !== 'preheat');
@@ -53,6 +53,7 @@ export const ACTION_LABELS = {
   force: 'Force a bit',
   unforce: 'Remove a force',
   preheat: 'Preheat overload',
+  power: 'Controller power',
 } as const satisfies Record<StepAction, string>;
 
 /** The action a draft step takes (the first action key it has). */
@@ -119,6 +120,8 @@ export function newStep(action: StepAction, panel: PanelLayout): DraftStep {
       return { unforce: 'all' };
     case 'preheat':
       return { preheat: first, factor: 1 };
+    case 'power':
+      return { power: 'off' };
     default:
       return { [action]: first } as DraftStep;
   }
