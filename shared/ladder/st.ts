@@ -148,10 +148,13 @@ export function programToStructuredText(program: Program): string {
   const names = createNameView(program);
   const taken = new Set<string>([...names.symbols.spellings.keys()]);
   const declarations: string[] = [];
+  /** Tags marked retain, declared in a `VAR RETAIN` block of their own (IEC 61131-3). */
+  const retained: string[] = [];
   for (const tag of program.tags) {
     const address = parseAddress(tag.address);
     const comment = tag.comment.trim() ? ` (* ${commentText(tag.comment)} *)` : '';
-    if (address.ok) declarations.push(`${INDENT}${tag.name} AT ${formatAddress(address.value)} : BOOL;${comment}`);
+    if (address.ok && tag.retain === true) retained.push(`${INDENT}${tag.name} AT ${formatAddress(address.value)} : BOOL;${comment}`);
+    else if (address.ok) declarations.push(`${INDENT}${tag.name} AT ${formatAddress(address.value)} : BOOL;${comment}`);
     else declarations.push(`${INDENT}(* tag ${commentText(tag.name)} has no usable address: ${commentText(tag.address)} *)`);
   }
   for (const [key, type] of names.symbols.instances) {
@@ -176,6 +179,7 @@ export function programToStructuredText(program: Program): string {
     `PROGRAM ${programName(program.title)}`,
   ];
   if (declarations.length > 0) lines.push('VAR', ...declarations, 'END_VAR');
+  if (retained.length > 0) lines.push('VAR RETAIN', ...retained, 'END_VAR');
   lines.push('', ...body, 'END_PROGRAM', '');
   return lines.join('\n');
 }
