@@ -28,7 +28,8 @@ export const OperandSchema = z.string().max(64, 'an operand is at most 64 charac
 /** `| |` NO contact, `|/|` NC contact, `|P|` rising-edge contact, `|N|` falling-edge contact (IEC 61131-3). */
 export const ContactVariantSchema = z.enum(['no', 'nc', 'rising', 'falling']);
 /** `( )` coil, `(/)` negated coil, `(S)` set coil, `(R)` reset coil (IEC 61131-3). */
-export const CoilVariantSchema = z.enum(['coil', 'negated', 'set', 'reset']);
+/** `positive` / `negative`: the transition-sensing coils -(P)- / -(N)- of IEC 61131-3. */
+export const CoilVariantSchema = z.enum(['coil', 'negated', 'set', 'reset', 'positive', 'negative']);
 /** IEC 61131-3 standard function blocks offered in the palette. */
 export const BlockTypeSchema = z.enum(['TON', 'TOF', 'TP', 'CTU', 'CTD', 'CTUD', 'R_TRIG', 'F_TRIG', 'SR', 'RS']);
 

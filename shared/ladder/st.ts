@@ -86,6 +86,15 @@ function coilStatement(coil: Coil, flow: Expr, ctx: RungContext): string {
       return `IF ${printExpr(flow)} THEN ${target} := TRUE; END_IF;`;
     case 'reset':
       return `IF ${printExpr(flow)} THEN ${target} := FALSE; END_IF;`;
+    case 'positive':
+    case 'negative': {
+      // A transition-sensing coil is the edge of its power flow: an R_TRIG (F_TRIG) on it.
+      const type = coil.variant === 'positive' ? 'R_TRIG' : 'F_TRIG';
+      const name = helperName(`Rung${ctx.rungNumber}_${coil.variant === 'positive' ? 'Rise' : 'Fall'}`, ctx);
+      ctx.declarations.push({ name, type, comment: `${coil.variant} transition-sensing coil ${target} in rung ${ctx.rungNumber}` });
+      ctx.statements.push(`${name}(CLK := ${printExpr(flow)});`);
+      return `${target} := ${name}.Q;`;
+    }
   }
 }
 
