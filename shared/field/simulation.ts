@@ -62,11 +62,11 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
   devices.forEach((_, i) => refresh(i));
   const closed = (c: WiredContact): boolean => closedBits[c.slot] === 1;
   /** What the layout asks each steppable device to gather before its step. */
-  const isMotor = devices.map((d) => d.kind === 'motor');
+  const isMotor = models.map((m) => m.gathers === 'supply');
   // The step functions taken out of the models once: one indirect call per device in the loop
   // instead of a property look-up on many differently shaped model objects.
   const stepFns = models.map((m) => m.step ?? ((state: unknown) => state));
-  const isOverload = devices.map((d) => d.kind === 'overload');
+  const isOverload = models.map((m) => m.gathers === 'current');
   const allClosed = (list: readonly WiredContact[]): boolean => {
     for (let i = 0; i < list.length; i += 1) if (!closed(list[i]!)) return false;
     return true;

@@ -105,6 +105,8 @@ export const overload: DeviceModel<OverloadParams, OverloadState> = {
   isClosed: (state, _params, contact) => (contact === '95-96' ? !state.tripped : state.tripped),
   word: (state) => (state.tripped ? 'tripped' : 'ok'),
   words: () => ['ok', 'tripped'],
+  gathers: 'current',
+  links: (params) => (params.motor === undefined ? [] : [{ role: 'measures' as const, device: params.motor, kind: 'motor' as const, path: 'motor' }]),
   step(state, params, inputs, dtMs) {
     const current = inputs.currentA;
     if (current === 0 && state.theta === 0 && state.currentA === 0 && state.overMs === 0) return state;
