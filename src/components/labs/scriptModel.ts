@@ -28,8 +28,8 @@ const NO_DEVICE: ReadonlySet<StepAction> = new Set<StepAction>(['wait', 'expect'
 /** The device actions of the runtime's device models (`preheat` names a device but is the runner's own). */
 const DEVICE_ACTIONS_OF_STEPS = STEP_ACTIONS.filter((a): a is StepAction & DeviceAction => !NO_DEVICE.has(a) && a !== 'preheat');
 
-/** Steps the step list shows as text only: they are edited in the JSON view. */
-export const JSON_ONLY_ACTIONS: ReadonlySet<StepAction> = new Set<StepAction>(['during', 'until', 'force', 'unforce']);
+/** Steps the step list shows as text only: their conditions are edited in the JSON view. */
+export const JSON_ONLY_ACTIONS: ReadonlySet<StepAction> = new Set<StepAction>(['during', 'until']);
 
 /** Is this draft step a check (it earns points)? */
 export function isDraftCheck(step: DraftStep): boolean {
@@ -253,6 +253,7 @@ export function describeDraftStep(step: DraftStep): string {
   if (action === 'force') return `force ${String(s.force)} to ${String(s.to)}`;
   if (action === 'unforce') return s.unforce === 'all' ? 'remove every force' : `remove the force on ${String(s.unforce)}`;
   if (action === 'preheat') return `preheat ${String(s.preheat)} (steady at ${String(s.factor)} × its setting)`;
+  if (action === 'power') return s.power === 'on' ? 'controller power on (warm restart)' : 'controller power off';
   return `${action} ${String(s[action])}`;
 }
 

@@ -15,10 +15,10 @@ function grade(program = THREE_WIRE.starter): GradeReport {
 describe('the grade report on screen', () => {
   it('shows every check in full for an instructor, hidden ones marked', () => {
     const shown = presentReport(grade());
-    expect(shown.rows).toHaveLength(8);
-    expect(shown.rows.filter((r) => r.hidden)).toHaveLength(3);
+    expect(shown.rows).toHaveLength(9);
+    expect(shown.rows.filter((r) => r.hidden)).toHaveLength(4);
     expect(shown.hidden).toBeNull();
-    expect(shown.scoreText).toBe(`${shown.score} / 11`);
+    expect(shown.scoreText).toBe(`${shown.score} / 13`);
   });
 
   it('puts each failed expectation beside what was found', () => {
@@ -34,10 +34,10 @@ describe('the grade report on screen', () => {
     const shown = presentReport(redactReport(grade(THREE_WIRE.solution)));
     expect(shown.rows).toHaveLength(5);
     expect(shown.rows.every((r) => !r.hidden)).toBe(true);
-    expect(shown.hidden).toEqual({ passed: 3, failed: 0, pointsEarned: 4, pointsPossible: 4 });
+    expect(shown.hidden).toEqual({ passed: 4, failed: 0, pointsEarned: 6, pointsPossible: 6 });
     expect(JSON.stringify(shown)).not.toContain('overload reset');
     expect(shown.passed).toBe(true);
-    expect(shown.scoreText).toBe('11 / 11');
+    expect(shown.scoreText).toBe('13 / 13');
   });
 
   it('shows on the student\'s report the visible score a self-check of the same program shows', () => {
@@ -56,7 +56,7 @@ describe('the grade report on screen', () => {
 
   it('counts the hidden checks a student failed', () => {
     const shown = presentReport(redactReport(grade()));
-    expect(shown.hidden!.failed + shown.hidden!.passed).toBe(3);
+    expect(shown.hidden!.failed + shown.hidden!.passed).toBe(4);
     expect(shown.failedCount).toBe(shown.rows.filter((r) => !r.passed).length + shown.hidden!.failed);
   });
 
