@@ -14,7 +14,6 @@ import { checkScriptAgainstPanel } from './againstPanel';
 import { parseCheckScript } from './parseScript';
 import { REPORT_FORMAT, type Actual, type CheckResult, type GradeReport, type ReportEvent } from './report';
 import { isCheckStep, stepAction, stepSpanMs, type CheckScript, type CheckStep, type DuringStep, type Expectation, type Step, type UntilStep } from './script';
-import { preheatedState, type OverloadState } from '../field/devices/overload';
 import { describeStep } from './stepWords';
 import { createChangeTrace, type ChangeTrace } from './trace';
 import { createScanner, type ScanCounts } from './scanner';
@@ -288,12 +287,8 @@ function grade(sim: Simulation, script: CheckScript, limits: CheckLimits, warnin
       if (s.power === 'off') sim.powerOff();
       else sim.powerOn();
     } else if (action === 'preheat') {
-      // Through the simulation's own snapshot, so the contacts and words follow the new state.
-      const snapshot = sim.fieldSnapshot();
-      const i = snapshot.deviceIds.indexOf(String(s.preheat));
-      const states = [...snapshot.states];
-      states[i] = preheatedState(states[i] as OverloadState, s.factor as number);
-      sim.restoreField({ ...snapshot, states });
+      // Checked against the panel already: the device is an overload relay.
+      sim.preheat(String(s.preheat), s.factor as number);
     } else {
       // Validated against the panel already; a refusal (an overload still too hot to reset) is logged as an event.
       sim.act(String(s[action]), action as DeviceAction, { to: s.to as string | undefined, factor: s.factor as number | undefined });

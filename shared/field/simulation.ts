@@ -14,6 +14,7 @@ import type { DeviceInputs, DeviceAction, ActionArgs } from './devices/model';
 import type { ActionResult, Simulation, SimulationOptions, SimulationResult } from './simulationApi';
 import { isEngaged, type ContactorState } from './devices/contactor';
 import { interlockRule } from './devices/interlock';
+import { preheatedState, type OverloadState } from './devices/overload';
 import { createEventLog, type FieldEventKind } from './events';
 import { describeChange, describeCommons, ACTION_WORDS, type ChangeContext } from './messages';
 import { deviceView, type DeviceView } from './views';
@@ -272,6 +273,12 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
       states: [...states],
       inputs: inputs.map((x) => ({ ...x })),
     }),
+    preheat(deviceId, factor) {
+      const i = wiring.indexOf.get(deviceId);
+      if (i === undefined || models[i]!.gathers !== 'current') return { ok: false, error: `${deviceId} is not an overload relay on this panel` };
+      states[i] = preheatedState(states[i] as OverloadState, factor);
+      return { ok: true };
+    },
     powerOff() {
       if (!runtime.powered) return;
       runtime.powerOff();

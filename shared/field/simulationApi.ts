@@ -94,6 +94,11 @@ export interface Simulation {
   fieldSnapshot(): FieldSnapshot;
   /** Put back a field snapshot of the same panel; false, and nothing changed, when it does not fit. */
   restoreField(snapshot: FieldSnapshot): boolean;
+  /**
+   * Start an overload relay "hot": its thermal image at the steady state of carrying `factor` × its
+   * setting (IEC 60947-4-1's hot state at 1). Not an operator's action, so nothing is logged.
+   */
+  preheat(deviceId: string, factor: number): ActionResult;
   /** The controller loses power (`Runtime.powerOff`): outputs open, the field goes on; logged. */
   powerOff(): void;
   /** Power returns to the controller: a warm restart (`Runtime.powerOn`); logged. */

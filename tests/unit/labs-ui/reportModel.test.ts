@@ -96,6 +96,31 @@ describe('"show me": replaying a check run in the simulator', () => {
     }
   });
 
+  it('replays force, preheat and power steps too, to the state the grader saw', () => {
+    const steps = [
+      { set: 'S4', to: 'RUN' }, { force: '%IX2', to: true }, { wait: 200 }, { unforce: 'all' }, { wait: 500 },
+      { expect: { K1: 'closed' }, label: 'forced start' },
+      { preheat: 'F1', factor: 1 }, { load: 'M1', factor: 1.5 }, { wait: 100_000 },
+      { expect: { F1: 'tripped', K1: 'open' }, label: 'hot relay tripped' },
+      { power: 'off' }, { wait: 300 }, { power: 'on' }, { wait: 300 },
+      { expect: { K1: 'open', '%QX1': false }, label: 'stays off after power returns' },
+    ];
+    const result = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: { steps } });
+    if (!result.ok) throw new Error(result.errors.join('\n'));
+    const script = replayableScript({ steps })!;
+    for (const check of result.report.checks) {
+      const session = createSimulatorSession({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, scanMs: script.scanMs });
+      const outcome = replayTo(session, script, check.index);
+      expect(outcome.refused, check.label).toEqual([]);
+      expect(session.simulation!.timeMs).toBe(check.atMs);
+      for (const [key, actual] of Object.entries(check.actual)) {
+        const word = session.simulation!.word(key);
+        expect(word !== undefined ? word : (session.simulation!.runtime.read(key) ?? null), `${check.label}: ${key}`).toEqual(actual);
+      }
+    }
+    expect(result.report.passed).toBe(true);
+  });
+
   it('replays the self-check script to each visible check of a student report, at the time the grader saw it', () => {
     // The warning-horn lab has a hidden check between two waits, which the student's script joins.
     const graded = runChecks({ program: WARNING_HORN.starter, panel: REVERSING_CONVEYOR, script: WARNING_HORN.script });
