@@ -86,7 +86,7 @@ export function checkScriptAgainstPanel(script: CheckScript, panel: PanelLayout)
   script.steps.forEach((step, i) => {
     const at = `step ${i + 1}`;
     const action = stepAction(step);
-    if (action === 'wait') return;
+    if (action === 'wait' || action === 'power') return;
     if ('prove' in step) {
       // Parsed against PropertySchema already (parseCheckScript).
       for (const condition of conditionsOf(step.prove as unknown as Property)) {

@@ -30,6 +30,7 @@ const EXTRA_FIELDS = {
   unforce: [],
   preheat: ['factor'],
   prove: ['label', 'points', 'hidden'],
+  power: [],
 } as const satisfies Record<StepAction, readonly string[]>;
 
 type StepChecker = (step: Record<string, unknown>, at: string) => string[];
@@ -138,6 +139,7 @@ const STEP_CHECKS = {
       : [`${at}: "prove" needs a property such as { "never": { "%QX1": true, "%QX2": true } } (docs/proof.md); ${property.error.issues.map((i) => `${['prove', ...i.path].join('.')}: ${i.message}`).join('; ')}`];
     return [...errors, ...checkFieldsOf(step, at)];
   },
+  power: (step, at) => (step.power === 'off' || step.power === 'on' ? [] : [`${at}: "power" is "off" (the controller loses power) or "on" (a warm restart), got ${show(step.power)}`]),
 } as const satisfies Record<StepAction, StepChecker>;
 
 function checkStep(raw: unknown, number: number): string[] {

@@ -24,7 +24,8 @@ export type StepAction =
   | 'force'
   | 'unforce'
   | 'preheat'
-  | 'prove';
+  | 'prove'
+  | 'power';
 
 export const STEP_ACTIONS: readonly StepAction[] = [
   'press',
@@ -43,13 +44,14 @@ export const STEP_ACTIONS: readonly StepAction[] = [
   'unforce',
   'preheat',
   'prove',
+  'power',
 ];
 
 /** The steps that are checks (they earn points); every script needs at least one. */
 export const CHECK_ACTIONS: readonly StepAction[] = ['expect', 'during', 'until', 'prove'];
 
-/** The longest single wait, in ms of virtual time (10 min). */
-export const MAX_WAIT_MS = 600_000;
+/** The longest single wait (or `during`, or `until` window), in ms of virtual time: 4 h. */
+export const MAX_WAIT_MS = 4 * 3_600_000;
 /** The largest load factor, as a multiple of FLA. */
 export const MAX_LOAD_FACTOR = 20;
 /** The largest preheat factor: the "hot" state is a steady run at up to the setting itself. */
@@ -129,6 +131,13 @@ export const PreheatStepSchema = z.strictObject({ preheat: deviceId, factor: z.n
  */
 export const ProveStepSchema = z.strictObject({ prove: z.record(z.string(), z.unknown()), ...checkFields });
 
+/**
+ * The controller loses power ("off": no scan, every output open, the field goes on) or gets it
+ * back ("on": a warm restart, IEC 61131-3: retained variables keep their values, all others start
+ * at their initial values, and the first scan reads the inputs as they are).
+ */
+export const PowerStepSchema = z.strictObject({ power: z.enum(['off', 'on']) });
+
 export const StepSchema = z.union([
   PressStepSchema,
   ReleaseStepSchema,
@@ -146,6 +155,9 @@ export const StepSchema = z.union([
   UnforceStepSchema,
   PreheatStepSchema,
   ProveStepSchema,
+
+/**
+  PowerStepSchema,
 ]);
 export type Step = z.infer<typeof StepSchema>;
 
@@ -167,6 +179,7 @@ export const STEP_SCHEMAS = {
   unforce: UnforceStepSchema,
   preheat: PreheatStepSchema,
   prove: ProveStepSchema,
+  power: PowerStepSchema,
 } as const satisfies Record<StepAction, z.ZodType<Step>>;
 export type ExpectStep = z.infer<typeof ExpectStepSchema>;
 export type DuringStep = z.infer<typeof DuringStepSchema>;

@@ -24,6 +24,8 @@ export function describeStep(step: Step): string {
       return `force ${String(s.force)} to ${String(s.to)}`;
     case 'unforce':
       return s.unforce === 'all' ? 'remove every force' : `unforce ${String(s.unforce)}`;
+    case 'power':
+      return s.power === 'off' ? 'controller power off' : 'controller power on (warm restart)';
     case 'preheat':
       return `preheat ${String(s.preheat)} at ${String(s.factor)} × its setting`;
     default: {
