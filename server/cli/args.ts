@@ -8,6 +8,7 @@ export type Command =
   | { name: 'check'; program: string; script: string; panel?: string; trace?: string; redact: boolean }
   | { name: 'validate'; program: string; panel?: string; json: boolean }
   | { name: 'st'; program: string }
+  | { name: 'prove'; program: string; properties: string; panel?: string; maxStates?: number }
   | { name: 'help' };
 
 export type ParsedArgs = { ok: true; command: Command } | { ok: false; error: string };
@@ -18,12 +19,16 @@ Usage:
   npm run cli -- check --program P --script S [--panel L] [--trace out.csv] [--redact]
   npm run cli -- validate --program P [--panel L] [--json]
   npm run cli -- st --program P
+  npm run cli -- prove --program P --properties F [--panel L] [--max-states N]
   npm run cli -- create-admin --email E [--name N] [--link]   (password piped on standard input)
   npm run cli -- --help
 
 check     Grade a program with a check script; prints the grade report as JSON.
 validate  Print the program's diagnostics.
 st        Print the program as IEC 61131-3 Structured Text.
+prove     Explore every behaviour of the program on the panel from power-up and decide
+          each property of F ({ "properties": [ … ] }, see docs/proof.md); prints the
+          proof report as JSON, with a replayed check script for each counterexample.
 
 create-admin
           Create an administrator in DATA_DIR's database (stop the server first); see
@@ -42,6 +47,14 @@ Exit codes (check, validate, st):
 --trace F     also write the trace of inputs and outputs to F as CSV
 --redact      print the student view of the report (hidden checks as pass/fail only)
 --json        validate: print the diagnostics as JSON
+--properties F  prove: the properties (JSON)
+--max-states N  prove: give up (verdict "unknown") after N states per search; 200000 if omitted
+
+Exit codes (prove):
+  0  every property holds: proved, or reached for "reachable"
+  1  a property is refuted or unreachable (or the program does not compile)
+  2  the inputs cannot be used, as above
+  3  a property is unknown (state limit reached) and none failed
 `;
 
 const OPTIONS = {
@@ -51,6 +64,8 @@ const OPTIONS = {
   trace: { type: 'string' },
   redact: { type: 'boolean', default: false },
   json: { type: 'boolean', default: false },
+  properties: { type: 'string' },
+  'max-states': { type: 'string' },
   help: { type: 'boolean', short: 'h', default: false },
 } as const;
 
@@ -59,6 +74,7 @@ const ACCEPTS = {
   check: ['program', 'script', 'panel', 'trace', 'redact'],
   validate: ['program', 'panel', 'json'],
   st: ['program'],
+  prove: ['program', 'properties', 'panel', 'max-states'],
 } as const;
 
 type CommandName = keyof typeof ACCEPTS;
@@ -78,7 +94,7 @@ export function parseCliArgs(argv: readonly string[]): ParsedArgs {
   const { values, positionals } = parsed;
   if (values.help || positionals.length === 0) return { ok: true, command: { name: 'help' } };
   const [name, ...extra] = positionals;
-  if (!isCommandName(name!)) return { ok: false, error: `unknown command "${name}"; use check, validate, st or create-admin (--help for usage)` };
+  if (!isCommandName(name!)) return { ok: false, error: `unknown command "${name}"; use check, validate, st, prove or create-admin (--help for usage)` };
   if (extra.length > 0) return { ok: false, error: `unexpected argument "${extra[0]}" after "${name}"` };
   const given = Object.keys(values).filter((k) => k !== 'help' && values[k as keyof typeof values] !== undefined && values[k as keyof typeof values] !== false);
   const accepted: readonly string[] = ACCEPTS[name];
@@ -91,6 +107,15 @@ export function parseCliArgs(argv: readonly string[]): ParsedArgs {
       ok: true,
       command: { name, program: values.program, script: values.script, panel: values.panel, trace: values.trace, redact: values.redact === true },
     };
+  }
+  if (name === 'prove') {
+    if (!values.properties) return { ok: false, error: '"prove" needs --properties F' };
+    const text = values['max-states'];
+    const maxStates = text === undefined ? undefined : Number(text);
+    if (maxStates !== undefined && !(Number.isInteger(maxStates) && maxStates >= 1 && maxStates <= 10_000_000)) {
+      return { ok: false, error: `--max-states needs a whole number from 1 to 10000000, got "${text}"` };
+    }
+    return { ok: true, command: { name, program: values.program, properties: values.properties, panel: values.panel, maxStates } };
   }
   if (name === 'validate') return { ok: true, command: { name, program: values.program, panel: values.panel, json: values.json === true } };
   return { ok: true, command: { name, program: values.program } };

@@ -7,6 +7,9 @@
 import { parseCheckScript, redactReport, runChecks, traceToCSV } from '@shared/checks';
 import { builtInPanel, type PanelLayout } from '@shared/field';
 import { DEFAULT_ADDRESS_SPACE, programToStructuredText, validateProgram, type Diagnostic } from '@shared/ladder';
+import { PropertiesFileSchema, proofExitCode, proofReport, prove } from '@shared/proof';
+import { formatIssues } from '@shared/field';
+import { DEFAULT_SCAN_MS } from '@shared/engine';
 import type { Command } from './args';
 import { USAGE } from './args';
 import type { CliIO, FileResult } from './io';
@@ -94,6 +97,31 @@ function structuredText(io: CliIO, command: Extract<Command, { name: 'st' }>): n
   return EXIT_PROGRAM_FAULT;
 }
 
+/** Decide properties of a program; exit 0 all hold, 1 one fails, 2 bad input, 3 one unknown and none failed. */
+function proveCommand(io: CliIO, command: Extract<Command, { name: 'prove' }>): number {
+  const loaded = loadProgram(io, command.program);
+  if (!loaded.ok) return badInput(io, loaded.error);
+  for (const warning of loaded.value.warnings) io.stderr(`${warning}\n`);
+  const json = loadJson(io, command.properties);
+  if (!json.ok) return badInput(io, json.error);
+  const file = PropertiesFileSchema.safeParse(json.value);
+  if (!file.success) return badInput(io, `${command.properties}: not a valid properties file:\n  ${formatIssues(file.error).join('\n  ')}`);
+  const panel = panelFor(io, command.panel, 'reversing-conveyor', command.properties);
+  if (!panel.ok) return badInput(io, panel.error);
+  const result = prove({ program: loaded.value.program, panel: panel.value, properties: file.data.properties, maxStates: command.maxStates, now: () => performance.now() });
+  if (!result.ok) {
+    const compileErrors = (result.diagnostics ?? []).filter((d) => d.severity === 'error');
+    if (compileErrors.length > 0) {
+      io.stderr(`${command.program}: does not compile, so nothing can be proved:\n${compileErrors.map((d) => `  ${describeDiagnostic(command.program, d)}`).join('\n')}\n`);
+      return EXIT_PROGRAM_FAULT;
+    }
+    return badInput(io, `${command.properties}: cannot be decided on panel ${panel.value.id}:\n  ${result.errors.join('\n  ')}`);
+  }
+  for (const r of result.results) if (r.defect) io.stderr(`${command.properties}: "${r.label}": ${r.reason ?? 'defect'}\n`);
+  io.stdout(`${JSON.stringify(proofReport(panel.value.id, DEFAULT_SCAN_MS, result.results, result.abstractions, result.ignoredDevices), null, 2)}\n`);
+  return proofExitCode(result.results);
+}
+
 /** Run a parsed command. */
 export function runCommand(io: CliIO, command: Command): number {
   switch (command.name) {
@@ -106,5 +134,7 @@ export function runCommand(io: CliIO, command: Command): number {
       return validate(io, command);
     case 'st':
       return structuredText(io, command);
+    case 'prove':
+      return proveCommand(io, command);
   }
 }

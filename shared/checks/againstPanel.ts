@@ -9,6 +9,8 @@ import { addressInRange, parseAddress } from '../ladder/addresses';
 import { DEVICE_KINDS, modelOf } from '../field/devices';
 import type { DeviceAction, DeviceKind } from '../field/devices/model';
 import type { DeviceSpec, PanelLayout } from '../field/layout';
+import { conditionsOf, type Property } from '../proof/property';
+import { UNOBSERVABLE_KINDS } from '../proof/abstraction';
 import { isCheckStep, stepAction, type CheckScript, type Expectation } from './script';
 
 /** Memory bits the simulator gives every program (the engine's default space). */
@@ -84,7 +86,19 @@ export function checkScriptAgainstPanel(script: CheckScript, panel: PanelLayout)
   script.steps.forEach((step, i) => {
     const at = `step ${i + 1}`;
     const action = stepAction(step);
-    if (action === 'wait') return;
+    if (action === 'wait' || action === 'power') return;
+    if ('prove' in step) {
+      // Parsed against PropertySchema already (parseCheckScript).
+      for (const condition of conditionsOf(step.prove as unknown as Property)) {
+        for (const [key, value] of Object.entries(condition)) {
+          const device = byId.get(key);
+          const unobservable = device ? UNOBSERVABLE_KINDS[device.kind] : undefined;
+          const problem = unobservable ? `${at}: "${key}" is ${modelOf(device!.kind).noun}: ${unobservable}` : checkExpectKey(key, value, panel, byId, at);
+          if (problem) errors.push(problem);
+        }
+      }
+      return;
+    }
     if (isCheckStep(step)) {
       const s = step as Partial<Record<'expect' | 'never' | 'always' | 'until', Record<string, Expectation>>>;
       const condition = s.expect ?? s.never ?? s.always ?? s.until ?? {};

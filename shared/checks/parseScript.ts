@@ -2,6 +2,7 @@
  * Reads a check script (already parsed JSON) with messages that name the step, the field and
  * what was expected. Returns every problem found, never throws.
  */
+import { PropertySchema } from '../proof/property';
 import { CHECK_ACTIONS, CheckScriptSchema, MAX_LOAD_FACTOR, MAX_PREHEAT_FACTOR, MAX_WAIT_MS, STEP_ACTIONS, STEP_SCHEMAS, type CheckScript, type Step, type StepAction } from './script';
 
 export type ScriptResult = { ok: true; value: CheckScript } | { ok: false; errors: string[] };
@@ -28,6 +29,8 @@ const EXTRA_FIELDS = {
   force: ['to'],
   unforce: [],
   preheat: ['factor'],
+  prove: ['label', 'points', 'hidden'],
+  power: [],
 } as const satisfies Record<StepAction, readonly string[]>;
 
 type StepChecker = (step: Record<string, unknown>, at: string) => string[];
@@ -129,6 +132,14 @@ const STEP_CHECKS = {
       ? []
       : [`${at}: "preheat" needs "factor": the steady current before the test as a multiple of the setting, from 0 (cold) to ${MAX_PREHEAT_FACTOR} (hot); got ${show(step.factor)}`]),
   ],
+  prove: (step, at) => {
+    const property = PropertySchema.safeParse(step.prove);
+    const errors = property.success
+      ? []
+      : [`${at}: "prove" needs a property such as { "never": { "%QX1": true, "%QX2": true } } (docs/proof.md); ${property.error.issues.map((i) => `${['prove', ...i.path].join('.')}: ${i.message}`).join('; ')}`];
+    return [...errors, ...checkFieldsOf(step, at)];
+  },
+  power: (step, at) => (step.power === 'off' || step.power === 'on' ? [] : [`${at}: "power" is "off" (the controller loses power) or "on" (a warm restart), got ${show(step.power)}`]),
 } as const satisfies Record<StepAction, StepChecker>;
 
 function checkStep(raw: unknown, number: number): string[] {

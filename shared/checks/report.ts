@@ -33,6 +33,8 @@ export interface CheckResult {
    * (then `expected` is that condition), or `until` (then `expected` is the awaited condition).
    */
   kind?: 'never' | 'always' | 'until';
+  /** A `prove` check: the verdict, the states explored, why unknown, the counterexample as a script. */
+  proof?: { verdict: string; states: number; reason?: string; counterexample?: unknown };
   /** A `during` or `until` check: the virtual time it spans, in ms as written (its scans run whole). */
   spanMs?: number;
   /** A `never`/`always` check that failed: the first scan (count since the start) and its time, in ms; `actual` is read there. */

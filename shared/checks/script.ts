@@ -23,7 +23,9 @@ export type StepAction =
   | 'until'
   | 'force'
   | 'unforce'
-  | 'preheat';
+  | 'preheat'
+  | 'prove'
+  | 'power';
 
 export const STEP_ACTIONS: readonly StepAction[] = [
   'press',
@@ -41,13 +43,15 @@ export const STEP_ACTIONS: readonly StepAction[] = [
   'force',
   'unforce',
   'preheat',
+  'prove',
+  'power',
 ];
 
 /** The steps that are checks (they earn points); every script needs at least one. */
-export const CHECK_ACTIONS: readonly StepAction[] = ['expect', 'during', 'until'];
+export const CHECK_ACTIONS: readonly StepAction[] = ['expect', 'during', 'until', 'prove'];
 
-/** The longest single wait, in ms of virtual time (10 min). */
-export const MAX_WAIT_MS = 600_000;
+/** The longest single wait (or `during`, or `until` window), in ms of virtual time: 4 h. */
+export const MAX_WAIT_MS = 4 * 3_600_000;
 /** The largest load factor, as a multiple of FLA. */
 export const MAX_LOAD_FACTOR = 20;
 /** The largest preheat factor: the "hot" state is a steady run at up to the setting itself. */
@@ -120,6 +124,20 @@ export const UnforceStepSchema = z.strictObject({ unforce: z.string().min(1) });
 /** Start an overload relay "hot": its image at the steady state of running at `factor` × its setting. */
 export const PreheatStepSchema = z.strictObject({ preheat: deviceId, factor: z.number().min(0).max(MAX_PREHEAT_FACTOR) });
 
+/**
+ * A proof as a check (docs/proof.md): passes when the property holds for every behaviour from
+ * power-up, whatever the script's other steps do. The property's shape is checked by
+ * `parseCheckScript` with `PropertySchema` (shared/proof/property.ts, which builds on this file).
+ */
+export const ProveStepSchema = z.strictObject({ prove: z.record(z.string(), z.unknown()), ...checkFields });
+
+/**
+ * The controller loses power ("off": no scan, every output open, the field goes on) or gets it
+ * back ("on": a warm restart, IEC 61131-3: retained variables keep their values, all others start
+ * at their initial values, and the first scan reads the inputs as they are).
+ */
+export const PowerStepSchema = z.strictObject({ power: z.enum(['off', 'on']) });
+
 export const StepSchema = z.union([
   PressStepSchema,
   ReleaseStepSchema,
@@ -136,6 +154,10 @@ export const StepSchema = z.union([
   ForceStepSchema,
   UnforceStepSchema,
   PreheatStepSchema,
+  ProveStepSchema,
+
+/**
+  PowerStepSchema,
 ]);
 export type Step = z.infer<typeof StepSchema>;
 
@@ -156,16 +178,19 @@ export const STEP_SCHEMAS = {
   force: ForceStepSchema,
   unforce: UnforceStepSchema,
   preheat: PreheatStepSchema,
+  prove: ProveStepSchema,
+  power: PowerStepSchema,
 } as const satisfies Record<StepAction, z.ZodType<Step>>;
 export type ExpectStep = z.infer<typeof ExpectStepSchema>;
 export type DuringStep = z.infer<typeof DuringStepSchema>;
 export type UntilStep = z.infer<typeof UntilStepSchema>;
+export type ProveStep = z.infer<typeof ProveStepSchema>;
 /** A step that is a check: it has a label, points and may be hidden. */
-export type CheckStep = ExpectStep | DuringStep | UntilStep;
+export type CheckStep = ExpectStep | DuringStep | UntilStep | ProveStep;
 
 /** Is the step a check (`expect`, `during` or `until`)? */
 export function isCheckStep(step: Step): step is CheckStep {
-  return 'expect' in step || 'during' in step || 'until' in step;
+  return 'expect' in step || 'during' in step || 'until' in step || 'prove' in step;
 }
 
 /** The virtual time a step spans by itself, in ms as written: a wait's, a during's, an until's window end. */

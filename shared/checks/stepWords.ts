@@ -18,11 +18,14 @@ export function describeStep(step: Step): string {
     case 'expect':
     case 'during':
     case 'until':
+    case 'prove':
       return 'check';
     case 'force':
       return `force ${String(s.force)} to ${String(s.to)}`;
     case 'unforce':
       return s.unforce === 'all' ? 'remove every force' : `unforce ${String(s.unforce)}`;
+    case 'power':
+      return s.power === 'off' ? 'controller power off' : 'controller power on (warm restart)';
     case 'preheat':
       return `preheat ${String(s.preheat)} at ${String(s.factor)} × its setting`;
     default: {

@@ -100,7 +100,7 @@ export interface CoilEmit {
 }
 
 export interface CoilKind {
-  /** Keeps the power on its left in the previous scan (a transition-sensing coil would). */
+  /** Keeps the power on its left in the previous scan (a transition-sensing coil does). */
   readonly edge: boolean;
   /**
    * The value the coil leaves in its variable, from the power `p` on its left, the variable's
@@ -145,6 +145,32 @@ export const COIL_KINDS = {
       code.loadCell(bit);
       code.get(power);
       code.op(OP.i32Eqz);
+      code.op(OP.i32And);
+    },
+  },
+  /**
+   * Positive transition-sensing coil -(P)-: its variable is TRUE for the one evaluation in which
+   * the power on its left went FALSE → TRUE, FALSE otherwise (IEC 61131-3, LD coils
+   * [memory for the table number]).
+   */
+  positive: {
+    edge: true,
+    writes: (p, _old, last) => p & (last ^ 1),
+    emit: ({ code, power, edge }) => {
+      code.get(power);
+      code.loadCell(edge);
+      code.op(OP.i32Eqz);
+      code.op(OP.i32And);
+    },
+  },
+  /** Negative transition-sensing coil -(N)-: TRUE for one evaluation when the power went TRUE → FALSE. */
+  negative: {
+    edge: true,
+    writes: (p, _old, last) => (p ^ 1) & last,
+    emit: ({ code, power, edge }) => {
+      code.get(power);
+      code.op(OP.i32Eqz);
+      code.loadCell(edge);
       code.op(OP.i32And);
     },
   },

@@ -77,6 +77,27 @@ export interface Runtime {
   saveState(into?: SavedState): SavedState;
   /** Put a state from `saveState` back: forces, field values, time and all. */
   loadState(state: SavedState): void;
+  /**
+   * After one scan from `before` (a `saveState` taken just before it, field values unchanged
+   * since), how many further scans are certain to change nothing but running timers' elapsed
+   * time: Infinity at a fixed point, 0 when the next scan must be run. `timers` false admits only
+   * a fixed point. See `leap.ts`.
+   */
+  quietScans(before: SavedState, timers?: boolean): number;
+  /** Whether the controller has power (it runs scans); true from the start. */
+  readonly powered: boolean;
+  /**
+   * The controller loses power: no scan runs (a scan only counts its time), every output opens;
+   * retained variables are kept (see `restart.ts`). Nothing happens if it has none already.
+   */
+  powerOff(): void;
+  /** Power returns: a warm restart (retained variables as kept, all else initial). Nothing happens if it has power. */
+  powerOn(): void;
+  /**
+   * Count `scans` scans without running them: valid only right after `quietScans` said at least
+   * that many are quiet (and nothing changed since); gives the state running them would give.
+   */
+  leap(scans: number): void;
 }
 
 /** The scan period limits, ms. */

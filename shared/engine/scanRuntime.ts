@@ -13,6 +13,8 @@ import { resolveBit, resolveReader, type Reader } from './operandAccess';
 import type { Plan } from './plan';
 import { createPowerFlowView, type PowerFlowView } from './powerFlow';
 import { checkScanMs, DEFAULT_SCAN_MS, type Runtime, type RuntimeOptions, type SavedState } from './runtime';
+import { leapTimers, quietScans } from './leap';
+import { losePower, warmRestart, type RetainedValues } from './restart';
 import { applySnapshot, takeSnapshot, type RestoreReport, type RuntimeSnapshot } from './snapshot';
 
 /** Start a runtime on a plan: every bit FALSE, every block fresh, time 0. */
@@ -33,6 +35,10 @@ class ScanRuntime implements Runtime {
   /** The last scan ran the recording kernel, and nothing has replaced the state since. */
   private flowValid = false;
   private flowCache: PowerFlowView | null = null;
+  /** What the retained variables held when power was lost; null while the controller has power. */
+  private kept: RetainedValues | null = null;
+  /** The running timers' ET cells found by the last `quietScans`. */
+  private running: readonly number[] = [];
   private readonly readers = new Map<string, Reader | null>();
   /** The field value cells, one per input (index 0 = %IX1). */
   private readonly field: Int32Array;
@@ -70,6 +76,8 @@ class ScanRuntime implements Runtime {
   getOutput(index: number): boolean {
     const outputs = this.plan.space.outputs;
     if (!(index >= 1 && index <= outputs && Number.isInteger(index))) checkIndex(index, outputs, 'getOutput', '%QX');
+    // Without power every output is open, a forced one too.
+    if (this.kept !== null) return false;
     return this.machine.cells[this.plan.layout.outputs + index - 1] === 1;
   }
 
@@ -83,9 +91,26 @@ class ScanRuntime implements Runtime {
     return reader === null ? undefined : reader(this.machine);
   }
 
+  get powered(): boolean {
+    return this.kept === null;
+  }
+
+  powerOff(): void {
+    if (this.kept !== null) return;
+    this.kept = losePower(this.machine);
+    this.stateReplaced();
+  }
+
+  powerOn(): void {
+    if (this.kept === null) return;
+    warmRestart(this.machine, this.kept);
+    this.kept = null;
+    this.stateReplaced();
+  }
+
   scan(): void {
-    this.kernel(this.scanMs);
-    this.flowValid = this.recording;
+    if (this.kept === null) this.kernel(this.scanMs);
+    this.flowValid = this.recording && this.kept === null;
     const core = this.core;
     core.scanCount += 1;
     core.timeMs += this.scanMs;
@@ -172,6 +197,22 @@ class ScanRuntime implements Runtime {
     // Force maps are never changed once made (see setForces), so sharing one is safe.
     core.forces = state.forces as Map<string, ForcedBit>;
     this.stateReplaced();
+  }
+
+  quietScans(before: SavedState, timers = true): number {
+    const quiet = quietScans(this.machine, before.bytes, this.scanMs, timers);
+    this.running = quiet.running;
+    return quiet.scans;
+  }
+
+  leap(scans: number): void {
+    if (!(Number.isInteger(scans) && scans >= 0)) throw new RangeError(`leap: a whole number of scans ≥ 0, not ${String(scans)}`);
+    leapTimers(this.machine, this.running, scans, this.scanMs);
+    const core = this.core;
+    core.scanCount += scans;
+    core.timeMs += scans * this.scanMs;
+    // The power flow of a quiet scan is the last one's; only its scan number moves on.
+    this.flowCache = null;
   }
 
   /** Forces are replaced, never changed in place, so a saved state can share its map. */

@@ -6,7 +6,6 @@
  * its contactor is open.
  */
 import type { Runtime } from '../engine';
-import type { ContactorState } from './devices/contactor';
 import type { ContactForm } from './devices/model';
 import type { LoadCircuit, WiredContact, Wiring } from './wiring';
 
@@ -117,11 +116,8 @@ export function explainIO(ctx: ExplainContext): IoExplanation {
     let why = '';
     if (bit && !energised) {
       why = outputCommonLive ? `${openContacts.join(', ')} open` : `output common de-energised: ${outputCommonOpen.join(', ')} open`;
-    } else if (device.kind === 'contactor') {
-      const s = ctx.states[load.device] as ContactorState;
-      if (s.held) why = 'held by the mechanical interlock';
-      else if (energised && !s.closed) why = 'picking up';
-      else if (!energised && s.closed) why = 'dropping out';
+    } else {
+      why = ctx.wiring.models[load.device]!.explainLoad?.(ctx.states[load.device], energised) ?? '';
     }
     const reason = `${head}, ${device.id} ${loadWord}${why ? ` (${why})` : ''}`;
     outputs.push({ address, bit, forced, load: device.id, outputCommonLive, openContacts, energised, loadWord, reason });

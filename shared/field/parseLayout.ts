@@ -14,7 +14,11 @@ import { PanelLayoutSchema, type ContactRef, type DeviceSpec, type PanelLayout }
 export type LayoutResult = { ok: true; value: PanelLayout } | { ok: false; errors: string[] };
 
 /** Loads that a PLC output can drive. */
-const DRIVABLE: ReadonlySet<DeviceKind> = new Set<DeviceKind>(['contactor', 'lamp', 'horn']);
+/** "a contactor, a lamp or a horn": the kinds an output may drive, in words. */
+const LOAD_NOUNS = ((): string => {
+  const nouns = DEVICE_KINDS.filter((k) => modelOf(k).load === true).map((k) => modelOf(k).noun.replace(/^an? /, ''));
+  return nouns.length < 2 ? `a ${nouns.join('')}` : `a ${nouns.slice(0, -1).join(', a ')} or a ${nouns.at(-1)!}`;
+})();
 
 /** Validate JSON (already parsed) as a panel layout. */
 export function parsePanelLayout(json: unknown): LayoutResult {
@@ -107,8 +111,8 @@ function crossCheck(panel: PanelLayout): string[] {
       errors.push(`${at}.contact: "contact" says which contact feeds an input; add "feeds" or remove it`);
     }
     if (device.drivenBy !== undefined) {
-      if (!DRIVABLE.has(device.kind)) {
-        errors.push(`${at}.drivenBy: ${device.id} is ${model.noun}; an output drives a contactor coil, a lamp or a horn`);
+      if (model.load !== true) {
+        errors.push(`${at}.drivenBy: ${device.id} is ${model.noun}; an output drives ${LOAD_NOUNS}`);
       } else {
         checkAddress(device.drivenBy, 'Q', `${at}.drivenBy`, outputsUsed, device.id);
       }
@@ -117,18 +121,8 @@ function crossCheck(panel: PanelLayout): string[] {
       errors.push(`${at}.through: series contacts belong to a load's circuit; add "drivenBy" or remove them`);
     }
     device.through.forEach((ref, j) => checkRef(ref, `${at}.through[${j}]`));
-    if (device.kind === 'interlock') {
-      const [a, b] = device.params.contactors;
-      expectKind(a, 'contactor', `${at}.params.contactors[0]`);
-      expectKind(b, 'contactor', `${at}.params.contactors[1]`);
-      if (a === b) errors.push(`${at}.params.contactors: an interlock couples two different contactors`);
-    }
-    if (device.kind === 'overload' && device.params.motor !== undefined) {
-      expectKind(device.params.motor, 'motor', `${at}.params.motor`);
-    }
-    if (device.kind === 'motor') {
-      device.params.feeders.forEach((feeder, j) => expectKind(feeder.contactor, 'contactor', `${at}.params.feeders[${j}].contactor`));
-    }
+    for (const link of model.links?.(device.params) ?? []) expectKind(link.device, link.kind, `${at}.params.${link.path}`);
+    for (const problem of model.checkLinks?.(device.params) ?? []) errors.push(`${at}.params.${problem}`);
   });
   panel.inputCommon.forEach((ref, j) => checkRef(ref, `inputCommon[${j}]`));
   panel.outputCommon.forEach((ref, j) => checkRef(ref, `outputCommon[${j}]`));

@@ -14,6 +14,7 @@ import type { DeviceInputs, DeviceAction, ActionArgs } from './devices/model';
 import type { ActionResult, Simulation, SimulationOptions, SimulationResult } from './simulationApi';
 import { isEngaged, type ContactorState } from './devices/contactor';
 import { interlockRule } from './devices/interlock';
+import { preheatedState, type OverloadState } from './devices/overload';
 import { createEventLog, type FieldEventKind } from './events';
 import { describeChange, describeCommons, ACTION_WORDS, type ChangeContext } from './messages';
 import { deviceView, type DeviceView } from './views';
@@ -62,11 +63,11 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
   devices.forEach((_, i) => refresh(i));
   const closed = (c: WiredContact): boolean => closedBits[c.slot] === 1;
   /** What the layout asks each steppable device to gather before its step. */
-  const isMotor = devices.map((d) => d.kind === 'motor');
+  const isMotor = models.map((m) => m.gathers === 'supply');
   // The step functions taken out of the models once: one indirect call per device in the loop
   // instead of a property look-up on many differently shaped model objects.
   const stepFns = models.map((m) => m.step ?? ((state: unknown) => state));
-  const isOverload = devices.map((d) => d.kind === 'overload');
+  const isOverload = models.map((m) => m.gathers === 'current');
   const allClosed = (list: readonly WiredContact[]): boolean => {
     for (let i = 0; i < list.length; i += 1) if (!closed(list[i]!)) return false;
     return true;
@@ -83,6 +84,7 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     if (common) return `output common de-energised (${common.label} open)`;
     const series = firstOpen(load.through);
     if (series) return `${series.label} opened`;
+    if (!runtime.powered) return 'the controller has no power';
     if (!runtime.getOutput(load.output)) return `${load.address} turned OFF`;
     return '';
   };
@@ -186,6 +188,9 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
     return devices[link.a === i ? link.b : link.a]!.id;
   };
 
+  /** The devices that changed in the scan `quietScans` last looked at: the ones a leap moves on. */
+  const moving: number[] = [];
+
   const scan = (): void => {
     readInputs();
     runtime.scan();
@@ -268,6 +273,66 @@ function buildSimulation(wiring: Wiring, runtime: Runtime, maxEvents = 10_000): 
       states: [...states],
       inputs: inputs.map((x) => ({ ...x })),
     }),
+    fieldStates(into = new Array<unknown>(states.length)) {
+      for (let i = 0; i < states.length; i += 1) into[i] = states[i];
+      return into;
+    },
+    loadFieldStates(next) {
+      for (let i = 0; i < states.length; i += 1) {
+        if (states[i] === next[i]) continue;
+        states[i] = next[i];
+        words[i] = models[i]!.word(states[i], params[i]);
+        refresh(i);
+      }
+    },
+    preheat(deviceId, factor) {
+      const i = wiring.indexOf.get(deviceId);
+      if (i === undefined || models[i]!.gathers !== 'current') return { ok: false, error: `${deviceId} is not an overload relay on this panel` };
+      states[i] = preheatedState(states[i] as OverloadState, factor);
+      return { ok: true };
+    },
+    powerOff() {
+      if (!runtime.powered) return;
+      runtime.powerOff();
+      emit(null, 'action', 'controller power off: no scan, every output open');
+    },
+    powerOn() {
+      if (runtime.powered) return;
+      runtime.powerOn();
+      emit(null, 'action', 'controller power on: warm restart, retained variables kept, all others at their initial values');
+    },
+    probe(into) {
+      const probe = into ?? { engine: runtime.saveState(), states: [], words: [] };
+      if (into) runtime.saveState(into.engine);
+      probe.states.length = 0;
+      probe.words.length = 0;
+      for (let i = 0; i < states.length; i += 1) {
+        probe.states.push(states[i]);
+        probe.words.push(words[i]!);
+      }
+      return probe;
+    },
+    quietScans(probe, timers = true) {
+      // Words first: a word that moved may move contacts, and the next scan reads those.
+      for (let i = 0; i < states.length; i += 1) if (words[i] !== probe.words[i]) return 0;
+      let quiet = Number.POSITIVE_INFINITY;
+      moving.length = 0;
+      for (let i = 0; i < states.length && quiet > 0; i += 1) {
+        const before = probe.states[i];
+        if (states[i] === before) continue;
+        moving.push(i);
+        const model = models[i]!;
+        quiet = Math.min(quiet, model.quietSteps && model.leap ? model.quietSteps(before, states[i], params[i], inputs[i]!, dtMs) : 0);
+      }
+      if (quiet === 0) return 0;
+      return Math.min(quiet, runtime.quietScans(probe.engine, timers));
+    },
+    leap(scans) {
+      if (scans <= 0) return;
+      // Every device that changed in the probed scan has a closed form (quietScans said so).
+      runtime.leap(scans);
+      for (const i of moving) states[i] = models[i]!.leap!(states[i], params[i], inputs[i]!, dtMs, scans);
+    },
     restoreField(snapshot) {
       const fits =
         snapshot.panelId === wiring.panel.id &&

@@ -3,6 +3,7 @@
  * of creating one, and what it offers the panel view, the check runner and the command line.
  */
 import type { Diagnostic, Runtime } from '../engine';
+import type { SavedState } from '../engine/runtime';
 import type { ActionArgs, DeviceAction, DeviceInputs } from './devices/model';
 import type { EventLog, FieldEvent } from './events';
 import type { IoExplanation } from './explain';
@@ -39,6 +40,16 @@ export interface FieldSnapshot {
   readonly deviceIds: readonly string[];
   readonly states: readonly unknown[];
   readonly inputs: readonly DeviceInputs[];
+}
+
+/**
+ * The whole state (engine and field) as it stood before a scan, to tell afterwards whether that
+ * scan was quiet (`Simulation.quietScans`). Reused from probe to probe; treat as opaque.
+ */
+export interface QuietProbe {
+  engine: SavedState;
+  states: unknown[];
+  words: string[];
 }
 
 /** The outcome of a device action: done, or why not (also logged as a `refused` event). */
@@ -83,4 +94,32 @@ export interface Simulation {
   fieldSnapshot(): FieldSnapshot;
   /** Put back a field snapshot of the same panel; false, and nothing changed, when it does not fit. */
   restoreField(snapshot: FieldSnapshot): boolean;
+  /**
+   * The device states alone, in layout order, into `into` when given (no allocation then): for a
+   * search over many states (shared/proof), where the per-device inputs are recomputed every scan.
+   */
+  fieldStates(into?: unknown[]): unknown[];
+  /** Put back device states from `fieldStates` of this simulation (contacts and words follow). */
+  loadFieldStates(states: readonly unknown[]): void;
+  /**
+   * Start an overload relay "hot": its thermal image at the steady state of carrying `factor` × its
+   * setting (IEC 60947-4-1's hot state at 1). Not an operator's action, so nothing is logged.
+   */
+  preheat(deviceId: string, factor: number): ActionResult;
+  /** The controller loses power (`Runtime.powerOff`): outputs open, the field goes on; logged. */
+  powerOff(): void;
+  /** Power returns to the controller: a warm restart (`Runtime.powerOn`); logged. */
+  powerOn(): void;
+  /** Keep the state as it is now, before a scan (into `into` when given: no allocation then). */
+  probe(into?: QuietProbe): QuietProbe;
+  /**
+   * After exactly one scan since `probe`, and nothing done to the panel or the forces: how many
+   * further scans are certain to change no bit, no device word and log no event — the program at
+   * a fixed point but for running timers, every device at rest but for closed forms (the
+   * overload's image). Infinity at a fixed point; 0 when the next scan must run. `timers` false
+   * admits no running timer (for a caller that watches an elapsed time).
+   */
+  quietScans(probe: QuietProbe, timers?: boolean): number;
+  /** Count `scans` quiet scans without running them (after `quietScans` allowed as many): the same state, exactly. */
+  leap(scans: number): void;
 }

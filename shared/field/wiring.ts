@@ -109,17 +109,19 @@ export function wirePanel(panel: PanelLayout): Wiring {
   const interlocks: InterlockLink[] = [];
   const motorFeeds: (MotorFeed | null)[] = devices.map(() => null);
   const measures = devices.map(() => -1);
+  // The couplings come from each model's links: no kind is named here.
   devices.forEach((device, i) => {
-    if (device.kind === 'interlock') {
-      interlocks.push({ device: i, a: indexOf.get(device.params.contactors[0]) ?? -1, b: indexOf.get(device.params.contactors[1]) ?? -1 });
-    } else if (device.kind === 'motor') {
-      motorFeeds[i] = {
-        device: i,
-        feeders: device.params.feeders.map((f) => ({ contactor: indexOf.get(f.contactor) ?? -1, direction: f.direction })),
-      };
-    } else if (device.kind === 'overload' && device.params.motor !== undefined) {
-      measures[i] = indexOf.get(device.params.motor) ?? -1;
+    const links = models[i]!.links?.(device.params) ?? [];
+    const interlocked = links.filter((l) => l.role === 'interlocks');
+    if (interlocked.length === 2) {
+      interlocks.push({ device: i, a: indexOf.get(interlocked[0]!.device) ?? -1, b: indexOf.get(interlocked[1]!.device) ?? -1 });
     }
+    const feeders = links.filter((l) => l.role === 'fedBy');
+    if (models[i]!.gathers === 'supply') {
+      motorFeeds[i] = { device: i, feeders: feeders.map((f) => ({ contactor: indexOf.get(f.device) ?? -1, direction: f.direction ?? 'forward' })) };
+    }
+    const measured = links.find((l) => l.role === 'measures');
+    if (measured !== undefined) measures[i] = indexOf.get(measured.device) ?? -1;
   });
   const inputCommon = panel.inputCommon.map(wire);
   const outputCommon = panel.outputCommon.map(wire);

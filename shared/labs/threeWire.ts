@@ -60,6 +60,10 @@ export const THREE_WIRE: Lab = {
       { expect: { K1: 'open', '%QX1': false }, label: 'after the overload reset the belt stays stopped', hidden: true, points: 2 },
       ...pulse('S2', 100, 700),
       { expect: { K1: 'closed' }, label: 'it starts again with S2 after the reset', hidden: true },
+      // A controller power loss drops K1 (its output opens); on the warm restart a seal-in on a
+      // retained bit would restart the belt by itself, one on K1_Aux or a plain bit does not.
+      { power: 'off' }, { wait: 500 }, { power: 'on' }, { wait: 1000 },
+      { expect: { K1: 'open', M1: 'stopped', '%QX1': false }, label: 'after a power loss of the controller the belt stays stopped', hidden: true, points: 2 },
     ],
   },
 };

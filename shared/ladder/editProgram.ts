@@ -97,12 +97,15 @@ export function addTag(doc: Program, args: { tag: unknown; index?: number }): Pr
 }
 
 /** Change a tag's address and/or comment. */
-export function updateTag(doc: Program, args: { name: string; address?: string; comment?: string }): Program {
+export function updateTag(doc: Program, args: { name: string; address?: string; comment?: string; retain?: boolean }): Program {
   const index = tagIndex(doc, args.name);
   if (index < 0) return doc;
   const current = doc.tags[index]!;
-  const next = { ...current, address: args.address?.trim() ?? current.address, comment: args.comment?.trim() ?? current.comment };
-  if (next.address === current.address && next.comment === current.comment) return doc;
+  const { retain: _retain, ...rest } = current;
+  const retain = args.retain ?? current.retain === true;
+  // Not retained is written by leaving the flag out, so documents without retain stay as they were.
+  const next: Tag = { ...rest, address: args.address?.trim() ?? current.address, comment: args.comment?.trim() ?? current.comment, ...(retain && { retain: true }) };
+  if (next.address === current.address && next.comment === current.comment && retain === (current.retain === true)) return doc;
   if (!TagSchema.safeParse(next).success) return doc;
   const tags = doc.tags.slice();
   tags[index] = next;

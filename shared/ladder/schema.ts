@@ -28,7 +28,8 @@ export const OperandSchema = z.string().max(64, 'an operand is at most 64 charac
 /** `| |` NO contact, `|/|` NC contact, `|P|` rising-edge contact, `|N|` falling-edge contact (IEC 61131-3). */
 export const ContactVariantSchema = z.enum(['no', 'nc', 'rising', 'falling']);
 /** `( )` coil, `(/)` negated coil, `(S)` set coil, `(R)` reset coil (IEC 61131-3). */
-export const CoilVariantSchema = z.enum(['coil', 'negated', 'set', 'reset']);
+/** `positive` / `negative`: the transition-sensing coils -(P)- / -(N)- of IEC 61131-3. */
+export const CoilVariantSchema = z.enum(['coil', 'negated', 'set', 'reset', 'positive', 'negative']);
 /** IEC 61131-3 standard function blocks offered in the palette. */
 export const BlockTypeSchema = z.enum(['TON', 'TOF', 'TP', 'CTU', 'CTD', 'CTUD', 'R_TRIG', 'F_TRIG', 'SR', 'RS']);
 
@@ -122,6 +123,11 @@ export const TagSchema = z.object({
     .regex(/^[A-Za-z_][A-Za-z0-9_]*$/, 'a tag name starts with a letter or "_" and uses letters, digits and "_"'),
   address: z.string().max(16),
   comment: z.string().max(200).default(''),
+  /**
+   * The variable keeps its value through a power loss and a warm restart (IEC 61131-3 RETAIN);
+   * absent means not retained. Meaningful for output and memory bits.
+   */
+  retain: z.boolean().optional(),
 });
 export type Tag = z.infer<typeof TagSchema>;
 

@@ -86,6 +86,15 @@ function coilStatement(coil: Coil, flow: Expr, ctx: RungContext): string {
       return `IF ${printExpr(flow)} THEN ${target} := TRUE; END_IF;`;
     case 'reset':
       return `IF ${printExpr(flow)} THEN ${target} := FALSE; END_IF;`;
+    case 'positive':
+    case 'negative': {
+      // A transition-sensing coil is the edge of its power flow: an R_TRIG (F_TRIG) on it.
+      const type = coil.variant === 'positive' ? 'R_TRIG' : 'F_TRIG';
+      const name = helperName(`Rung${ctx.rungNumber}_${coil.variant === 'positive' ? 'Rise' : 'Fall'}`, ctx);
+      ctx.declarations.push({ name, type, comment: `${coil.variant} transition-sensing coil ${target} in rung ${ctx.rungNumber}` });
+      ctx.statements.push(`${name}(CLK := ${printExpr(flow)});`);
+      return `${target} := ${name}.Q;`;
+    }
   }
 }
 
@@ -148,10 +157,13 @@ export function programToStructuredText(program: Program): string {
   const names = createNameView(program);
   const taken = new Set<string>([...names.symbols.spellings.keys()]);
   const declarations: string[] = [];
+  /** Tags marked retain, declared in a `VAR RETAIN` block of their own (IEC 61131-3). */
+  const retained: string[] = [];
   for (const tag of program.tags) {
     const address = parseAddress(tag.address);
     const comment = tag.comment.trim() ? ` (* ${commentText(tag.comment)} *)` : '';
-    if (address.ok) declarations.push(`${INDENT}${tag.name} AT ${formatAddress(address.value)} : BOOL;${comment}`);
+    if (address.ok && tag.retain === true) retained.push(`${INDENT}${tag.name} AT ${formatAddress(address.value)} : BOOL;${comment}`);
+    else if (address.ok) declarations.push(`${INDENT}${tag.name} AT ${formatAddress(address.value)} : BOOL;${comment}`);
     else declarations.push(`${INDENT}(* tag ${commentText(tag.name)} has no usable address: ${commentText(tag.address)} *)`);
   }
   for (const [key, type] of names.symbols.instances) {
@@ -176,6 +188,7 @@ export function programToStructuredText(program: Program): string {
     `PROGRAM ${programName(program.title)}`,
   ];
   if (declarations.length > 0) lines.push('VAR', ...declarations, 'END_VAR');
+  if (retained.length > 0) lines.push('VAR RETAIN', ...retained, 'END_VAR');
   lines.push('', ...body, 'END_PROGRAM', '');
   return lines.join('\n');
 }

@@ -16,7 +16,7 @@ const CONTACT_PREFIX = { no: '', nc: 'NOT ', rising: 'RISING ', falling: 'FALLIN
   Contact['variant'],
   string
 >;
-const COIL_PREFIX = { coil: '', negated: 'NOT ', set: 'SET ', reset: 'RESET ' } as const satisfies Record<Coil['variant'], string>;
+const COIL_PREFIX = { coil: '', negated: 'NOT ', set: 'SET ', reset: 'RESET ', positive: 'RISING ', negative: 'FALLING ' } as const satisfies Record<Coil['variant'], string>;
 
 function coilText(coil: Coil, names: NameView): string {
   return `${COIL_PREFIX[coil.variant]}${names.display(coil.operand)}`;

@@ -235,7 +235,8 @@ function findProblems(program: Program, space: AddressSpace): Diagnostic[] {
         checkInstanceUse(element, rungNumber, place, ctx, firstInstance);
       } else {
         const written = checkCoil(element, place, ctx);
-        if (written === null || (element.variant !== 'coil' && element.variant !== 'negated')) continue;
+        // Coils that write every scan (the transition-sensing ones too) clash with each other; set and reset do not.
+        if (written === null || element.variant === 'set' || element.variant === 'reset') continue;
         const previous = lastWriter.get(written.address);
         if (previous !== undefined && previous !== rungNumber && !writtenHere.has(written.address)) {
           ctx.found.push(createDiagnostic('duplicate-coil', { operand: written.shown, otherRung: previous, thisRung: rungNumber }, place));

@@ -38,7 +38,7 @@ const text = (x: number, y: number, value: string, font: FontRole, size: number,
 
 /** The letter written inside a contact or coil symbol, if any. */
 const CONTACT_MARK = { no: '', nc: '/', rising: 'P', falling: 'N' } as const satisfies Record<ContactVariant, string>;
-const COIL_MARK = { coil: '', negated: '/', set: 'S', reset: 'R' } as const satisfies Record<CoilVariant, string>;
+const COIL_MARK = { coil: '', negated: '/', set: 'S', reset: 'R', positive: 'P', negative: 'N' } as const satisfies Record<CoilVariant, string>;
 
 function contactOps(cx: number, wy: number, variant: ContactVariant): DrawOp[] {
   const ops = [

@@ -22,6 +22,8 @@ const COIL_ITEMS = {
   negated: { name: 'Negated coil', symbol: '(/)', shortcut: 'Shift+O', hint: 'Writes the inverse of the power reaching it.' },
   set: { name: 'Set coil', symbol: '(S)', shortcut: 'S', hint: 'Sets its bit TRUE while powered; otherwise leaves it.' },
   reset: { name: 'Reset coil', symbol: '(R)', shortcut: 'R', hint: 'Resets its bit FALSE while powered; otherwise leaves it.' },
+  positive: { name: 'Rising-power coil', symbol: '(P)', shortcut: '', hint: 'Turns its bit TRUE for one scan when the power reaching it turns on.' },
+  negative: { name: 'Falling-power coil', symbol: '(N)', shortcut: '', hint: 'Turns its bit TRUE for one scan when the power reaching it turns off.' },
 } as const satisfies Record<CoilVariant, { name: string; symbol: string; shortcut: string; hint: string }>;
 
 /** Keys for the blocks used most in motor control; the rest are reached from the palette list. */

@@ -77,6 +77,10 @@ export interface SimulatorSession {
   force(operand: string, value: boolean): { ok: true } | { ok: false; error: string };
   unforce(operand: string): void;
   clearForces(): void;
+  /** Start an overload relay hot (a check script's `preheat`). */
+  preheat(deviceId: string, factor: number): ActionResult;
+  /** The controller loses power (false) or gets it back with a warm restart (true). */
+  power(on: boolean): void;
   /** Record these signals too (members, memory bits); the I/O is always recorded. */
   setExtraSignals(signals: readonly string[]): void;
   dismissMessage(id: number): void;
@@ -293,6 +297,17 @@ export function createSimulatorSession(options: SessionOptions): SimulatorSessio
       if (simulation === null) return;
       simulation.runtime.unforce(operand);
       logSession(`${operand} force removed`);
+    },
+    preheat(deviceId, factor) {
+      if (simulation === null) return { ok: false, error: 'nothing is running' };
+      const result = simulation.preheat(deviceId, factor);
+      if (result.ok) logSession(`${deviceId} preheated: steady at ${factor} × its setting`);
+      return result;
+    },
+    power(on) {
+      if (simulation === null) return;
+      if (on) simulation.powerOn();
+      else simulation.powerOff();
     },
     clearForces() {
       if (simulation === null || simulation.runtime.forces().size === 0) return;

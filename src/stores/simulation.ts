@@ -242,6 +242,18 @@ export const useSimulationStore = defineStore('simulation', () => {
     changed();
   }
 
+  /** A check script's `preheat` and `power` steps, for "show me". */
+  function preheat(deviceId: string, factor: number): ActionResult {
+    const result = session.value?.preheat(deviceId, factor) ?? { ok: false as const, error: 'nothing is loaded' };
+    changed();
+    return result;
+  }
+
+  function power(on: boolean): void {
+    session.value?.power(on);
+    changed();
+  }
+
   /** Show or hide a signal in the timing diagram. */
   function toggleTraced(signal: string): void {
     const list = traced.value.includes(signal) ? traced.value.filter((s) => s !== signal) : [...traced.value, signal];
@@ -293,6 +305,8 @@ export const useSimulationStore = defineStore('simulation', () => {
     release,
     force,
     unforce,
+    preheat,
+    power,
     clearForces,
     toggleTraced,
     dismissMessage,

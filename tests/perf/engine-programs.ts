@@ -13,7 +13,7 @@
  * file and imported, exactly as if someone had typed it.
  */
 import type { AddressSpace } from '@shared/ladder/addresses';
-import type { BlockType, CoilVariant, NetworkNode, Program } from '@shared/ladder/schema';
+import type { BlockType, NetworkNode, Program } from '@shared/ladder/schema';
 import { programBuilder } from '../unit/engine/build';
 
 export type ProgramShape = 'series' | 'parallel';
@@ -138,7 +138,7 @@ export function benchProgram(shape: ProgramShape, rungCount: number, seed = 2026
     return [lead, wide, contact(rung, pre)];
   };
 
-  const coilVariant = (): CoilVariant => {
+  const coilVariant = (): 'coil' | 'negated' | 'set' | 'reset' => {
     const roll = random();
     return roll < 0.78 ? 'coil' : roll < 0.85 ? 'negated' : roll < 0.925 ? 'set' : 'reset';
   };

@@ -59,12 +59,20 @@ export interface BlockBehaviour<S, I> {
   readonly step: (state: S, inputs: I, dtMs: number) => S;
   /** The same call in WebAssembly, over the instance's state record (see `BlockEmit`). */
   readonly emit: (b: BlockEmit) => void;
+  /**
+   * A block whose state moves with time alone: while it runs, a call changes only `elapsed`, by
+   * the time charged, until `elapsed` reaches the input `preset` (IEC 61131-3 timers). The engine
+   * leaps over such scans (`leap.ts`) instead of running them.
+   */
+  readonly clock?: { readonly elapsed: 'ET'; readonly preset: 'PT' };
 }
 
+const TIMER_CLOCK = { elapsed: 'ET', preset: 'PT' } as const;
+
 export const BLOCK_BEHAVIOURS = {
-  TON: { initial: DELAY_TIMER_INITIAL, step: stepTON, emit: emitTON },
-  TOF: { initial: DELAY_TIMER_INITIAL, step: stepTOF, emit: emitTOF },
-  TP: { initial: PULSE_TIMER_INITIAL, step: stepTP, emit: emitTP },
+  TON: { initial: DELAY_TIMER_INITIAL, step: stepTON, emit: emitTON, clock: TIMER_CLOCK },
+  TOF: { initial: DELAY_TIMER_INITIAL, step: stepTOF, emit: emitTOF, clock: TIMER_CLOCK },
+  TP: { initial: PULSE_TIMER_INITIAL, step: stepTP, emit: emitTP, clock: TIMER_CLOCK },
   CTU: { initial: UP_COUNTER_INITIAL, step: stepCTU, emit: emitCTU },
   CTD: { initial: DOWN_COUNTER_INITIAL, step: stepCTD, emit: emitCTD },
   CTUD: { initial: UP_DOWN_COUNTER_INITIAL, step: stepCTUD, emit: emitCTUD },
@@ -73,6 +81,12 @@ export const BLOCK_BEHAVIOURS = {
   SR: { initial: BISTABLE_INITIAL, step: stepSR, emit: emitSR },
   RS: { initial: BISTABLE_INITIAL, step: stepRS, emit: emitRS },
 } as const satisfies { [K in BlockType]: BlockBehaviour<BlockStateByType[K], BlockInputsByType[K]> };
+
+/** The clock of a block type (see `BlockBehaviour.clock`), or undefined for a block that does not run on time. */
+export function clockOf(type: BlockType): BlockBehaviour<unknown, unknown>['clock'] {
+  const behaviour = BLOCK_BEHAVIOURS[type];
+  return 'clock' in behaviour ? behaviour.clock : undefined;
+}
 
 /** Read an output member (`Q`, `ET`, `CV`, `QU`, `QD`, `Q1`) of a state. */
 export function readMember(state: BlockState, member: string): boolean | number | undefined {

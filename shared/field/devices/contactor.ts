@@ -45,6 +45,13 @@ export const contactor: DeviceModel<ContactorParams, ContactorState> = {
   isClosed: (state, _params, contact) => (contact === '13-14' ? state.closed : !state.closed),
   word: (state) => (state.closed ? 'closed' : 'open'),
   words: () => ['open', 'closed'],
+  load: true,
+  explainLoad(state, energised) {
+    if (state.held) return 'held by the mechanical interlock';
+    if (energised && !state.closed) return 'picking up';
+    if (!energised && state.closed) return 'dropping out';
+    return '';
+  },
   step(state, params, inputs, dtMs) {
     const held = inputs.energised && inputs.blocked && !state.closed;
     const wantClosed = inputs.energised && !held;

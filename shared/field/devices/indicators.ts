@@ -28,6 +28,7 @@ export const lamp: DeviceModel<LampParams, IndicatorState> = {
   isClosed: () => false,
   word: (state) => (state.on ? 'lit' : 'dark'),
   words: () => ['lit', 'dark'],
+  load: true,
   step: (state, _params, inputs) => (inputs.energised === state.on ? state : inputs.energised ? ON : OFF),
   actions: {},
 };
@@ -41,6 +42,7 @@ export const horn: DeviceModel<HornParams, IndicatorState> = {
   isClosed: () => false,
   word: (state) => (state.on ? 'sounding' : 'silent'),
   words: () => ['sounding', 'silent'],
+  load: true,
   step: (state, _params, inputs) => (inputs.energised === state.on ? state : inputs.energised ? ON : OFF),
   actions: {},
 };

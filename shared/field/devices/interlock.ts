@@ -57,4 +57,6 @@ export const interlock: DeviceModel<InterlockParams, InterlockState> = {
   words: () => ['clear', 'conflict'],
   step: (state, _params, inputs) => (inputs.conflict === state.conflict ? state : inputs.conflict ? CONFLICT : CLEAR),
   actions: {},
+  links: (params) => params.contactors.map((device, i) => ({ role: 'interlocks' as const, device, kind: 'contactor' as const, path: `contactors[${i}]` })),
+  checkLinks: (params) => (params.contactors[0] === params.contactors[1] ? ['contactors: an interlock couples two different contactors'] : []),
 };

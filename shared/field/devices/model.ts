@@ -56,6 +56,23 @@ export interface DeviceInputs {
   currentA: number;
 }
 
+/**
+ * A coupling to another device named in this one's parameters: the wiring builds the circuits
+ * from these, and the layout check makes sure the named device exists and is of `kind`.
+ *  - `interlocks`: a mechanical interlock's two contactors (held open against each other);
+ *  - `fedBy`: a contactor whose main contacts feed a motor, turning it `direction`;
+ *  - `measures`: the motor whose current an overload relay's heaters carry.
+ */
+export interface DeviceLink {
+  readonly role: 'interlocks' | 'fedBy' | 'measures';
+  /** The other device, by id. */
+  readonly device: string;
+  readonly kind: DeviceKind;
+  /** Where in the parameters it is named, for messages: `contactors[0]`. */
+  readonly path: string;
+  readonly direction?: 'forward' | 'reverse';
+}
+
 /** Extra values some actions take: a selector position, a load factor (multiple of FLA). */
 export interface ActionArgs {
   to?: string;
@@ -96,7 +113,27 @@ export interface DeviceModel<P, S> {
   words(params: P): readonly string[];
   /** Advance by `dtMs` of virtual time. Absent for devices that only change by actions. */
   step?(state: S, params: P, inputs: DeviceInputs, dtMs: number): S;
+  /**
+   * For a device that keeps changing at rest in a known closed form (the overload's thermal image):
+   * given its state `before` and `after` one step with `inputs`, how many further steps with the
+   * same inputs are certain to keep its word (so its contacts and messages): Infinity for never a
+   * change, 0 when it cannot say. Such a device must be read by the others only through its
+   * contacts. Absent: a device is quiet only when a step returns the very same state.
+   */
+  quietSteps?(before: S, after: S, params: P, inputs: DeviceInputs, dtMs: number): number;
+  /** The state after `steps` more steps with `inputs`, exactly what stepping gives (after `quietSteps` allowed them). */
+  leap?(state: S, params: P, inputs: DeviceInputs, dtMs: number, steps: number): S;
   readonly actions: DeviceActions<P, S>;
+  /** An output may drive it (a coil, a lamp, a horn): it is a load with `inputs.energised`. */
+  readonly load?: true;
+  /** Its couplings to other devices (see `DeviceLink`); none if absent. */
+  links?(params: P): readonly DeviceLink[];
+  /** Problems of its parameters that need the whole panel's view, relative to `params` (`contactors: …`). */
+  checkLinks?(params: P): readonly string[];
+  /** What the field gathers for its step besides `energised`: the supply through its feeders, or the current it measures. */
+  readonly gathers?: 'supply' | 'current';
+  /** For a load: why its state differs from its circuit right now, in words (`picking up`), or ''. */
+  explainLoad?(state: S, energised: boolean): string;
 }
 
 /** Shorthand for a successful action. */

@@ -64,6 +64,9 @@ export const motor: DeviceModel<MotorParams, MotorState> = {
   isClosed: () => false,
   word: (state) => motorDirection(state),
   words: () => ['stopped', 'forward', 'reverse'],
+  gathers: 'supply',
+  links: (params) =>
+    params.feeders.map((f, i) => ({ role: 'fedBy' as const, device: f.contactor, kind: 'contactor' as const, path: `feeders[${i}].contactor`, direction: f.direction })),
   step(state, params, inputs, dtMs) {
     const supply = inputs.supply;
     if (supply === 'none' && state.speed === 0 && state.currentA === 0) {

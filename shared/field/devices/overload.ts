@@ -28,6 +28,13 @@ export type OverloadParams = z.infer<typeof OverloadParamsSchema>;
 export interface OverloadState {
   /** Thermal image in (per unit of the setting)²; 0 = cold. */
   readonly theta: number;
+  /**
+   * The image when the current last changed, and the time since then at this current, in ms:
+   * `theta` is always the closed form from them (`advanceImage(baseTheta, I, sinceMs)`), so n steps
+   * and one leap of n steps give the very same number.
+   */
+  readonly baseTheta: number;
+  readonly sinceMs: number;
   readonly tripped: boolean;
   /** What tripped it, for the event log. */
   readonly cause: 'thermal' | 'manual' | null;
@@ -61,33 +68,71 @@ function tauOf(params: OverloadParams): number {
   return timeConstantS(params.tripClass, params.tripFactor);
 }
 
+/** The state `steps` steps of `dtMs` at `currentA` on from `state` (one step, or a leap). */
+function advanced(state: OverloadState, params: OverloadParams, currentA: number, dtMs: number, steps: number): OverloadState {
+  const perUnit = currentA / params.settingA;
+  const same = currentA === state.currentA;
+  const baseTheta = same ? state.baseTheta : state.theta;
+  const sinceMs = (same ? state.sinceMs : 0) + steps * dtMs;
+  const theta = advanceImage(baseTheta, perUnit, sinceMs, state.tauS);
+  const overMs = perUnit > 1 ? state.overMs + steps * dtMs : 0;
+  if (currentA === 0 && theta < COLD_EPSILON) {
+    return { theta: 0, baseTheta: 0, sinceMs: 0, tripped: state.tripped, cause: state.cause, overMs: 0, currentA: 0, tauS: state.tauS };
+  }
+  const k2 = params.tripFactor * params.tripFactor;
+  const tripsNow = !state.tripped && theta >= k2;
+  return {
+    theta,
+    baseTheta,
+    sinceMs,
+    tripped: state.tripped || tripsNow,
+    cause: tripsNow ? 'thermal' : state.cause,
+    overMs,
+    currentA,
+    tauS: state.tauS,
+  };
+}
+
+/** Steps this far before the computed trip are never leapt, whatever exp's last bit does. */
+const TRIP_MARGIN_STEPS = 2;
+
 export const overload: DeviceModel<OverloadParams, OverloadState> = {
   kind: 'overload',
   noun: 'an overload relay',
   params: OverloadParamsSchema,
   contacts: () => CONTACTS,
-  initial: (params) => ({ theta: 0, tripped: false, cause: null, overMs: 0, currentA: 0, tauS: tauOf(params) }),
+  initial: (params) => ({ theta: 0, baseTheta: 0, sinceMs: 0, tripped: false, cause: null, overMs: 0, currentA: 0, tauS: tauOf(params) }),
   isClosed: (state, _params, contact) => (contact === '95-96' ? !state.tripped : state.tripped),
   word: (state) => (state.tripped ? 'tripped' : 'ok'),
   words: () => ['ok', 'tripped'],
+  gathers: 'current',
+  links: (params) => (params.motor === undefined ? [] : [{ role: 'measures' as const, device: params.motor, kind: 'motor' as const, path: 'motor' }]),
   step(state, params, inputs, dtMs) {
     const current = inputs.currentA;
     if (current === 0 && state.theta === 0 && state.currentA === 0 && state.overMs === 0) return state;
-    const perUnit = current / params.settingA;
-    let theta = advanceImage(state.theta, perUnit, dtMs, state.tauS);
-    if (current === 0 && theta < COLD_EPSILON) theta = 0;
-    const overMs = perUnit > 1 ? state.overMs + dtMs : 0;
-    const k2 = params.tripFactor * params.tripFactor;
-    const tripsNow = !state.tripped && theta >= k2;
-    return {
-      theta,
-      tripped: state.tripped || tripsNow,
-      cause: tripsNow ? 'thermal' : state.cause,
-      overMs,
-      currentA: current,
-      tauS: state.tauS,
-    };
+    return advanced(state, params, current, dtMs, 1);
   },
+  quietSteps(before, after, params, inputs, dtMs) {
+    // Quiet only on a run at one current already anchored (the step just taken continued it).
+    if (inputs.currentA !== after.currentA || before.currentA !== after.currentA || after.sinceMs !== before.sinceMs + dtMs) return 0;
+    if (after.tripped !== before.tripped) return 0;
+    // Tripped, the word stays "tripped" however it cools (reaching cold is no word change).
+    if (after.tripped) return Number.POSITIVE_INFINITY;
+    const perUnit = after.currentA / params.settingA;
+    const target = perUnit * perUnit;
+    const k2 = params.tripFactor * params.tripFactor;
+    // Below the trip level the image tends to a value under it: never a trip.
+    if (target < k2) return Number.POSITIVE_INFINITY;
+    // θ(t) = target + (base − target)·e^(−t/τ) reaches k² at t = τ·ln((target − base)/(target − k²)).
+    const tripMs = after.tauS * 1000 * Math.log((target - after.baseTheta) / (target - k2));
+    if (!Number.isFinite(tripMs)) return 0;
+    const firstTripStep = Math.ceil((tripMs - after.sinceMs) / dtMs);
+    let quiet = Math.max(0, firstTripStep - 1 - TRIP_MARGIN_STEPS);
+    // The image rises monotonically here; make sure the last leapt step is still below the trip.
+    while (quiet > 0 && advanceImage(after.baseTheta, perUnit, after.sinceMs + quiet * dtMs, after.tauS) >= k2) quiet -= 1;
+    return quiet;
+  },
+  leap: (state, params, inputs, dtMs, steps) => advanced(state, params, inputs.currentA, dtMs, steps),
   actions: {
     trip: (state) => (state.tripped ? done(state) : done({ ...state, tripped: true, cause: 'manual' })),
     reset(state, params) {
@@ -115,5 +160,6 @@ export const overload: DeviceModel<OverloadParams, OverloadState> = {
  * its overload tests; 0 is cold. Trip latch and its cause are kept: heat does not reset a relay.
  */
 export function preheatedState(state: OverloadState, perUnit: number): OverloadState {
-  return { ...state, theta: perUnit * perUnit, overMs: 0 };
+  const theta = perUnit * perUnit;
+  return { ...state, theta, baseTheta: theta, sinceMs: 0, overMs: 0 };
 }

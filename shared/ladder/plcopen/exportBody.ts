@@ -144,7 +144,7 @@ function emitElement(element: Element, inputs: Source[], frame: RungFrame, ids: 
   return { refLocalId: localId, y: pinY };
 }
 
-/** IEC 61131-3 modifiers as TC6 attributes: `negated`, `edge` (contacts), `storage` (coils). */
+/** IEC 61131-3 modifiers as TC6 attributes: `negated`, `edge` (contacts and transition-sensing coils), `storage` (coils). */
 function variantAttributes(element: Contact | Coil): Record<string, string> {
   if (element.kind === 'contact') {
     return {
@@ -154,6 +154,7 @@ function variantAttributes(element: Contact | Coil): Record<string, string> {
   }
   return {
     negated: String(element.variant === 'negated'),
+    edge: element.variant === 'positive' ? 'rising' : element.variant === 'negative' ? 'falling' : 'none',
     storage: element.variant === 'set' || element.variant === 'reset' ? element.variant : 'none',
   };
 }

@@ -67,8 +67,12 @@ function coordinateInfo(): XmlElement {
 }
 
 function programPou(program: Program): XmlElement {
-  const variables = interfaceVariables(program);
-  const interfaceChildren = variables.length === 0 ? [] : [el('localVars', {}, variables)];
+  const { variables, retained } = interfaceVariables(program);
+  // Retained tags go in a list of their own: TC6 marks retention on the list (`retain="true"`).
+  const interfaceChildren = [
+    ...(variables.length === 0 ? [] : [el('localVars', {}, variables)]),
+    ...(retained.length === 0 ? [] : [el('localVars', { retain: 'true' }, retained)]),
+  ];
   return el('pou', { name: POU_NAME, pouType: 'program' }, [
     el('interface', {}, interfaceChildren),
     el('body', {}, [el('LD', {}, exportLdBody(program.rungs))]),
@@ -76,18 +80,19 @@ function programPou(program: Program): XmlElement {
 }
 
 /**
- * The POU's local variables: one BOOL per tag (its address as `address`, its comment as
+ * The POU's local variables (retained tags apart): one BOOL per tag (its address as `address`, its comment as
  * `documentation`), one per block instance (`<derived name="TON"/>`), and one per memory bit the
  * rungs use without a tag, so another tool finds every variable declared.
  */
-function interfaceVariables(program: Program): XmlElement[] {
+function interfaceVariables(program: Program): { variables: XmlElement[]; retained: XmlElement[] } {
   const names = new Set<string>(program.tags.map((tag) => tag.name.toUpperCase()));
-  const tagVariables = program.tags.map((tag) =>
+  const tagVariable = (tag: Program['tags'][number]): XmlElement =>
     el('variable', { name: tag.name, address: tag.address }, [
       boolType(),
       ...(tag.comment === '' ? [] : [formattedText('documentation', tag.comment)]),
-    ]),
-  );
+    ]);
+  const tagVariables = program.tags.filter((tag) => tag.retain !== true).map(tagVariable);
+  const retained = program.tags.filter((tag) => tag.retain === true).map(tagVariable);
 
   const instances = new Map<string, string>();
   for (const { element } of elementsOfProgram(program)) {
@@ -108,7 +113,7 @@ function interfaceVariables(program: Program): XmlElement[] {
       formattedText('documentation', 'memory bit used without a tag'),
     ]);
   });
-  return [...tagVariables, ...instanceVariables, ...memoryVariables];
+  return { variables: [...tagVariables, ...instanceVariables, ...memoryVariables], retained };
 }
 
 function boolType(): XmlElement {

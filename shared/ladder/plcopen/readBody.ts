@@ -180,15 +180,15 @@ function readCoil(element: XmlElement, placed: Placed): Result<CoilRecord> {
   if (!negated.ok) return negated;
   const edge = readModifier(element, 'edge', ['rising', 'falling'] as const, placed.label);
   if (!edge.ok) return edge;
-  if (edge.value !== 'none') {
-    return fail(`${placed.label} with edge="${edge.value}" is not supported: Rungwright has coil, negated coil, set coil and reset coil`);
-  }
   const storage = readModifier(element, 'storage', ['set', 'reset'] as const, placed.label);
   if (!storage.ok) return storage;
-  if (negated.value && storage.value !== 'none') {
-    return fail(`${placed.label} is both negated and storage="${storage.value}", which is not supported: Rungwright has coil, negated coil, set coil and reset coil`);
+  const modifiers = [negated.value && 'negated', edge.value !== 'none' && `edge="${edge.value}"`, storage.value !== 'none' && `storage="${storage.value}"`].filter(Boolean);
+  if (modifiers.length > 1) {
+    return fail(`${placed.label} is ${modifiers.length === 2 ? 'both ' : ''}${modifiers.join(' and ')}, which is not supported: Rungwright has coil, negated coil, set coil, reset coil and the positive and negative transition-sensing coils`);
   }
-  const variant: CoilVariant = storage.value !== 'none' ? storage.value : negated.value ? 'negated' : 'coil';
+  // TC6 writes the transition-sensing coils -(P)- / -(N)- as edge="rising" / edge="falling".
+  const variant: CoilVariant =
+    edge.value === 'rising' ? 'positive' : edge.value === 'falling' ? 'negative' : storage.value !== 'none' ? storage.value : negated.value ? 'negated' : 'coil';
   return ok({
     ...placed,
     kind: 'coil',

@@ -22,6 +22,8 @@ export interface Declaration {
   /** Declared by our exporter for a memory bit used without a tag. */
   untagged: boolean;
   initialValue: string | undefined;
+  /** Declared in a list marked `retain="true"` (IEC 61131-3 RETAIN). */
+  retain: boolean;
 }
 
 const VARIABLE_LISTS = ['localVars', 'tempVars', 'inputVars', 'outputVars', 'inOutVars', 'externalVars', 'globalVars', 'accessVars'];
@@ -36,10 +38,10 @@ export function readDeclarations(pou: XmlElement, project: XmlElement): Declarat
     lists.push(...childrenNamed(configuration, 'globalVars'));
     for (const resource of childrenNamed(configuration, 'resource')) lists.push(...childrenNamed(resource, 'globalVars'));
   }
-  return lists.flatMap((list) => childrenNamed(list, 'variable')).flatMap(readDeclaration);
+  return lists.flatMap((list) => childrenNamed(list, 'variable').flatMap((v) => readDeclaration(v, list.attrs.retain === 'true')));
 }
 
-function readDeclaration(variable: XmlElement): Declaration[] {
+function readDeclaration(variable: XmlElement, retain: boolean): Declaration[] {
   const name = variable.attrs.name?.trim();
   if (!name) return [];
   const typeElement = elementChildren(child(variable, 'type') ?? variable).find(() => true);
@@ -55,6 +57,7 @@ function readDeclaration(variable: XmlElement): Declaration[] {
       comment: readFormattedText(child(variable, 'documentation')),
       untagged: readRungwrightAddData(variable, 'untagged') !== undefined,
       initialValue: simple?.attrs.value,
+      retain,
     },
   ];
 }
@@ -98,7 +101,7 @@ export function createOperandResolver(
   for (const declaration of byName.values()) {
     if (declaration.address === undefined || declaration.untagged || declaration.derived) continue;
     const comment = clip(declaration.comment, 200, `the comment of variable "${declaration.name}"`, warnings);
-    const parsed = TagSchema.safeParse({ name: declaration.name, address: declaration.address, comment });
+    const parsed = TagSchema.safeParse({ name: declaration.name, address: declaration.address, comment, ...(declaration.retain && { retain: true }) });
     if (!parsed.success) {
       const reason = parsed.error.issues[0]?.message ?? 'it is not a valid tag';
       return fail(`variable "${declaration.name}" (address ${declaration.address}) cannot become a tag: ${reason}`);

@@ -85,6 +85,11 @@ export function useWorkbenchSimulation(panel: () => PanelLayout): WorkbenchSimul
           for (let i = 0; i < count; i += 1) simulation.step();
         },
         act: (id, action, args) => simulation.act(id, action, args),
+        force: (operand, value) => simulation.force(operand, value),
+        unforce: (operand) => simulation.unforce(operand),
+        clearForces: () => simulation.clearForces(),
+        preheat: (id, factor) => simulation.preheat(id, factor),
+        power: (on) => simulation.power(on),
       },
       script,
       stepNumber,

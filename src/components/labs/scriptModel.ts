@@ -23,17 +23,17 @@ export interface ScriptValidation {
 }
 
 /** Steps that name no device: time, checks, forces (a bit, not a device). */
-const NO_DEVICE: ReadonlySet<StepAction> = new Set<StepAction>(['wait', 'expect', 'during', 'until', 'force', 'unforce']);
+const NO_DEVICE: ReadonlySet<StepAction> = new Set<StepAction>(['wait', 'expect', 'during', 'until', 'force', 'unforce', 'prove', 'power']);
 
 /** The device actions of the runtime's device models (`preheat` names a device but is the runner's own). */
 const DEVICE_ACTIONS_OF_STEPS = STEP_ACTIONS.filter((a): a is StepAction & DeviceAction => !NO_DEVICE.has(a) && a !== 'preheat');
 
-/** Steps the step list shows as text only: they are edited in the JSON view. */
-export const JSON_ONLY_ACTIONS: ReadonlySet<StepAction> = new Set<StepAction>(['during', 'until', 'force', 'unforce']);
+/** Steps the step list shows as text only: their conditions are edited in the JSON view. */
+export const JSON_ONLY_ACTIONS: ReadonlySet<StepAction> = new Set<StepAction>(['during', 'until', 'prove']);
 
 /** Is this draft step a check (it earns points)? */
 export function isDraftCheck(step: DraftStep): boolean {
-  return 'expect' in step || 'during' in step || 'until' in step;
+  return 'expect' in step || 'during' in step || 'until' in step || 'prove' in step;
 }
 
 /** Words for each action in the step picker. */
@@ -53,6 +53,8 @@ export const ACTION_LABELS = {
   force: 'Force a bit',
   unforce: 'Remove a force',
   preheat: 'Preheat overload',
+  prove: 'Prove for every sequence',
+  power: 'Controller power',
 } as const satisfies Record<StepAction, string>;
 
 /** The action a draft step takes (the first action key it has). */
@@ -119,6 +121,12 @@ export function newStep(action: StepAction, panel: PanelLayout): DraftStep {
       return { unforce: 'all' };
     case 'preheat':
       return { preheat: first, factor: 1 };
+    case 'prove': {
+      const target = expectTargets(panel)[0];
+      return { prove: { never: target ? { [target.key]: target.values[0]! } : {} }, points: 1 };
+    }
+    case 'power':
+      return { power: 'off' };
     default:
       return { [action]: first } as DraftStep;
   }
@@ -250,6 +258,7 @@ export function describeDraftStep(step: DraftStep): string {
   if (action === 'force') return `force ${String(s.force)} to ${String(s.to)}`;
   if (action === 'unforce') return s.unforce === 'all' ? 'remove every force' : `remove the force on ${String(s.unforce)}`;
   if (action === 'preheat') return `preheat ${String(s.preheat)} (steady at ${String(s.factor)} × its setting)`;
+  if (action === 'power') return s.power === 'on' ? 'controller power on (warm restart)' : 'controller power off';
   return `${action} ${String(s[action])}`;
 }
 

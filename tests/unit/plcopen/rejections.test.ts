@@ -208,8 +208,8 @@ describe('refusing LD elements a Rungwright rung cannot hold, naming the element
     expect(errorOf(project(rail + contact(2, from(1), '%IX1', 'negated="true" edge="rising"')))).toBe(
       'contact (localId 2) is both negated and edge="rising", which is not supported: Rungwright has NO, NC, rising-edge and falling-edge contacts',
     );
-    expect(errorOf(project(rail + coil(2, from(1), '%QX1', 'edge="falling"')))).toBe(
-      'coil (localId 2) with edge="falling" is not supported: Rungwright has coil, negated coil, set coil and reset coil',
+    expect(errorOf(project(rail + coil(2, from(1), '%QX1', 'edge="falling" storage="set"')))).toBe(
+      'coil (localId 2) is both edge="falling" and storage="set", which is not supported: Rungwright has coil, negated coil, set coil, reset coil and the positive and negative transition-sensing coils',
     );
     expect(errorOf(project(rail + coil(2, from(1), '%QX1', 'negated="true" storage="set"')))).toMatch(/^coil \(localId 2\) is both negated and storage="set"/);
     expect(errorOf(project(rail + contact(2, from(1), '%IX1', 'edge="sideways"')))).toBe(

@@ -80,7 +80,7 @@ const block = fc.constantFrom(...TYPES).chain((type) => blockInputs[type].map((i
 const writable = fc.oneof(fc.integer({ min: 1, max: 6 }).map((i) => `%QX${i}`), fc.integer({ min: 1, max: 8 }).map((i) => `%MX${i}`));
 
 const coil = fc.record({
-  variant: fc.constantFrom<CoilVariant>('coil', 'coil', 'negated', 'set', 'reset'),
+  variant: fc.constantFrom<CoilVariant>('coil', 'coil', 'negated', 'set', 'reset', 'positive', 'negative'),
   operand: writable,
   guard: fc.option(contact, { freq: 2 }),
 });
