@@ -155,8 +155,6 @@ export const StepSchema = z.union([
   UnforceStepSchema,
   PreheatStepSchema,
   ProveStepSchema,
-
-/**
   PowerStepSchema,
 ]);
 export type Step = z.infer<typeof StepSchema>;
