@@ -29,6 +29,7 @@ import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
 import { trustProxySetting } from './http/trustProxy';
 import { createGradingPool, type DocumentWork, type Grader } from './grading/pool';
+import type { GradingQueue } from './grading/queue';
 import { refuseDeepJson, refuseNulCharacters } from './http/bodyGuards';
 import { expensiveCallLimits } from './http/userLimits';
 import { labsRouter } from './routes/labs';
@@ -53,6 +54,8 @@ export interface AppDependencies {
   grader?: Grader;
   /** Exports and imports program files; defaults to `grader` when it is a pool, else a pool of its own. */
   documents?: DocumentWork;
+  /** Submissions go to this queue (a shared PostgreSQL database) instead of `grader`. */
+  gradingQueue?: GradingQueue;
 }
 
 /** Builds the app: security headers, logging, the API under `/api`, then the client. */
@@ -72,6 +75,7 @@ export function createApp(deps: AppDependencies): Express {
     passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
     grader,
     documents,
+    gradingQueue: deps.gradingQueue,
   };
 
   const app = express();

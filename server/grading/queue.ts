@@ -1,0 +1,118 @@
+/**
+ * The grading queue on a PostgreSQL server (DATABASE_URL): pg-boss keeps the jobs in its own schema
+ * (`pgboss`) of the same database. An app process stores a submission and its job in one
+ * transaction, so a job exists exactly when a submission waits for it (none is lost if the process
+ * dies between the two). `npm run worker` processes take jobs and grade them with the same code and
+ * the same 5 s bound as the in-process pool. A worker that dies mid-job (SIGKILL, a lost machine)
+ * leaves its job active; past `expireInSeconds` pg-boss's maintenance hands it to another worker, up
+ * to `RETRY_LIMIT` times. Writing the grade is conditional on the submission still waiting
+ * (`services/queuedGrading.ts`), so a job delivered twice is graded once.
+ *
+ * With PGlite there is no queue: the server grades in its own worker threads, as before.
+ */
+import PgBoss from 'pg-boss';
+import { sql, type SQL } from 'drizzle-orm';
+import { executeRows, type Db } from '../db/client';
+
+/** The queue's name in pg-boss. */
+export const GRADING_QUEUE = 'grade-submission';
+
+/** Deliveries of one job after the first: a crashed worker's job is tried again this often, then fails. */
+export const RETRY_LIMIT = 3;
+
+/** What a job carries: only the id; the worker reads the rest from the database. */
+export interface GradingJobData {
+  submissionId: string;
+}
+
+export interface GradingQueueOptions {
+  url: string;
+  /** A job active longer than this counts as lost and is delivered again. */
+  expireInSeconds: number;
+  /** How often expired jobs are looked for (only processes that `supervise` do it). */
+  maintenanceIntervalSeconds: number;
+  /** Whether this process runs pg-boss's maintenance (workers do; app processes only send). */
+  supervise: boolean;
+  /** pg-boss's own errors (a lost connection while polling), for the log. */
+  onError?: (err: Error) => void;
+}
+
+/** A job being handled by this worker. */
+export interface ReceivedJob {
+  id: string;
+  submissionId: string;
+  /** 0 on the first delivery; more after a worker died with it. */
+  retryCount: number;
+}
+
+export interface GradingQueue {
+  /** Adds the job inside the caller's transaction (`tx`), so it commits or rolls back with the submission. */
+  enqueue(tx: Db, submissionId: string): Promise<void>;
+  /** Takes jobs, `concurrency` at a time, until `stop()`; a handler that throws fails the job (retried). */
+  work(concurrency: number, handle: (job: ReceivedJob) => Promise<void>): Promise<void>;
+  /** A job's state, for tests and the benchmark. */
+  jobState(jobId: string): Promise<{ state: string; retryCount: number } | null>;
+  stop(): Promise<void>;
+}
+
+/**
+ * pg-boss's SQL (text with `$1`…`$n`) run through Drizzle on the caller's handle, so a job can be
+ * inserted inside a Drizzle transaction. Each `$n` becomes a bound parameter again.
+ */
+function drizzleExecutor(db: Db): PgBoss.Db {
+  return {
+    async executeSql(text: string, values: unknown[] = []) {
+      const parts = text.split(/\$(\d+)/);
+      const chunks: SQL[] = [];
+      parts.forEach((part, i) => chunks.push(i % 2 === 0 ? sql.raw(part) : sql`${values[Number(part) - 1]}`));
+      return { rows: await executeRows(db, sql.join(chunks, sql.raw(''))) };
+    },
+  };
+}
+
+export async function openGradingQueue(options: GradingQueueOptions): Promise<GradingQueue> {
+  const boss = new PgBoss({
+    connectionString: options.url,
+    // A few connections: sends go through the caller's transaction, polling needs one or two.
+    max: 4,
+    supervise: options.supervise,
+    schedule: false,
+    maintenanceIntervalSeconds: options.maintenanceIntervalSeconds,
+  });
+  boss.on('error', (err) => options.onError?.(err));
+  // start() creates or migrates pg-boss's schema under its own advisory lock: safe from many processes.
+  await boss.start();
+  await ensureQueue(boss, options.expireInSeconds);
+  const sendOptions = { retryLimit: RETRY_LIMIT, retryDelay: 0, expireInSeconds: options.expireInSeconds };
+  return {
+    async enqueue(tx, submissionId) {
+      const data: GradingJobData = { submissionId };
+      const id = await boss.send(GRADING_QUEUE, data, { ...sendOptions, db: drizzleExecutor(tx) });
+      if (!id) throw new Error(`the grading job of submission ${submissionId} was not created`);
+    },
+    async work(concurrency, handle) {
+      for (let i = 0; i < concurrency; i += 1) {
+        await boss.work<GradingJobData>(GRADING_QUEUE, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: 0.5 }, async (jobs) => {
+          for (const job of jobs) await handle({ id: job.id, submissionId: job.data.submissionId, retryCount: job.retryCount });
+        });
+      }
+    },
+    async jobState(jobId) {
+      const job = await boss.getJobById(GRADING_QUEUE, jobId, { includeArchive: true });
+      return job ? { state: job.state, retryCount: job.retryCount } : null;
+    },
+    async stop() {
+      await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
+    },
+  };
+}
+
+/** Creates the queue once; another process creating it at the same moment is not an error. */
+async function ensureQueue(boss: PgBoss, expireInSeconds: number): Promise<void> {
+  if (await boss.getQueue(GRADING_QUEUE)) return;
+  try {
+    await boss.createQueue(GRADING_QUEUE, { name: GRADING_QUEUE, policy: 'standard', retryLimit: RETRY_LIMIT, retryDelay: 0, expireInSeconds });
+  } catch (err) {
+    if (!(await boss.getQueue(GRADING_QUEUE))) throw err;
+  }
+}
