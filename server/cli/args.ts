@@ -19,6 +19,7 @@ Usage:
   npm run cli -- validate --program P [--panel L] [--json]
   npm run cli -- st --program P
   npm run cli -- create-admin --email E [--name N] [--link]   (password piped on standard input)
+  npm run cli -- export-db --to postgres://…
   npm run cli -- --help
 
 check     Grade a program with a check script; prints the grade report as JSON.
@@ -28,6 +29,9 @@ st        Print the program as IEC 61131-3 Structured Text.
 create-admin
           Create an administrator in DATA_DIR's database (stop the server first); see
           npm run cli -- create-admin --help. Exit 0 done, 1 a server holds DATA_DIR, 2 bad input.
+
+export-db Copy DATA_DIR's database into an empty PostgreSQL database and check it row for row
+          (stop the server first); see npm run cli -- export-db --help.
 
 Exit codes (check, validate, st):
   0  all good: every check passes, no errors
