@@ -64,7 +64,8 @@ function drizzleExecutor(db: Db): PgBoss.Db {
     async executeSql(text: string, values: unknown[] = []) {
       const parts = text.split(/\$(\d+)/);
       const chunks: SQL[] = [];
-      parts.forEach((part, i) => chunks.push(i % 2 === 0 ? sql.raw(part) : sql`${values[Number(part) - 1]}`));
+      // pg-boss passes undefined for an option not given; as a bound value that is NULL.
+      parts.forEach((part, i) => chunks.push(i % 2 === 0 ? sql.raw(part) : sql`${sql.param(values[Number(part) - 1] ?? null)}`));
       return { rows: await executeRows(db, sql.join(chunks, sql.raw(''))) };
     },
   };
