@@ -59,7 +59,7 @@ const apiTest = { environment: 'node' as const, testTimeout: 20_000, hookTimeout
 const apiPgProject = testDatabaseUrl
   ? [
       {
-        extends: true,
+        extends: true as const,
         test: { ...apiTest, name: 'api-pg', include: ['tests/api/**/*.test.ts'], exclude: PGLITE_ONLY, globalSetup: ['tests/api/globalSetupPg.ts'], testTimeout: 60_000 },
       },
     ]

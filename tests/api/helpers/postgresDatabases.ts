@@ -29,3 +29,4 @@ export async function copyTemplateDatabase(adminUrl: string, template: string): 
     drop: () => onAdmin(adminUrl, (c) => c.query(`drop database if exists ${name} with (force)`)).then(() => undefined),
   };
 }
+

@@ -1,20 +1,14 @@
 /**
  * Real app and worker processes on one PostgreSQL database, for the tests that only make sense
- * there (several processes sharing sessions, limits, saves and the grading queue).
+ * there (several processes sharing sessions, limits, saves and the grading queue), and for the
+ * scale-out benchmark (so nothing here imports vitest).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
-import { inject } from 'vitest';
 import { makeTempDataDir, startServerProcess, type ServerProcess } from './serverProcess';
-import { copyTemplateDatabase } from './postgresDatabases';
 
 /** Every process signs sessions with this key (DATABASE_URL requires JWT_SECRET). */
 export const SHARED_SECRET = 'api-pg-shared-secret-0123456789abcdef';
-
-/** A fresh database for one test file, copied from the migrated template. */
-export function freshDatabase(): Promise<{ url: string; drop: () => Promise<void> }> {
-  return copyTemplateDatabase(inject('pgAdminUrl'), inject('pgTemplate'));
-}
 
 /** The environment every process of a test shares; `extra` adds to it. */
 export function sharedEnv(url: string, extra: Record<string, string> = {}): Record<string, string> {

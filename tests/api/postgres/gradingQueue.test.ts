@@ -18,7 +18,8 @@ import { openGradingQueue, type GradingQueue } from '../../../server/grading/que
 import type { ServerProcess } from '../helpers/serverProcess';
 import { PASSWORD, sessionCookieOf } from '../helpers/fixtures';
 import { TEST_SCRYPT } from '../helpers/testApp';
-import { freshDatabase, request, sharedEnv, startApp, startWorker, stopProcess, type WorkerProcess } from '../helpers/postgresProcesses';
+import { freshDatabase } from '../helpers/pgTemplate';
+import { request, sharedEnv, startApp, startWorker, stopProcess, type WorkerProcess } from '../helpers/postgresProcesses';
 
 /** Short, so a dead worker's job comes back within seconds (production default: 60 s, checked every 15 s). */
 const QUEUE_ENV = { GRADING_JOB_EXPIRE_SECONDS: '3', GRADING_QUEUE_CHECK_SECONDS: '1' };

@@ -10,7 +10,8 @@ import { insertUser } from '../../../server/db/users';
 import type { ServerProcess } from '../helpers/serverProcess';
 import { documentWithRungs, PASSWORD, sessionCookieOf } from '../helpers/fixtures';
 import { TEST_SCRYPT } from '../helpers/testApp';
-import { freshDatabase, request, sharedEnv, startApp, stopProcess } from '../helpers/postgresProcesses';
+import { freshDatabase } from '../helpers/pgTemplate';
+import { request, sharedEnv, startApp, stopProcess } from '../helpers/postgresProcesses';
 
 /** Low, so the test reaches it; both processes read the same value. */
 const ADDRESS_LIMIT = 4;
