@@ -29,7 +29,7 @@ import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
 import { trustProxySetting } from './http/trustProxy';
 import { createGradingPool, type DocumentWork, type Grader } from './grading/pool';
-import type { GradingQueue } from './grading/queue';
+import type { JobQueue } from './jobs/jobQueue';
 import { refuseDeepJson, refuseNulCharacters } from './http/bodyGuards';
 import { expensiveCallLimits } from './http/userLimits';
 import { labsRouter } from './routes/labs';
@@ -55,7 +55,7 @@ export interface AppDependencies {
   /** Exports and imports program files; defaults to `grader` when it is a pool, else a pool of its own. */
   documents?: DocumentWork;
   /** Submissions go to this queue (a shared PostgreSQL database) instead of `grader`. */
-  gradingQueue?: GradingQueue;
+  jobQueue?: JobQueue;
 }
 
 /** Builds the app: security headers, logging, the API under `/api`, then the client. */
@@ -75,7 +75,7 @@ export function createApp(deps: AppDependencies): Express {
     passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
     grader,
     documents,
-    gradingQueue: deps.gradingQueue,
+    jobQueue: deps.jobQueue,
   };
 
   const app = express();

@@ -6,7 +6,7 @@ import type { DatabaseDriver, Db } from './db/client';
 import type { Mailer } from './mail/mailer';
 import type { ScryptParams } from './auth/passwords';
 import type { DocumentWork, Grader } from './grading/pool';
-import type { GradingQueue } from './grading/queue';
+import type { JobQueue } from './jobs/jobQueue';
 
 export interface AppContext {
   orm: Db;
@@ -28,5 +28,5 @@ export interface AppContext {
    * queue instead of in this process (regrades stay in this process's pool: the instructor waits
    * for their count). Absent on PGlite.
    */
-  gradingQueue?: GradingQueue;
+  jobQueue?: JobQueue;
 }

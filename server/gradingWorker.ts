@@ -1,7 +1,8 @@
 /**
- * `npm run worker`: a grading worker for a shared PostgreSQL database (DATABASE_URL). It takes
- * submissions from the grading queue (`grading/queue.ts`) and grades them in its own pool of worker
- * threads, as many at once as it has threads (GRADING_THREADS). Run as many of these processes as
+ * `npm run worker`: a worker for a shared PostgreSQL database (DATABASE_URL). It takes submissions
+ * from the grading queue (`jobs/jobQueue.ts`) and grades them in its own pool of worker threads, as
+ * many at once as it has threads (GRADING_THREADS), and sends the mail outbox's messages (SMTP, or
+ * the local mailbox in the database when SMTP_URL is unset). Run as many of these processes as
  * the machines have cores to spare; stopping one (SIGTERM) finishes or hands back its jobs.
  */
 import { readConfig } from './config';
@@ -9,8 +10,9 @@ import { systemClock } from './clock';
 import { openDatabase } from './db/client';
 import { createLogger } from './http/logging';
 import { createGradingPool, defaultPoolSize } from './grading/pool';
-import { openGradingQueue } from './grading/queue';
+import { openJobQueue } from './jobs/jobQueue';
 import { gradeQueuedSubmission } from './services/queuedGrading';
+import { openMailer } from './mail/openMailer';
 
 function fail(message: string): never {
   console.error(message);
@@ -30,7 +32,7 @@ const database = await openDatabase({ kind: 'postgres', url: config.DATABASE_URL
 const threads = config.GRADING_THREADS ?? defaultPoolSize();
 const grader = createGradingPool({ size: threads });
 await grader.warm();
-const queue = await openGradingQueue({
+const queue = await openJobQueue({
   url: config.DATABASE_URL,
   expireInSeconds: config.GRADING_JOB_EXPIRE_SECONDS,
   maintenanceIntervalSeconds: config.GRADING_QUEUE_CHECK_SECONDS,
@@ -42,12 +44,14 @@ let stopping = false;
 let graderClosed = false;
 // Tests only (NODE_ENV=test): hold each job this long before grading, so a test can kill a worker mid-job.
 const holdMs = config.NODE_ENV === 'test' ? Number(process.env.GRADING_TEST_HOLD_MS ?? 0) : 0;
-await queue.work(threads, async (job) => {
+await queue.workGradings(threads, async (job) => {
   console.log(`grading job ${job.id} submission ${job.submissionId} delivery ${job.retryCount + 1}`);
   if (holdMs > 0) await new Promise((resolve) => setTimeout(resolve, holdMs));
   const result = await gradeQueuedSubmission({ orm: database.orm, grader, clock: systemClock, graderClosed: () => graderClosed }, job.submissionId);
   console.log(`job ${job.id} submission ${job.submissionId}: ${result}`);
 });
+const mailer = await openMailer(config, database.orm, systemClock);
+await queue.workMail((mail) => mailer.send(mail));
 console.log(`Rungwright grading worker ready (${threads} thread${threads === 1 ? '' : 's'})`);
 
 async function shutdown(signal: string): Promise<void> {
@@ -60,6 +64,7 @@ async function shutdown(signal: string): Promise<void> {
   await queue.stop();
   graderClosed = true;
   await grader.close();
+  await mailer.close();
   await database.close();
   process.exit(0);
 }

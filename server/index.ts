@@ -11,12 +11,13 @@ import { acquireDataDirLock } from './dataDirLock';
 import { openDatabase } from './db/client';
 import { seedOnFirstStart } from './db/seed';
 import { openMailer } from './mail/openMailer';
+import { outboxMailer } from './mail/outbox';
 import { createLogger } from './http/logging';
 import { loadSessionKey } from './auth/sessionKey';
 import { createApp } from './app';
 import { allowedHostNames, LOOPBACK_NAMES } from './http/allowedHosts';
 import { createGradingPool } from './grading/pool';
-import { openGradingQueue, type GradingQueue } from './grading/queue';
+import { openJobQueue, type JobQueue } from './jobs/jobQueue';
 import type { Database } from './db/client';
 
 function fail(message: string): never {
@@ -50,10 +51,9 @@ if (firstStart === 'seeded') logger.info('seeded the demo data on a first start 
 if (firstStart === 'no-accounts') {
   console.log('Rungwright has no accounts yet (DEMO=off): create the first admin with `npm run cli -- create-admin --email you@example.org`.');
 }
-const mailer = await openMailer(config, database.orm, systemClock);
 const sessionKey = loadSessionKey(config);
-const gradingQueue: GradingQueue | undefined = config.DATABASE_URL
-  ? await openGradingQueue({
+const jobQueue: JobQueue | undefined = config.DATABASE_URL
+  ? await openJobQueue({
       url: config.DATABASE_URL,
       expireInSeconds: config.GRADING_JOB_EXPIRE_SECONDS,
       maintenanceIntervalSeconds: config.GRADING_QUEUE_CHECK_SECONDS,
@@ -62,6 +62,8 @@ const gradingQueue: GradingQueue | undefined = config.DATABASE_URL
       onError: (err) => logger.warn({ err }, 'grading queue error'),
     })
   : undefined;
+// On a shared database mail goes through the outbox, sent by the workers; here it is sent directly.
+const mailer = jobQueue ? outboxMailer(jobQueue, config.SMTP_URL ? 'smtp' : 'local-fake') : await openMailer(config, database.orm, systemClock);
 
 // Made here, not inside createApp, so shutdown can stop its worker threads.
 const grader = createGradingPool();
@@ -72,7 +74,7 @@ if ((config.HOST === '0.0.0.0' || config.HOST === '::') && allowedHostNames(conf
       'set ALLOWED_HOSTS (or PUBLIC_URL) to the names or addresses people type.',
   );
 }
-const app = createApp({ db: database, mailer, clock: systemClock, config, logger, sessionKey, clientDir: 'dist', grader, gradingQueue });
+const app = createApp({ db: database, mailer, clock: systemClock, config, logger, sessionKey, clientDir: 'dist', grader, jobQueue });
 const server = app.listen(config.PORT, config.HOST, () => {
   const { port } = server.address() as AddressInfo;
   console.log(`Rungwright listening on http://${config.HOST}:${port}`);
@@ -93,8 +95,8 @@ async function shutdown(signal: string): Promise<void> {
   });
   // Requests still waiting for a grading answer with a "shutting down" note; the workers end.
   await grader.close();
-  await gradingQueue?.stop();
   await mailer.close();
+  await jobQueue?.stop();
   await database.close();
   lock?.release();
   process.exit(0);

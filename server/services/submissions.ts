@@ -52,10 +52,10 @@ export async function submit(ctx: AppContext, actor: User, labId: string, ref: P
   const submittedAt = ctx.clock.now();
   const standing = lateStanding(lab, submittedAt);
   if (standing.refused) return failure('conflict', `The due date (${iso(lab.dueAt!)}) has passed and this lab takes no late submissions`);
-  if (ctx.gradingQueue) {
+  if (ctx.jobQueue) {
     // A shared database: stored as `submitted` with its job in one transaction; a `npm run worker`
     // grades it, and the student's page follows the status until it reads `graded`.
-    const queue = ctx.gradingQueue;
+    const queue = ctx.jobQueue;
     const stored = await ctx.orm.transaction(async (tx) => {
       const row = await db.insertGradedSubmission(tx, {
         labId,
@@ -73,7 +73,7 @@ export async function submit(ctx: AppContext, actor: User, labId: string, ref: P
         submittedAt,
         gradedAt: null,
       });
-      await queue.enqueue(tx, row.id);
+      await queue.enqueueGrading(tx, row.id);
       return row;
     });
     return success(studentSubmissionView(stored, lab.totalPoints));

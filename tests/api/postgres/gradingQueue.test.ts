@@ -14,7 +14,7 @@ import { enrol, insertClass } from '../../../server/db/classes';
 import { insertLab } from '../../../server/db/labs';
 import { insertProgram } from '../../../server/db/programs';
 import { gradeHistory, submissions } from '../../../server/db/schema';
-import { openGradingQueue, type GradingQueue } from '../../../server/grading/queue';
+import { openJobQueue, type JobQueue } from '../../../server/jobs/jobQueue';
 import type { ServerProcess } from '../helpers/serverProcess';
 import { PASSWORD, sessionCookieOf } from '../helpers/fixtures';
 import { TEST_SCRYPT } from '../helpers/testApp';
@@ -26,7 +26,7 @@ const QUEUE_ENV = { GRADING_JOB_EXPIRE_SECONDS: '3', GRADING_QUEUE_CHECK_SECONDS
 
 let drop: () => Promise<void>;
 let database: Database;
-let queue: GradingQueue;
+let queue: JobQueue;
 let a: ServerProcess;
 let b: ServerProcess;
 const workers: WorkerProcess[] = [];
@@ -71,7 +71,7 @@ beforeAll(async () => {
   [a, b] = await Promise.all([startApp(env), startApp(env)]);
   const signedIn = await request(a.url, 'POST', '/api/auth/sign-in', { body: { email: 'student@test.example', password: PASSWORD } });
   cookie = sessionCookieOf(signedIn.setCookie ?? undefined);
-  queue = await openGradingQueue({ url: fresh.url, expireInSeconds: 3, maintenanceIntervalSeconds: 1, supervise: false });
+  queue = await openJobQueue({ url: fresh.url, expireInSeconds: 3, maintenanceIntervalSeconds: 1, supervise: false });
 }, 120_000);
 
 afterAll(async () => {
@@ -156,7 +156,7 @@ describe('the grading queue', () => {
     await pollMine(submitted.id, (s) => s !== 'submitted');
     const [before] = await database.orm.select().from(submissions).where(eq(submissions.id, submitted.id));
     // The same job sent again, as a retry after a lost acknowledgement would.
-    await database.orm.transaction((tx) => queue.enqueue(tx, submitted.id));
+    await database.orm.transaction((tx) => queue.enqueueGrading(tx, submitted.id));
     await worker.waitFor(new RegExp(`submission ${submitted.id}: already-graded`));
     const [after] = await database.orm.select().from(submissions).where(eq(submissions.id, submitted.id));
     expect(after!.gradedAt).toEqual(before!.gradedAt);

@@ -1,6 +1,8 @@
 /**
- * The grading queue on a PostgreSQL server (DATABASE_URL): pg-boss keeps the jobs in its own schema
- * (`pgboss`) of the same database. An app process stores a submission and its job in one
+ * The job queues on a PostgreSQL server (DATABASE_URL): pg-boss keeps the jobs in its own schema
+ * (`pgboss`) of the same database. Two queues: gradings, and the mail outbox.
+ *
+ * Gradings. An app process stores a submission and its job in one
  * transaction, so a job exists exactly when a submission waits for it (none is lost if the process
  * dies between the two). `npm run worker` processes take jobs and grade them with the same code and
  * the same 5 s bound as the in-process pool. A worker that dies mid-job (SIGKILL, a lost machine)
@@ -8,11 +10,17 @@
  * to `RETRY_LIMIT` times. Writing the grade is conditional on the submission still waiting
  * (`services/queuedGrading.ts`), so a job delivered twice is graded once.
  *
- * With PGlite there is no queue: the server grades in its own worker threads, as before.
+ * The mail outbox: an app process hands each message to the queue instead of talking SMTP itself;
+ * the workers send it (or store it in the local mailbox when SMTP_URL is unset), retrying with
+ * back-off while the relay refuses, so a message survives the app process that wrote it.
+ *
+ * With PGlite there is no queue: the server grades in its own worker threads and sends its mail
+ * itself, as before.
  */
 import PgBoss from 'pg-boss';
 import { sql, type SQL } from 'drizzle-orm';
 import { executeRows, type Db } from '../db/client';
+import type { OutgoingMail } from '../mail/mailer';
 
 /** The queue's name in pg-boss. */
 export const GRADING_QUEUE = 'grade-submission';
@@ -20,12 +28,18 @@ export const GRADING_QUEUE = 'grade-submission';
 /** Deliveries of one job after the first: a crashed worker's job is tried again this often, then fails. */
 export const RETRY_LIMIT = 3;
 
+/** The mail outbox's queue. */
+export const MAIL_QUEUE = 'send-mail';
+
+/** A mail relay may refuse for a while: 8 tries with back-off from 30 s cover about two hours. */
+const MAIL_RETRY = { retryLimit: 8, retryDelay: 30, retryBackoff: true };
+
 /** What a job carries: only the id; the worker reads the rest from the database. */
 export interface GradingJobData {
   submissionId: string;
 }
 
-export interface GradingQueueOptions {
+export interface JobQueueOptions {
   url: string;
   /** A job active longer than this counts as lost and is delivered again. */
   expireInSeconds: number;
@@ -45,11 +59,15 @@ export interface ReceivedJob {
   retryCount: number;
 }
 
-export interface GradingQueue {
-  /** Adds the job inside the caller's transaction (`tx`), so it commits or rolls back with the submission. */
-  enqueue(tx: Db, submissionId: string): Promise<void>;
-  /** Takes jobs, `concurrency` at a time, until `stop()`; a handler that throws fails the job (retried). */
-  work(concurrency: number, handle: (job: ReceivedJob) => Promise<void>): Promise<void>;
+export interface JobQueue {
+  /** Adds a grading job inside the caller's transaction (`tx`), so it commits or rolls back with the submission. */
+  enqueueGrading(tx: Db, submissionId: string): Promise<void>;
+  /** Takes grading jobs, `concurrency` at a time, until `stop()`; a handler that throws fails the job (retried). */
+  workGradings(concurrency: number, handle: (job: ReceivedJob) => Promise<void>): Promise<void>;
+  /** Puts a message in the outbox. */
+  enqueueMail(mail: OutgoingMail): Promise<void>;
+  /** Sends the outbox's messages with `send` until `stop()`; one that throws is tried again later. */
+  workMail(send: (mail: OutgoingMail) => Promise<void>): Promise<void>;
   /** A job's state, for tests and the benchmark. */
   jobState(jobId: string): Promise<{ state: string; retryCount: number } | null>;
   stop(): Promise<void>;
@@ -71,7 +89,7 @@ function drizzleExecutor(db: Db): PgBoss.Db {
   };
 }
 
-export async function openGradingQueue(options: GradingQueueOptions): Promise<GradingQueue> {
+export async function openJobQueue(options: JobQueueOptions): Promise<JobQueue> {
   const boss = new PgBoss({
     connectionString: options.url,
     // A few connections: sends go through the caller's transaction, polling needs one or two.
@@ -83,20 +101,30 @@ export async function openGradingQueue(options: GradingQueueOptions): Promise<Gr
   boss.on('error', (err) => options.onError?.(err));
   // start() creates or migrates pg-boss's schema under its own advisory lock: safe from many processes.
   await boss.start();
-  await ensureQueue(boss, options.expireInSeconds);
+  await ensureQueue(boss, GRADING_QUEUE, { retryLimit: RETRY_LIMIT, retryDelay: 0, expireInSeconds: options.expireInSeconds });
+  await ensureQueue(boss, MAIL_QUEUE, { ...MAIL_RETRY, expireInSeconds: 120 });
   const sendOptions = { retryLimit: RETRY_LIMIT, retryDelay: 0, expireInSeconds: options.expireInSeconds };
   return {
-    async enqueue(tx, submissionId) {
+    async enqueueGrading(tx, submissionId) {
       const data: GradingJobData = { submissionId };
-      const id = await boss.send(GRADING_QUEUE, data, { ...sendOptions, db: drizzleExecutor(tx) });
+      const id = await boss.send(GRADING_QUEUE, { ...data }, { ...sendOptions, db: drizzleExecutor(tx) });
       if (!id) throw new Error(`the grading job of submission ${submissionId} was not created`);
     },
-    async work(concurrency, handle) {
+    async workGradings(concurrency, handle) {
       for (let i = 0; i < concurrency; i += 1) {
         await boss.work<GradingJobData>(GRADING_QUEUE, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: 0.5 }, async (jobs) => {
           for (const job of jobs) await handle({ id: job.id, submissionId: job.data.submissionId, retryCount: job.retryCount });
         });
       }
+    },
+    async enqueueMail(mail) {
+      const id = await boss.send(MAIL_QUEUE, { ...mail }, { ...MAIL_RETRY, expireInSeconds: 120 });
+      if (!id) throw new Error(`the message to ${mail.to} was not queued`);
+    },
+    async workMail(send) {
+      await boss.work<OutgoingMail>(MAIL_QUEUE, { batchSize: 1, pollingIntervalSeconds: 1 }, async (jobs) => {
+        for (const job of jobs) await send(job.data);
+      });
     },
     async jobState(jobId) {
       const job = await boss.getJobById(GRADING_QUEUE, jobId, { includeArchive: true });
@@ -108,12 +136,12 @@ export async function openGradingQueue(options: GradingQueueOptions): Promise<Gr
   };
 }
 
-/** Creates the queue once; another process creating it at the same moment is not an error. */
-async function ensureQueue(boss: PgBoss, expireInSeconds: number): Promise<void> {
-  if (await boss.getQueue(GRADING_QUEUE)) return;
+/** Creates a queue once; another process creating it at the same moment is not an error. */
+async function ensureQueue(boss: PgBoss, name: string, options: Omit<PgBoss.Queue, 'name'>): Promise<void> {
+  if (await boss.getQueue(name)) return;
   try {
-    await boss.createQueue(GRADING_QUEUE, { name: GRADING_QUEUE, policy: 'standard', retryLimit: RETRY_LIMIT, retryDelay: 0, expireInSeconds });
+    await boss.createQueue(name, { name, policy: 'standard', ...options });
   } catch (err) {
-    if (!(await boss.getQueue(GRADING_QUEUE))) throw err;
+    if (!(await boss.getQueue(name))) throw err;
   }
 }
