@@ -21,9 +21,13 @@ import PgBoss from 'pg-boss';
 import { sql, type SQL } from 'drizzle-orm';
 import { executeRows, type Db } from '../db/client';
 import type { OutgoingMail } from '../mail/mailer';
+import { GRADING_TIMEOUT_MS } from '../grading/pool';
 
 /** The queue's name in pg-boss. */
 export const GRADING_QUEUE = 'grade-submission';
+
+/** A grading's wall-clock bound in seconds (`GRADING_TIMEOUT_MS` of the pool). */
+const GRADING_BOUND_S = GRADING_TIMEOUT_MS / 1000;
 
 /** Deliveries of one job after the first: a crashed worker's job is tried again this often, then fails. */
 export const RETRY_LIMIT = 3;
@@ -62,7 +66,7 @@ export interface ReceivedJob {
 export interface JobQueue {
   /** Adds a grading job inside the caller's transaction (`tx`), so it commits or rolls back with the submission. */
   enqueueGrading(tx: Db, submissionId: string): Promise<void>;
-  /** Takes grading jobs, `concurrency` at a time, until `stop()`; a handler that throws fails the job (retried). */
+  /** Takes grading jobs for `concurrency` threads until `stop()`; a handler that throws fails its job (retried). */
   workGradings(concurrency: number, handle: (job: ReceivedJob) => Promise<void>): Promise<void>;
   /** Puts a message in the outbox. */
   enqueueMail(mail: OutgoingMail): Promise<void>;
@@ -111,11 +115,18 @@ export async function openJobQueue(options: JobQueueOptions): Promise<JobQueue> 
       if (!id) throw new Error(`the grading job of submission ${submissionId} was not created`);
     },
     async workGradings(concurrency, handle) {
-      for (let i = 0; i < concurrency; i += 1) {
-        await boss.work<GradingJobData>(GRADING_QUEUE, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: 0.5 }, async (jobs) => {
-          for (const job of jobs) await handle({ id: job.id, submissionId: job.data.submissionId, retryCount: job.retryCount });
-        });
-      }
+      // pg-boss polls at most every 0.5 s and waits out the rest of the interval after each batch,
+      // so one job per fetch would cap a worker at two gradings a second. A batch is graded on all
+      // threads at once; it is sized so that even a batch of runaway gradings (5 s each, one thread
+      // after another) ends before its jobs expire and would be handed out again.
+      const perThread = Math.max(1, Math.min(8, Math.floor(options.expireInSeconds / (GRADING_BOUND_S * 1.5))));
+      await boss.work<GradingJobData>(GRADING_QUEUE, { batchSize: perThread * concurrency, includeMetadata: true, pollingIntervalSeconds: 0.5 }, async (jobs) => {
+        const outcomes = await Promise.allSettled(jobs.map((job) => handle({ id: job.id, submissionId: job.data.submissionId, retryCount: job.retryCount })));
+        // The batch completes as a whole when this returns; a job whose handling failed is failed
+        // first, so it goes back to the queue (retried) instead of counting as done.
+        const failed = jobs.filter((_, i) => outcomes[i]!.status === 'rejected').map((job) => job.id);
+        if (failed.length > 0) await boss.fail(GRADING_QUEUE, failed);
+      });
     },
     async enqueueMail(mail) {
       const id = await boss.send(MAIL_QUEUE, { ...mail }, { ...MAIL_RETRY, expireInSeconds: 120 });

@@ -2,7 +2,7 @@
  * The grading queue on PostgreSQL: an app process stores a submission as `submitted` with its job,
  * a `npm run worker` process grades it, and the student's list (read from another app process)
  * follows the status. A worker killed with SIGKILL in the middle of a job leaves it to another
- * worker, which grades it once.
+ * worker, which grades it once. Mail written by an app process goes through the outbox.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
@@ -47,6 +47,7 @@ beforeAll(async () => {
   database = await openDatabase({ kind: 'postgres', url: fresh.url, poolSize: 2 }, { migrate: false });
   const now = new Date();
   const teacher = await addUser('teacher@test.example', 'instructor');
+  await addUser('admin@test.example', 'admin');
   const student = await addUser('student@test.example', 'student');
   const cls = await insertClass(database.orm, { name: 'Motor Control', term: 'Fall 2026', instructorId: teacher.id, joinCode: 'PGQU-CODE', now });
   if (!cls) throw new Error('class not created');
@@ -160,5 +161,27 @@ describe('the grading queue', () => {
     await worker.waitFor(new RegExp(`submission ${submitted.id}: already-graded`));
     const [after] = await database.orm.select().from(submissions).where(eq(submissions.id, submitted.id));
     expect(after!.gradedAt).toEqual(before!.gradedAt);
+  });
+});
+
+describe('the mail outbox', () => {
+  it('sends a message queued by one app process through a worker, into the mailbox the other process shows', async () => {
+    const worker = await startWorker(env);
+    workers.push(worker);
+    const asked = await request(a.url, 'POST', '/api/auth/password-reset', { body: { email: 'student@test.example' } });
+    expect(asked.status).toBe(202);
+    const admin = await request(b.url, 'POST', '/api/auth/sign-in', { body: { email: 'admin@test.example', password: PASSWORD } });
+    const adminCookie = sessionCookieOf(admin.setCookie ?? undefined);
+    const deadline = Date.now() + 30_000;
+    let found: { to: string; subject: string; text: string } | undefined;
+    while (!found && Date.now() < deadline) {
+      const mailbox = await request(b.url, 'GET', '/api/dev/mail', { cookie: adminCookie });
+      expect(mailbox.status).toBe(200);
+      found = (mailbox.body.mail as { to: string; subject: string; text: string }[]).find((m) => m.to.includes('student@test.example'));
+      if (!found) await new Promise((resolve) => setTimeout(resolve, 200));
+    }
+    expect(found?.text).toMatch(/#token=/);
+    const outbox = await executeRows<{ state: string }>(database.orm, sql`select state from pgboss.job where name = 'send-mail' union all select state from pgboss.archive where name = 'send-mail'`);
+    expect(outbox.map((j) => j.state)).toEqual(['completed']);
   });
 });
