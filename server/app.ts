@@ -23,6 +23,7 @@ import { invitationsRouter } from './routes/invitations';
 import { adminRouter } from './routes/admin';
 import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
+import { draftsRouter } from './routes/drafts';
 import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
@@ -103,6 +104,7 @@ export function createApp(deps: AppDependencies): Express {
   api.use(adminRouter(ctx));
   api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));
+  api.use(draftsRouter(ctx));
   api.use(classesRouter(ctx));
   api.use(labsRouter(ctx));
   api.use(submissionsRouter(ctx));

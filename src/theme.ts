@@ -6,6 +6,12 @@
 import type { GlobalThemeOverrides } from 'naive-ui';
 
 export const FONT_UI = "'Inter', system-ui, -apple-system, 'Segoe UI', sans-serif";
+/**
+ * No text on the rung canvas is painted smaller than this, in canvas pixels at zoom 1, and the
+ * canvas never zooms below 1 (docs/names-and-rules.md: canvas text is never smaller than 11 px);
+ * a wide program scrolls sideways rather than shrink.
+ */
+export const MIN_CANVAS_TEXT_PX = 11;
 export const FONT_MONO = "'JetBrains Mono', ui-monospace, 'SFMono-Regular', monospace";
 
 export interface Palette {
@@ -15,6 +21,14 @@ export interface Palette {
   deEnergised: string;
   forced: string;
   selection: string;
+  /**
+   * Links, primary buttons and the active tab: the selection's teal, deep enough in the light
+   * scheme for text at 4.5:1 on the paper and the surface, and for white text on it (WCAG 2.1
+   * SC 1.4.3); tests/unit/app/theme.test.ts checks it.
+   */
+  link: string;
+  /** "Passed", "valid", "closed": success words, at 4.5:1 on the paper and the surface. */
+  ok: string;
   error: string;
   surface: string;
   text: string;
@@ -28,6 +42,8 @@ export const LIGHT_PALETTE: Palette = {
   deEnergised: '#8a94a6',
   forced: '#7c3aed',
   selection: '#0f9488',
+  link: '#0f766e',
+  ok: '#1d6b32',
   error: '#c62828',
   surface: '#fffdf8',
   text: '#1f2a44',
@@ -41,6 +57,8 @@ export const DARK_PALETTE: Palette = {
   deEnergised: '#6b7487',
   forced: '#a78bfa',
   selection: '#2dd4bf',
+  link: '#2dd4bf',
+  ok: '#66bb6a',
   error: '#f26b68',
   surface: '#232838',
   text: '#e6ebf5',
@@ -52,10 +70,14 @@ export function themeOverrides(p: Palette): GlobalThemeOverrides {
     common: {
       fontFamily: FONT_UI,
       fontFamilyMono: FONT_MONO,
-      primaryColor: p.selection,
-      primaryColorHover: p.selection,
-      primaryColorPressed: p.selection,
-      primaryColorSuppl: p.selection,
+      primaryColor: p.link,
+      primaryColorHover: p.link,
+      primaryColorPressed: p.link,
+      primaryColorSuppl: p.link,
+      successColor: p.ok,
+      successColorHover: p.ok,
+      successColorPressed: p.ok,
+      successColorSuppl: p.ok,
       errorColor: p.error,
       warningColor: p.energised,
       bodyColor: p.paper,
@@ -66,6 +88,8 @@ export function themeOverrides(p: Palette): GlobalThemeOverrides {
       borderRadius: '6px',
     },
     Layout: { color: p.paper, headerColor: p.surface, siderColor: p.surface },
+    // naive-ui's own grey for "no data" is 1.6:1 on the light paper.
+    Empty: { textColor: p.mutedText },
   };
 }
 
@@ -145,7 +169,7 @@ export const LIGHT_STATE_INK: StateInk = {
   text: LIGHT_PALETTE.text,
   mutedText: LIGHT_PALETTE.mutedText,
   on: '#9a5c00',
-  ok: '#1d6b32',
+  ok: LIGHT_PALETTE.ok,
   fault: LIGHT_PALETTE.error,
   forced: LIGHT_PALETTE.forced,
   rule: '#ddd5c4',
@@ -155,7 +179,7 @@ export const DARK_STATE_INK: StateInk = {
   text: DARK_PALETTE.text,
   mutedText: DARK_PALETTE.mutedText,
   on: DARK_PALETTE.energised,
-  ok: '#66bb6a',
+  ok: DARK_PALETTE.ok,
   fault: DARK_PALETTE.error,
   forced: DARK_PALETTE.forced,
   rule: '#3a4153',

@@ -4,7 +4,8 @@
  * and its owner is enrolled in that class: a student's work for that class. A program outside labs
  * is its owner's alone, not even their instructor's; and a copy of another class's lab is that
  * class's instructor's business only. Admins keep accounts and classes running and do not read
- * student work: an admin reads a program only where they teach the class themselves.
+ * student work: an admin reads a program only where they teach the class themselves. A draft
+ * (unsaved editor state) is its owner's alone: to everyone else it does not exist.
  */
 import type { Db } from '../db/client';
 import type { User } from '../db/users';
@@ -12,10 +13,11 @@ import type { Program } from '../db/programs';
 import { labsTaughtToStudent, teachesLabOf } from '../db/classes';
 import type { Access } from './access';
 
-export type ProgramAction = 'read' | 'write';
+export type ProgramAction = 'read' | 'write' | 'draft';
 
 /** May `actor` act on `program`? */
 export async function programAccess(db: Db, actor: User, program: Pick<Program, 'ownerId' | 'labId'>, action: ProgramAction): Promise<Access> {
+  if (action === 'draft') return actor.id === program.ownerId ? 'allowed' : 'hidden';
   if (actor.id === program.ownerId) return 'allowed';
   if (program.labId !== null && (await teachesLabOf(db, actor.id, program.labId, program.ownerId))) {
     return action === 'read' ? 'allowed' : 'forbidden';

@@ -38,6 +38,9 @@ export function diffProgramDocuments(before: Program, after: Program): RungDiffV
     rungId: d.rungId,
     ...(d.before !== undefined ? { before: d.before } : {}),
     ...(d.after !== undefined ? { after: d.after } : {}),
+    ...(d.beforeComment !== undefined ? { beforeComment: d.beforeComment } : {}),
+    ...(d.afterComment !== undefined ? { afterComment: d.afterComment } : {}),
+    ...(d.changedParts !== undefined ? { changedParts: d.changedParts } : {}),
   }));
 }
 

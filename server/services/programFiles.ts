@@ -6,7 +6,7 @@
 import type { ProgramDetail } from '@shared/api';
 import type { AppContext } from '../context';
 import type { User } from '../db/users';
-import { findProgram } from '../db/programs';
+import { findProgram, listProgramsByOwner } from '../db/programs';
 import { failure, success, type Outcome } from '../http/failure';
 import type { ExportedFile, ExportFormat } from '../grading/documentJobs';
 import { createProgram, getVersion } from './programs';
@@ -16,9 +16,23 @@ export type { ExportedFile };
 export async function importProgramFile(ctx: AppContext, actor: User, xml: string, fileName: string): Promise<Outcome<ProgramDetail & { warnings: string[] }>> {
   const imported = await ctx.documents.importProgram({ xml, fileName });
   if (!imported.ok) return imported;
-  const { program, title, warnings } = imported.value;
+  const { program, warnings } = imported.value;
+  const taken = new Set((await listProgramsByOwner(ctx.orm, actor.id)).map((p) => p.title));
+  const title = unusedTitle(imported.value.title, taken);
   const created = await createProgram(ctx, actor, { title, document: program, message: `Imported from ${fileName}` });
   return created.ok ? success({ ...created.value, warnings }) : created;
+}
+
+/**
+ * The title, or the first of "title (2)", "title (3)"… not among `taken`: an import of a file
+ * exported from an existing program must not give a second program the very same name in the list.
+ */
+export function unusedTitle(title: string, taken: ReadonlySet<string>): string {
+  if (!taken.has(title)) return title;
+  for (let n = 2; ; n += 1) {
+    const candidate = `${title.slice(0, 190)} (${n})`;
+    if (!taken.has(candidate)) return candidate;
+  }
 }
 
 /** Version `number` of a program the actor may read, as a file to download. */

@@ -13,6 +13,7 @@ import { failure, success, type Outcome } from '../http/failure';
 import { programAccess, programListAccess, type ProgramAction } from '../policies/programPolicy';
 import { refusal } from '../policies/access';
 import { checkProgramDocument, diffProgramDocuments } from './ladderDocuments';
+import { clearDraftAfterSave } from './drafts';
 import { authorisedLab } from './labs';
 import { programView, versionDetailView, versionView } from './views';
 
@@ -96,7 +97,11 @@ async function append(ctx: AppContext, actor: User, programId: string, baseVersi
   const checked = checkProgramDocument(document);
   if (!checked.ok) return checked;
   const result = await db.appendVersion(ctx.orm, { programId, baseVersion, document: checked.value, message, authorId: actor.id, now: ctx.clock.now() });
-  if (result.ok) return success(versionDetailView(result.version));
+  if (result.ok) {
+    // The saved version holds what the draft kept; a draft left behind would be offered back as newer work.
+    await clearDraftAfterSave(ctx, actor.id, programId);
+    return success(versionDetailView(result.version));
+  }
   if (!result.head) return failure('not_found', 'This program does not exist or is not open to you');
   return failure('version_conflict', `Version ${result.head.number} was saved after version ${baseVersion}; load it and apply your change again`, {
     details: { head: versionView(result.head) },

@@ -8,3 +8,4 @@ export * from './classes';
 export * from './mail';
 export * from './labs';
 export * from './invitations';
+export * from './drafts';

@@ -93,12 +93,16 @@ export const DiffQuerySchema = z.object({
   to: z.coerce.number().int('to must be a version number').min(1, 'to must be a version number').max(INT32_MAX, 'to must be a version number'),
 });
 
-/** One rung's change between two versions, with the rung's one-line text form. */
+/** One rung's change between two versions, with the rung's one-line text form and comments. */
 export const RungDiffSchema = z.object({
   kind: z.enum(['added', 'removed', 'changed', 'same']),
   rungId: z.string(),
   before: z.string().optional(),
   after: z.string().optional(),
+  beforeComment: z.string().optional(),
+  afterComment: z.string().optional(),
+  /** For a changed rung: whether its logic, its comment or both changed. */
+  changedParts: z.array(z.enum(['logic', 'comment'])).optional(),
 });
 export type RungDiffView = z.infer<typeof RungDiffSchema>;
 

@@ -18,7 +18,12 @@ export interface RungDiff {
   /** Rung comments, when either version has one. */
   beforeComment?: string;
   afterComment?: string;
+  /** For a changed rung: what changed, so a comment-only change does not read as two equal texts. */
+  changedParts?: RungPart[];
 }
+
+/** The parts of a rung a diff tells apart: its logic (the text form) and its comment. */
+export type RungPart = 'logic' | 'comment';
 
 /**
  * Compare `a` (older) with `b` (newer). Rungs come in `b`'s order; a removed rung is listed where
@@ -49,8 +54,11 @@ export function diffPrograms(a: Program, b: Program): RungDiff[] {
     flushRemovedUpTo(old.index);
     nextA = Math.max(nextA, old.index + 1);
     const before = rungText(old.rung, namesA);
-    const same = before === after && old.rung.comment === rung.comment;
-    result.push(withComments({ kind: same ? 'same' : 'changed', rungId: rung.id, before, after }, old.rung, rung));
+    const parts: RungPart[] = [];
+    if (before !== after) parts.push('logic');
+    if (old.rung.comment !== rung.comment) parts.push('comment');
+    const diff: RungDiff = parts.length === 0 ? { kind: 'same', rungId: rung.id, before, after } : { kind: 'changed', rungId: rung.id, before, after, changedParts: parts };
+    result.push(withComments(diff, old.rung, rung));
   }
   flushRemovedUpTo(a.rungs.length);
   return result;

@@ -156,19 +156,37 @@ function compareReverse(a: NodePath, b: NodePath): number {
   return b.length - a.length;
 }
 
+/** Ids of the empty series standing as branches of a parallel: branches drawn and not filled yet. */
+function emptyBranchIds(root: Series): Set<string> {
+  const found = new Set<string>();
+  const visit = (node: NetworkNode): void => {
+    if (node.kind === 'series') node.items.forEach(visit);
+    else if (node.kind === 'parallel') {
+      for (const branch of node.branches) {
+        if (branch.kind === 'series' && branch.items.length === 0) found.add(branch.id);
+        visit(branch);
+      }
+    }
+  };
+  visit(root);
+  return found;
+}
+
 /**
  * Delete the nodes at `paths` (the root cannot be deleted), then normalise the network: a
- * parallel left with one branch collapses, empty series inside a parallel go, nested series
- * flatten (see `normalizeNetwork`).
+ * parallel left with one branch collapses, series the deletion emptied inside a parallel go,
+ * nested series flatten (see `normalizeNetwork`). A branch that was already empty (drawn, not
+ * filled yet) stays: deleting an element beside it is not a request to delete it.
  */
 export function deleteNodes(doc: Program, args: { rungId: string; paths: readonly NodePath[] }): Program {
   return updateRung(doc, args.rungId, (rung) => {
     const valid = args.paths.filter((p) => p.length > 0 && getNode(rung.network, p) !== undefined);
     if (valid.length === 0) return rung;
     const unique = [...new Map(valid.map((p) => [p.join('.'), p])).values()].sort(compareReverse);
+    const keep = emptyBranchIds(rung.network);
     let network = rung.network;
     for (const path of unique) network = updateNode(network, path, () => null);
-    return { ...rung, network: normalizeNetwork(network) };
+    return { ...rung, network: normalizeNetwork(network, keep) };
   });
 }
 

@@ -189,8 +189,28 @@ function checkBlock(block: Block, place: Place, ctx: Context): void {
   }
 }
 
-/** Validate a program against a panel's address space. */
+/**
+ * Results already worked out, per document object and address space. Documents are immutable
+ * (every edit makes a new object), so the same object always validates the same: the editor's
+ * validation of an edit and the engine's compile of that same document then cost one validation,
+ * not two. Entries go with their document (a WeakMap); results are frozen, as they are shared.
+ */
+const validated = new WeakMap<Program, Map<string, readonly Diagnostic[]>>();
+const spaceKey = (space: AddressSpace): string => `${space.inputs}/${space.outputs}/${space.memory}`;
+
+/** Validate a program against a panel's address space (once per document object and space; see `validated`). */
 export function validateProgram(program: Program, space: AddressSpace = DEFAULT_ADDRESS_SPACE): Diagnostic[] {
+  const key = spaceKey(space);
+  let bySpace = validated.get(program);
+  const known = bySpace?.get(key);
+  if (known !== undefined) return known as Diagnostic[];
+  const found = Object.freeze(findProblems(program, space));
+  if (bySpace === undefined) validated.set(program, (bySpace = new Map()));
+  bySpace.set(key, found);
+  return found as Diagnostic[];
+}
+
+function findProblems(program: Program, space: AddressSpace): Diagnostic[] {
   const symbols = buildSymbolTable(program);
   const ctx: Context = { symbols, space, found: validateTags(program.tags, space) };
   const firstInstance = new Map<string, { type: Block['type']; rung: number }>();

@@ -17,7 +17,7 @@ import {
 } from '@shared/ladder/edits';
 import { ID_PREFIX } from '@shared/ladder/ids';
 import type { Element, NodePath, Program, Rung } from '@shared/ladder/schema';
-import { findPath, getNode } from '@shared/ladder/walk';
+import { allIds, findPath, getNode, visitNodes } from '@shared/ladder/walk';
 import type { SlotTarget } from './layoutTypes';
 import { slotInsertTarget } from './slots';
 
@@ -51,6 +51,27 @@ export function deleteElements(doc: Program, ids: readonly string[]): Program {
   let next = doc;
   for (const [rungId, paths] of pathsByRung(doc, ids)) next = deleteNodes(next, { rungId, paths });
   return next;
+}
+
+/**
+ * The drop slot of the empty branch an edit just drew in `rungId` (one that is in `after` and was
+ * not in `before`), so the next key or palette click fills that branch instead of going on in series.
+ */
+export function newEmptyBranchSlot(before: Program, after: Program, rungId: string): SlotTarget | undefined {
+  if (before === after) return undefined;
+  const rung = after.rungs.find((r) => r.id === rungId);
+  if (!rung) return undefined;
+  const old = new Set(allIds(before));
+  let found: SlotTarget | undefined;
+  visitNodes(rung.network, (node, path) => {
+    if (found === undefined && node.kind === 'series' && node.items.length === 0 && path.length > 0 && !old.has(node.id)) found = { rungId, path, index: 0 };
+  });
+  return found;
+}
+
+/** The rung holding an element, by id. */
+export function rungOfElement(doc: Program, id: string): string | undefined {
+  return locate(doc, id)?.rungId;
 }
 
 /** Wrap selected sibling elements of one series in a parallel with an empty branch below; elsewhere nothing. */

@@ -22,23 +22,25 @@ function lampRungs(): RungDraft[] {
 
 /**
  * Three-wire forward/reverse: NC stop (examined by a NO contact, so TRUE at rest), start in
- * parallel with the seal-in on the output itself, the other direction's output in series as the
- * software interlock. At JOG (S4) the seal-in is defeated, so the belt runs only while a start
- * button is held. A box held at the belt end for 5 s while running forward sounds the horn.
+ * parallel with the seal-in on the contactor's auxiliary contact (K1 13-14 on %IX7, K2 13-14 on
+ * %IX8: what the contactor really does, so an overload trip breaks the seal and resetting F1 does
+ * not restart the belt), the other direction's output in series as the software interlock. At JOG
+ * (S4) the seal-in is defeated, so the belt runs only while a start button is held. A box held at
+ * the belt end for 5 s while running forward sounds the horn.
  */
 function threeWireRungs(): RungDraft[] {
   return [
     rung(
-      'Forward: stop AND (forward OR sealed in at RUN) AND NOT reverse',
+      'Forward: stop AND (forward OR K1 closed at RUN) AND NOT reverse',
       no('Stop_PB'),
-      par(no('Fwd_PB'), ser(no('K1_Coil'), no('Run_Sel'))),
+      par(no('Fwd_PB'), ser(no('K1_Aux'), no('Run_Sel'))),
       nc('K2_Coil'),
       coil('K1_Coil'),
     ),
     rung(
-      'Reverse: stop AND (reverse OR sealed in at RUN) AND NOT forward',
+      'Reverse: stop AND (reverse OR K2 closed at RUN) AND NOT forward',
       no('Stop_PB'),
-      par(no('Rev_PB'), ser(no('K2_Coil'), no('Run_Sel'))),
+      par(no('Rev_PB'), ser(no('K2_Aux'), no('Run_Sel'))),
       nc('K1_Coil'),
       coil('K2_Coil'),
     ),
@@ -52,7 +54,7 @@ function threeWireRungs(): RungDraft[] {
 export function threeWireProgram(): Program {
   return buildProgram(
     'Three-wire reversing conveyor (demo)',
-    'Demo, invented scenario: the Larch Hollow Timber Co. infeed belt. Start/stop with seal-in, forward/reverse interlock, jog at JOG.',
+    'Demo, invented scenario: the Larch Hollow Timber Co. infeed belt. Start/stop sealed in on the contactors\' auxiliary contacts, forward/reverse interlock, jog at JOG.',
     conveyorTags(),
     threeWireRungs(),
   );

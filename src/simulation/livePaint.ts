@@ -9,7 +9,7 @@
 import { elementOps } from '@/editor/drawList';
 import { RAIL_W } from '@/editor/geometry';
 import type { ElementBox, ProgramLayout, RungLayout } from '@/editor/layoutTypes';
-import { FONT_MONO, FONT_UI, type Palette } from '@/theme';
+import { FONT_MONO, FONT_UI, MIN_CANVAS_TEXT_PX, type Palette } from '@/theme';
 import type { LiveView } from './liveView';
 import { blockFigures, FLOW_DASH, flowDashOffset } from './useLiveView';
 import { wireEnergised, wireNets, type WireNets } from './wireNets';
@@ -71,13 +71,13 @@ export function paintLiveMarks(ctx: CanvasRenderingContext2D, marks: readonly Li
       if (m.badge) {
         ctx.fillStyle = palette.forced;
         ctx.beginPath();
-        ctx.roundRect?.(m.x - 21, m.y - 7, 42, 14, 7);
+        ctx.roundRect?.(m.x - 24, m.y - 8, 48, 16, 8);
         ctx.fill();
         ctx.fillStyle = '#fff';
-        ctx.font = `700 9px ${FONT_UI}`;
+        ctx.font = `700 ${MIN_CANVAS_TEXT_PX}px ${FONT_UI}`;
       } else {
         ctx.fillStyle = palette.energised;
-        ctx.font = `700 10px ${FONT_MONO}`;
+        ctx.font = `700 ${MIN_CANVAS_TEXT_PX}px ${FONT_MONO}`;
       }
       ctx.textAlign = 'center';
       ctx.textBaseline = 'middle';

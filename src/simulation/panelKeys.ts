@@ -74,3 +74,25 @@ export function bindingForKey(bindings: readonly KeyBinding[], key: string): Key
   const k = key.toLowerCase();
   return bindings.find((b) => b.key === k);
 }
+
+/** What of a key event the focus rule reads (a DOM `KeyboardEvent` fits). */
+export interface PanelKeyEvent {
+  target: EventTarget | null;
+  ctrlKey: boolean;
+  metaKey: boolean;
+  altKey: boolean;
+}
+
+/**
+ * The focus rule: a panel key acts only while the keyboard focus is inside the field panel (a
+ * device's button, or the panel itself), never while it is on the rungs, the palette or anywhere
+ * else, where the same letters are editor keys (T inserts a TON there, trips F1 here). A text
+ * field inside the panel, and any chord with Ctrl, Cmd or Alt, are not for the panel either.
+ */
+export function keyIsForPanel(event: PanelKeyEvent, panel: { contains(node: Node | null): boolean } | null): boolean {
+  if (event.ctrlKey || event.metaKey || event.altKey || panel === null) return false;
+  const target = event.target as (Node & Partial<Pick<HTMLElement, 'closest'>>) | null;
+  if (target === null || !panel.contains(target)) return false;
+  if (typeof target.closest !== 'function') return true;
+  return target.closest('input, textarea, select, [contenteditable="true"], [role="textbox"]') === null;
+}

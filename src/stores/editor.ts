@@ -6,6 +6,8 @@
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import type { Program } from '@shared/ladder/schema';
+import type { PanelLayout } from '@shared/field/layout';
+import { DEFAULT_ADDRESS_SPACE, type AddressSpace } from '@shared/ladder/addresses';
 import { createEmptyProgram } from '@shared/ladder/restore';
 import { validateProgram } from '@shared/ladder/validate';
 import { allIds } from '@shared/ladder/walk';
@@ -17,6 +19,7 @@ import { editPastLimits } from '@/editor/documentLimits';
 import type { ProgramLayout } from '@/editor/layoutTypes';
 import { NO_SELECTION, pruneSelection, sameSlot, type Selection } from '@/editor/selection';
 import { rungTextMap } from '@/editor/textForm';
+import { isBlank, panelAddressSpace } from '@/editor/addressSpace';
 
 /** Effects that do nothing, until the workbench supplies its own. */
 function quietEffects(undo: () => void, redo: () => void): EditorEffects {
@@ -35,6 +38,8 @@ function quietEffects(undo: () => void, redo: () => void): EditorEffects {
     editSelection: none,
     editRungComment: none,
     toggleMessages: none,
+    showHistory: none,
+    showKeys: none,
   };
 }
 
@@ -52,16 +57,34 @@ export const useEditorStore = defineStore('editor', () => {
   const clipboard = shallowRef<Clipboard | null>(null);
   const readOnly = ref(false);
   const showTextForm = ref(false);
+  /** Counts `load` calls: what was worked out for one opened document is not used for the next. */
+  const opened = ref(0);
   /** The last edit refused for passing a document size limit, with why (`at` tells repeats apart). */
   const refusedEdit = shallowRef<{ message: string; at: number } | null>(null);
   /** The document as last saved or loaded: the editor is dirty while the present differs. */
   const savedDoc = shallowRef<Program | null>(history.value.present.doc);
 
+  /**
+   * The field panel the program runs on (the lab's, or the default), and its address space: the
+   * editor validates against the very space the simulation compiles against, so an address the
+   * panel has is never flagged out of range (nor one it lacks accepted).
+   */
+  const panel = shallowRef<PanelLayout | null>(null);
+  const space = computed<AddressSpace>(() => (panel.value ? panelAddressSpace(panel.value) : DEFAULT_ADDRESS_SPACE));
+
   const doc = computed(() => history.value.present.doc);
   const selection = computed(() => history.value.present.selection);
   const rungText = computed(() => (showTextForm.value ? rungTextMap(doc.value) : undefined));
   const layout = computed(() => layoutProgram(doc.value, rungText.value));
-  const diagnostics = computed(() => validateProgram(doc.value));
+  /** Nothing drawn yet (every rung empty): a new program, not a broken one. */
+  const blank = computed(() => isBlank(doc.value));
+  /** Every problem of the document on the panel in use (validated once per document and space). */
+  const problems = computed(() => validateProgram(doc.value, space.value));
+  /**
+   * What the messages show: the problems, except that a program with nothing drawn yet is not
+   * told its empty rung is an error before the student has started.
+   */
+  const diagnostics = computed(() => (blank.value ? problems.value.filter((d) => d.code !== 'empty-rung') : problems.value));
   const dirty = computed(() => doc.value !== savedDoc.value);
   const undoable = computed(() => canUndo(history.value));
   const redoable = computed(() => canRedo(history.value));
@@ -70,9 +93,15 @@ export const useEditorStore = defineStore('editor', () => {
 
   /** Start editing a document afresh (loaded from the server or a new program). */
   function load(program: Program, options: { readOnly?: boolean } = {}): void {
+    opened.value += 1;
     history.value = createHistory(program, NO_SELECTION);
     savedDoc.value = program;
     readOnly.value = options.readOnly ?? false;
+  }
+
+  /** Validate against this panel's address space from now on (the panel the simulation runs); null: the default panel's. */
+  function usePanel(next: PanelLayout | null): void {
+    panel.value = next;
   }
 
   /** The document was saved as it is now. */
@@ -159,14 +188,20 @@ export const useEditorStore = defineStore('editor', () => {
     selection,
     clipboard,
     readOnly,
+    opened,
     refusedEdit,
     showTextForm,
     layout,
+    panel,
+    space,
+    blank,
+    problems,
     diagnostics,
     dirty,
     undoable,
     redoable,
     load,
+    usePanel,
     markSaved,
     markUnsaved,
     apply,

@@ -192,7 +192,14 @@ export const useSimulationStore = defineStore('simulation', () => {
 
   /** An edited program: recompiled at once, memory kept where it can be (see the session). */
   function setProgram(next: Program): void {
+    const lastNote = session.value?.messages.at(-1)?.id ?? 0;
     session.value?.setProgram(next);
+    // Stopped means nothing has run since the last (re)start: the edit is simply the program Run
+    // will start, and the session's notes on recompiling "while running" and on the memory kept
+    // would claim otherwise. (Device settings made while stopped are kept either way.)
+    if (mode.value === 'stopped') {
+      for (const m of session.value?.messages ?? []) if (m.id > lastNote && m.severity !== 'error') session.value?.dismissMessage(m.id);
+    }
     if (session.value?.simulation == null) {
       loop.stop();
       if (mode.value === 'running') mode.value = 'paused';

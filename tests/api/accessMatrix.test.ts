@@ -104,6 +104,16 @@ function programRows(label: string, pick: (s: Scene) => string, read: (ok: numbe
   ];
 }
 
+/** The draft routes of one program of studentBoth: theirs alone, to anyone else it does not exist. */
+function draftRows(label: string, pick: (s: Scene) => string): Row[] {
+  const at = (s: Scene) => `/api/programs/${pick(s)}/draft`;
+  return [
+    { route: `GET /api/programs/:id/draft (${label})`, send: (t, c, s) => call(t, 'get', at(s), c), expect: ownOnly(200) },
+    { route: `PUT /api/programs/:id/draft (${label})`, send: (t, c, s) => call(t, 'put', at(s), c).send({ baseVersion: 1, document: documentWithRungs(2) }), expect: ownOnly(200) },
+    { route: `DELETE /api/programs/:id/draft (${label})`, send: (t, c, s) => call(t, 'delete', at(s), c), expect: ownOnly(204) },
+  ];
+}
+
 /** The review routes of one submission of studentBoth. */
 function submissionRows(label: string, pick: (s: Scene) => string, review: (ok: number) => Expected): Row[] {
   const at = (s: Scene, rest = '') => `/api/submissions/${pick(s)}${rest}`;
@@ -181,6 +191,9 @@ const ROWS: Row[] = [
   ...programRows('outside labs', (s) => s.freeProgram, ownOnly, ownOnly),
   ...programRows('copy of lab A', (s) => s.copyA, readCopyA, writeCopyA),
   ...programRows('copy of lab B', (s) => s.copyB, readCopyB, writeCopyB),
+  // Drafts: the owner's alone, even on a lab copy its teacher may read.
+  ...draftRows('outside labs', (s) => s.freeProgram),
+  ...draftRows('copy of lab A', (s) => s.copyA),
   {
     route: 'POST /api/programs/import',
     send: (t, c) => call(t, 'post', '/api/programs/import', c).attach('file', Buffer.from(xml), { filename: 'p.xml', contentType: 'application/xml' }),

@@ -17,7 +17,7 @@ import type { Express } from 'express';
 import { FORWARD_REVERSE, THREE_WIRE } from '@shared/labs';
 import { listRoutes, type RouteEntry } from '../../server/http/routeList';
 import { createTestApp, type TestApp } from './helpers/testApp';
-import { addUser, call, createCast, createProgramAs, documentWithRungs, PASSWORD, type Cast } from './helpers/fixtures';
+import { addUser, call, createCast, createProgramAs, documentWithRungs, PASSWORD, signIn, type Cast } from './helpers/fixtures';
 import { enrol } from '../../server/db/classes';
 import { labFromTemplate, publish, saveInCopy, submitVersion } from './labsFixtures';
 import { requestsFor, type BodyTemplate, type FuzzBody, type FuzzRequest, type IdPool } from './fuzzRequests';
@@ -38,6 +38,8 @@ let routes: RouteEntry[];
 /** Real ids for paths; DELETE routes get throwaway ones, so the fixtures the rest need survive. */
 let ids: IdPool;
 let throwaway: IdPool;
+/** A session of an account no other request uses: "sign out everywhere" ends it, not a caller's. */
+let leaverCookie: string;
 let templates: Record<string, BodyTemplate | 'multipart'>;
 
 async function uploadAttachment(labId: string): Promise<string> {
@@ -61,6 +63,8 @@ beforeAll(async () => {
   const spareProgram = await createProgramAs(t, cast.studentB, 'Spare');
   const leaver = await addUser(t, 'leaver@test.example', 'student');
   await enrol(t.database.orm, cast.otherClassId, leaver.id, t.clock.now());
+  const bystander = await addUser(t, 'bystander@test.example', 'student');
+  leaverCookie = await signIn(t, bystander.email);
   ids = {
     'programs:id': [solutionId, ref.programId],
     number: ['1', String(ref.version)],
@@ -97,6 +101,7 @@ beforeAll(async () => {
     'POST /api/programs': { title: 'Fuzzed', document: documentWithRungs(2), labId },
     'PATCH /api/programs/:id': { title: 'Renamed' },
     'POST /api/programs/:id/versions': { baseVersion: 1, document: documentWithRungs(1), message: 'fuzz' },
+    'PUT /api/programs/:id/draft': { baseVersion: 1, document: documentWithRungs(1) },
     'POST /api/programs/:id/restore': { version: 1, baseVersion: 1 },
     'POST /api/programs/import': 'multipart',
     'POST /api/classes': { name: 'Fuzz class', term: 'Fall 2026' },
@@ -268,8 +273,12 @@ describe('the fuzz test', () => {
     const callers = cookies();
     const requests = draw(REQUESTS, callers.length);
     const started = Date.now();
-    // Signing out would end the caller's session for the rest of the run: only strangers do.
-    const outcomes = await run(requests, (r) => (r.path === '/api/auth/sign-out' ? null : callers[r.who]!));
+    // Signing out would end the caller's session for the rest of the run: only strangers do, and
+    // "sign out everywhere" ends a bystander's sessions (its first call does; the rest are 401).
+    const cookieOf = (r: FuzzRequest): string | null => (r.path === '/api/auth/sign-out' ? null : r.path === '/api/auth/sign-out-everywhere' ? leaverCookie : callers[r.who]!);
+    const outcomes = await run(requests, cookieOf);
+    const signedOutCallers = await Promise.all(callers.filter((c): c is string => c !== null).map(async (c) => (await call(t, 'get', '/api/me', c)).status));
+    expect(signedOutCallers, 'every caller is still signed in after the run').toEqual(callers.filter((c) => c !== null).map(() => 200));
     const seconds = ((Date.now() - started) / 1000).toFixed(1);
     console.log(`fuzz: ${outcomes.length} requests over ${routes.length} routes in ${seconds} s (seed ${SEED}); statuses ${JSON.stringify(tally(outcomes))}`);
     expect(outcomes.length).toBeGreaterThanOrEqual(5000);

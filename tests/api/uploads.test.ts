@@ -94,6 +94,13 @@ describe('PLCopen XML import', () => {
     expect(res.body.head.message).toBe('Imported from program.xml');
   });
 
+  it('gives an import whose title is already one of the user\'s programs the next free "(n)" title', async () => {
+    const xml = exportPlcopen({ ...REVERSING_DEMO, title: 'Twin conveyor' });
+    const titles = [];
+    for (let i = 0; i < 3; i += 1) titles.push((await importXml(xml)).body.program.title);
+    expect(titles).toEqual(['Twin conveyor', 'Twin conveyor (2)', 'Twin conveyor (3)']);
+  });
+
   it('refuses an XML bomb (DOCTYPE with entities) before parsing', async () => {
     const bomb = '<?xml version="1.0"?><!DOCTYPE lolz [<!ENTITY lol "lol"><!ENTITY lol2 "&lol;&lol;&lol;&lol;">]><project>&lol2;</project>';
     const res = await importXml(bomb);

@@ -122,7 +122,7 @@ describe('labs in a real browser', () => {
     await teacher.getByLabel('Step 3 wait in ms').fill('-5');
     await teacher.getByLabel('Step 3 wait in ms').press('Tab');
     await expect.poll(() => teacher.getByTestId('step-3').innerText()).toMatch(/step 3: "wait" needs a whole number of ms/);
-    expect(await teacher.getByTestId('script-validity').innerText()).toBe('1 problem(s)');
+    expect(await teacher.getByTestId('script-validity').innerText()).toBe('1 problem');
     await teacher.getByTestId('step-3').screenshot({ path: `${SHOTS}/lab-author-step-error.png` });
     await teacher.getByLabel('Step 3 wait in ms').fill('100');
     await teacher.getByLabel('Step 3 wait in ms').press('Tab');
@@ -216,7 +216,7 @@ describe('labs in a real browser', () => {
     await student.getByLabel('Version message').press('Enter');
     await expect.poll(() => student.getByTestId('save-status').innerText()).toMatch(/Saved · version 2/);
 
-    await student.getByRole('button', { name: 'Submit…' }).click();
+    await student.getByRole('button', { name: 'Save and submit…' }).click();
     await expect.poll(() => student.getByTestId('submit-confirm').innerText()).toMatch(/version 2/);
     await student.getByRole('button', { name: 'Submit version 2' }).click();
     await expect.poll(() => student.getByTestId('submission-status').innerText(), { timeout: 20_000 }).toMatch(/graded/);

@@ -1,9 +1,10 @@
 /**
  * Paints a draw list (`editor/drawList.ts`) onto a Konva scene context. The only code that turns
- * primitives into canvas calls; colours and fonts come from the theme palette.
+ * primitives into canvas calls; colours and fonts come from the theme palette. Text is never
+ * painted below `MIN_CANVAS_TEXT_PX`, whatever size the draw list asks for.
  */
 import type { Context } from 'konva/lib/Context';
-import { FONT_MONO, FONT_UI, type Palette } from '@/theme';
+import { FONT_MONO, FONT_UI, MIN_CANVAS_TEXT_PX, type Palette } from '@/theme';
 import type { DrawOp, FontRole, InkRole } from '@/editor/drawList';
 
 export function inkColour(palette: Palette, ink: InkRole): string {
@@ -57,7 +58,7 @@ export function paintOps(ctx: Context, ops: readonly DrawOp[], palette: Palette)
         ctx.strokeRect(op.x, op.y, op.w, op.h);
         break;
       case 'text':
-        ctx.setAttr('font', FONTS[op.font](op.size));
+        ctx.setAttr('font', FONTS[op.font](Math.max(op.size, MIN_CANVAS_TEXT_PX)));
         ctx.setAttr('fillStyle', inkColour(palette, op.ink));
         ctx.setAttr('textAlign', op.align);
         ctx.fillText(fitText(ctx, op.text, op.maxWidth), op.x, op.y);

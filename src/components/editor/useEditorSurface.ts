@@ -1,13 +1,21 @@
 /**
- * What the workbench and the lab workbench wire up the same way around the rung editor: the dock
- * tab, the error count, the view effects the commands call (zoom, text form, Enter/comment editing
- * in the inspector), and Ctrl/Cmd+S from anywhere on the page.
+ * What every editing surface wires up the same way around the rung editor: the dock tab, the error
+ * count, the view effects the commands call (zoom, text form, Enter/comment editing in the
+ * inspector), and the page's own keys: Ctrl/Cmd+S from anywhere, the other `page` commands (`?`)
+ * from anywhere outside a text field. Editor keys are the canvas's and the palette's business.
+ *
+ * The dock opens on the field panel. It turns to the inspector when an element is edited (Enter,
+ * double-click) or inserted (its operand is to be typed next), and back to the panel when the
+ * simulation starts running: editing shows the element, running shows what the student operates.
  */
-import { computed, onBeforeUnmount, onMounted, ref, type Ref } from 'vue';
+import { computed, onBeforeUnmount, onMounted, ref, watch, type Ref } from 'vue';
+import { allIds } from '@shared/ladder/walk';
+import { command, commandForKey } from '@/editor/commands/registry';
 import type { EditorEffects } from '@/editor/commands/types';
 import type RungCanvas from '@/components/editor/RungCanvas.vue';
 import type InspectorPanel from '@/components/editor/InspectorPanel.vue';
 import { useEditorStore } from '@/stores/editor';
+import { useSimulationStore } from '@/stores/simulation';
 
 /** The effects that differ between the two surfaces, and what Ctrl/Cmd+S does on each. */
 export interface EditorSurfaceOptions {
@@ -19,15 +27,42 @@ export interface EditorSurfaceOptions {
   onSaveKey: () => void;
 }
 
+/** True when a key goes to a text field (or a control that takes typing), where letters are text. */
+function typingIn(target: EventTarget | null): boolean {
+  const el = target as Partial<Pick<HTMLElement, 'closest'>> | null;
+  return typeof el?.closest === 'function' && el.closest('input, textarea, select, [contenteditable="true"], [role="textbox"]') !== null;
+}
+
 /** Which tab of the right dock is showing. */
-export type DockTab = 'inspector' | 'tags';
+export type DockTab = 'panel' | 'io' | 'inspector' | 'tags';
 
 /** Sets the editor's effects and the save key for one editing surface; call once in `setup`. */
 export function useEditorSurface(options: EditorSurfaceOptions) {
   const editor = useEditorStore();
   const { canvas, inspector } = options;
-  const dockTab = ref<DockTab>('inspector');
+  const simulation = useSimulationStore();
+  const dockTab = ref<DockTab>('panel');
   const errorCount = computed(() => editor.diagnostics.filter((d) => d.severity === 'error').length);
+
+  // An edit that leaves one element selected that the document before it did not have inserted it.
+  // Synchronous, so the selection read is the one that came with this very document (a load
+  // followed by a selection in the same tick is not an insertion).
+  watch(
+    () => editor.doc,
+    (doc, previous) => {
+      const selection = editor.selection;
+      if (previous === undefined || selection.kind !== 'elements' || selection.ids.length !== 1) return;
+      const id = selection.ids[0]!;
+      if (!allIds(previous).includes(id) && allIds(doc).includes(id)) dockTab.value = 'inspector';
+    },
+    { flush: 'sync' },
+  );
+  watch(
+    () => simulation.mode,
+    (mode) => {
+      if (mode === 'running' && (dockTab.value === 'inspector' || dockTab.value === 'tags')) dockTab.value = 'panel';
+    },
+  );
 
   editor.setEffects({
     zoomBy: (f) => canvas.value?.zoomBy(f),
@@ -46,14 +81,20 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
     ...options.effects,
   });
 
-  function onSaveKey(event: KeyboardEvent): void {
+  function onPageKey(event: KeyboardEvent): void {
     if ((event.ctrlKey || event.metaKey) && event.key.toLowerCase() === 's') {
       event.preventDefault();
       options.onSaveKey();
+      return;
     }
+    if (event.defaultPrevented || typingIn(event.target)) return;
+    const found = commandForKey(event);
+    if (!found || (command(found.name).area ?? 'editor') !== 'page') return;
+    event.preventDefault();
+    editor.dispatch(found.name, found.args);
   }
-  onMounted(() => window.addEventListener('keydown', onSaveKey));
-  onBeforeUnmount(() => window.removeEventListener('keydown', onSaveKey));
+  onMounted(() => window.addEventListener('keydown', onPageKey));
+  onBeforeUnmount(() => window.removeEventListener('keydown', onPageKey));
 
   return { dockTab, errorCount };
 }

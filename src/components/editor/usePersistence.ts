@@ -20,6 +20,8 @@ export function usePersistence(programId: () => string) {
   const state = ref<LoadState>('loading');
   const loadError = ref('');
   const baseVersion = ref(0);
+  /** The program's newest version as last seen (a draft is offered back only when newer than it). */
+  const head = shallowRef<VersionSummary | null>(null);
   const title = ref('');
   const saving = ref(false);
   /** Set when a save met a newer head: what the server has now. */
@@ -41,6 +43,7 @@ export function usePersistence(programId: () => string) {
       const doc = documentFrom(detail.head.document);
       title.value = detail.program.title;
       baseVersion.value = detail.head.number;
+      head.value = { number: detail.head.number, message: detail.head.message, authorId: detail.head.authorId, createdAt: detail.head.createdAt };
       viewingVersion.value = null;
       workingCopy.value = null;
       editor.load(doc);
@@ -58,6 +61,7 @@ export function usePersistence(programId: () => string) {
     try {
       const version = await api.saveVersion(programId(), { baseVersion: base, document: doc, message });
       baseVersion.value = version.number;
+      head.value = { number: version.number, message: version.message, authorId: version.authorId, createdAt: version.createdAt };
       editor.markSaved(doc);
       conflict.value = null;
       return 'saved';
@@ -115,5 +119,5 @@ export function usePersistence(programId: () => string) {
     }
   }
 
-  return { state, loadError, baseVersion, title, saving, conflict, viewingVersion, load, save, keepMine, reloadTheirs, openVersion, closeVersion, restore };
+  return { state, loadError, baseVersion, head, title, saving, conflict, viewingVersion, load, save, keepMine, reloadTheirs, openVersion, closeVersion, restore };
 }

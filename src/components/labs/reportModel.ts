@@ -47,6 +47,11 @@ export interface PresentedReport {
   maxScore: number;
   /** "7 / 10". */
   scoreText: string;
+  /**
+   * The visible checks' points, "7 / 7": what a self-check of the same document shows, so a
+   * student can compare the two. Equal to the score when nothing is hidden.
+   */
+  visibleText: string;
   passed: boolean;
   /** Checks shown in full (every check for an instructor; visible ones for a student). */
   rows: CheckRow[];
@@ -145,10 +150,14 @@ export function presentReport(report: AnyReport): PresentedReport {
         }
       : null;
   const compileError = report.checks.length > 0 && report.scans === 0 ? rows.find((r) => r.note)?.note ?? null : null;
+  const visibleRows = rows.filter((r) => !r.hidden);
+  const visibleEarned = visibleRows.reduce((sum, r) => sum + r.earned, 0);
+  const visiblePossible = visibleRows.reduce((sum, r) => sum + r.points, 0);
   return {
     score: report.score,
     maxScore: report.maxScore,
     scoreText: `${report.score} / ${report.maxScore}`,
+    visibleText: `${visibleEarned} / ${visiblePossible}`,
     passed: report.passed,
     rows,
     hidden,

@@ -14,11 +14,13 @@ import {
   freshElementId,
   insertAtSlot,
   moveElementBy,
+  newEmptyBranchSlot,
   pasteRungs,
+  rungOfElement,
   wrapElements,
 } from '../gestures';
 import { paletteItem } from '../palette';
-import { NO_SELECTION, focusElementId, selectElements, selectRungs, selectedElementIds, selectedRungIds } from '../selection';
+import { NO_SELECTION, focusElementId, selectElements, selectRungs, selectSlot, selectedElementIds, selectedRungIds } from '../selection';
 import { insertionSlot, selectionRungId, slotAfter } from '../slots';
 import type { Command, CommandName, EditorState } from './types';
 
@@ -76,7 +78,7 @@ export const ELEMENT_COMMANDS = {
     shortcuts: ['Shift+B'],
     edits: true,
     enabled: (s) => hasElements(s) && wrapElements(s.doc, selectedElementIds(s.selection)) !== s.doc,
-    perform: (s) => ({ doc: wrapElements(s.doc, selectedElementIds(s.selection)) }),
+    perform: (s) => withBranchSelected(s, wrapElements(s.doc, selectedElementIds(s.selection)), selectedElementIds(s.selection)[0]),
   },
   'add-branch-below': {
     name: 'add-branch-below',
@@ -88,7 +90,7 @@ export const ELEMENT_COMMANDS = {
     perform: (s) => {
       const focus = focusElementId(s.selection);
       if (focus === undefined) return;
-      return { doc: addBranchUnder(s.doc, focus) };
+      return withBranchSelected(s, addBranchUnder(s.doc, focus), focus);
     },
   },
   'move-element-left': {
@@ -156,6 +158,17 @@ export const ELEMENT_COMMANDS = {
     },
   },
 } as const satisfies Partial<Record<CommandName, Command>>;
+
+/**
+ * A branch command's result with the new empty branch's slot selected: the next key press or
+ * palette click then goes into the branch (the seal-in contact under a start button), not on in
+ * series after the element the branch was drawn from.
+ */
+function withBranchSelected(s: EditorState, doc: EditorState['doc'], elementId: string | undefined) {
+  const rungId = elementId === undefined ? undefined : rungOfElement(s.doc, elementId);
+  const slot = rungId === undefined ? undefined : newEmptyBranchSlot(s.doc, doc, rungId);
+  return slot ? { doc, selection: selectSlot(slot) } : { doc };
+}
 
 function copyOf(s: EditorState): EditorState['clipboard'] {
   const rungIds = new Set(selectedRungIds(s.selection));

@@ -47,6 +47,10 @@ export interface EditorEffects {
   editSelection(): void;
   editRungComment(rungId: string): void;
   toggleMessages(): void;
+  /** Open the version history. */
+  showHistory(): void;
+  /** Open the keyboard sheet (every command and panel key, by the area it acts in). */
+  showKeys(): void;
 }
 
 /** Every command's name. */
@@ -85,10 +89,20 @@ export type CommandName =
   | 'export-png'
   | 'print'
   | 'edit-selection'
-  | 'toggle-messages';
+  | 'toggle-messages'
+  | 'show-history'
+  | 'show-keys';
 
 /** Where commands are offered, for grouping in toolbar and menus. */
 export type CommandGroup = 'element' | 'rung' | 'clipboard' | 'history' | 'view' | 'file' | 'selection';
+
+/**
+ * Where a command's keys act: `editor` keys only while the rungs or the palette have the keyboard
+ * focus (so a letter typed elsewhere never edits the program); `page` keys anywhere on the
+ * workbench except inside a text field (Ctrl/Cmd+S even there). The field panel's own keys act
+ * only while the panel has the focus (`src/simulation/panelKeys.ts`).
+ */
+export type CommandArea = 'editor' | 'page';
 
 /** The extra argument some commands take (the palette item key for `insert-element`). */
 export interface CommandArgs {
@@ -103,6 +117,8 @@ export interface Command {
   shortcuts: readonly string[];
   /** True for commands that change the document (refused on a read-only version). */
   edits: boolean;
+  /** Where its keys act; `editor` when absent. */
+  area?: CommandArea;
   enabled(state: EditorState, args?: CommandArgs): boolean;
   perform(state: EditorState, effects: EditorEffects, args?: CommandArgs): CommandResult | void;
 }

@@ -62,7 +62,8 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   };
   process.once('exit', killOnExit);
   try {
-    await waitForHealth(url, child, () => log, 60_000);
+    // Generous: on a machine shared by several test runs a first start (initdb in WASM) has taken over a minute (the e2e hook timeout, 120 s, bounds it).
+    await waitForHealth(url, child, () => log, 110_000);
   } catch (err) {
     killOnExit();
     throw err;

@@ -76,3 +76,22 @@ describe('the state words of the I/O status table', () => {
     for (const colour of [ink.fault, ink.on]) expect(contrastRatio(colour, surface)).toBeGreaterThanOrEqual(4.5);
   });
 });
+
+describe('links, primary buttons, the active tab and success words', () => {
+  it.each([
+    ['light', LIGHT_PALETTE],
+    ['dark', DARK_PALETTE],
+  ])('read at ≥ 4.5:1 on the %s paper and surface (WCAG 2.1 SC 1.4.3)', (_scheme, palette) => {
+    for (const colour of [palette.link, palette.ok]) {
+      expect(contrastRatio(colour, palette.paper)).toBeGreaterThanOrEqual(4.5);
+      expect(contrastRatio(colour, palette.surface)).toBeGreaterThanOrEqual(4.5);
+    }
+  });
+
+  it('carries white text at ≥ 4.5:1 on a light-scheme primary button (WCAG 2.1 SC 1.4.3)', () => {
+    expect(contrastRatio('#ffffff', LIGHT_PALETTE.link)).toBeGreaterThanOrEqual(4.5);
+    // The selection's own teal would not: it stays for outlines, which need 3:1 (SC 1.4.11).
+    expect(contrastRatio('#ffffff', LIGHT_PALETTE.selection)).toBeLessThan(4.5);
+    expect(contrastRatio(LIGHT_PALETTE.selection, LIGHT_PALETTE.paper)).toBeGreaterThanOrEqual(3);
+  });
+});

@@ -56,10 +56,13 @@ describe('the "Save a version" dialog', () => {
   it('notes the error count only while the program has errors', async () => {
     wrapper = mount(SaveVersionDialog, { props: { show: true, errorCount: 2 }, attachTo: document.body });
     await settle();
-    expect(dialog()?.textContent).toContain('The program still has 2 error(s); you can save it anyway and fix them later.');
+    expect(dialog()?.textContent).toContain('The program still has 2 errors; you can save it anyway and fix them later.');
+    await wrapper.setProps({ errorCount: 1 });
+    await settle();
+    expect(dialog()?.textContent).toContain('The program still has 1 error; you can');
     await wrapper.setProps({ errorCount: 0 });
     await settle();
-    expect(dialog()?.textContent).not.toContain('error(s)');
+    expect(dialog()?.textContent).not.toContain('still has');
   });
 
   it('starts with an empty message each time it opens', async () => {

@@ -40,6 +40,20 @@ describe('the grade report on screen', () => {
     expect(shown.scoreText).toBe('11 / 11');
   });
 
+  it('shows on the student\'s report the visible score a self-check of the same program shows', () => {
+    for (const program of [THREE_WIRE.starter, THREE_WIRE.solution]) {
+      const self = runChecks({ program, panel: REVERSING_CONVEYOR, script: studentScript(replayableScript(THREE_WIRE.script)!).script });
+      if (!self.ok) throw new Error(self.errors.join('; '));
+      const selfShown = presentReport(self.report);
+      const reportShown = presentReport(redactReport(grade(program)));
+      expect(reportShown.visibleText).toBe(selfShown.scoreText);
+      expect(selfShown.visibleText).toBe(selfShown.scoreText);
+    }
+    expect(presentReport(redactReport(grade(THREE_WIRE.solution))).visibleText).toBe('7 / 7');
+    // An instructor's full report counts only the checks not hidden.
+    expect(presentReport(grade(THREE_WIRE.solution)).visibleText).toBe('7 / 7');
+  });
+
   it('counts the hidden checks a student failed', () => {
     const shown = presentReport(redactReport(grade()));
     expect(shown.hidden!.failed + shown.hidden!.passed).toBe(3);

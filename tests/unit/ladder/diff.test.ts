@@ -13,7 +13,7 @@ describe('diffPrograms', () => {
 
   it('shows a changed rung with its text before and after', () => {
     const after = setOperand(base(), { elementId: 'b', operand: 'S4' });
-    expect(diffPrograms(base(), after)[1]).toEqual({ kind: 'changed', rungId: 'r2', before: 'S3 -> K2', after: 'S4 -> K2' });
+    expect(diffPrograms(base(), after)[1]).toEqual({ kind: 'changed', rungId: 'r2', before: 'S3 -> K2', after: 'S4 -> K2', changedParts: ['logic'] });
   });
 
   it('lists an added rung where it now stands and a removed one where it stood', () => {
@@ -30,8 +30,13 @@ describe('diffPrograms', () => {
 
   it('counts a comment change and a tag rename as changes', () => {
     const commented = setRungComment(base(), { rungId: 'r1', comment: 'forward' });
-    expect(diffPrograms(base(), commented)[0]).toMatchObject({ kind: 'changed', afterComment: 'forward' });
+    expect(diffPrograms(base(), commented)[0]).toEqual({ kind: 'changed', rungId: 'r1', before: 'S2 -> K1', after: 'S2 -> K1', afterComment: 'forward', changedParts: ['comment'] });
     const renamed = renameTag(base(), { from: 'S2', to: 'Forward' });
-    expect(diffPrograms(base(), renamed)[0]).toMatchObject({ kind: 'changed', before: 'S2 -> K1', after: 'Forward -> K1' });
+    expect(diffPrograms(base(), renamed)[0]).toMatchObject({ kind: 'changed', before: 'S2 -> K1', after: 'Forward -> K1', changedParts: ['logic'] });
+  });
+
+  it('says when both the logic and the comment of a rung changed', () => {
+    const both = setRungComment(setOperand(base(), { elementId: 'a', operand: 'S3' }), { rungId: 'r1', comment: 'now reverse' });
+    expect(diffPrograms(base(), both)[0]).toMatchObject({ kind: 'changed', changedParts: ['logic', 'comment'], afterComment: 'now reverse' });
   });
 });

@@ -165,10 +165,28 @@ describe('deleteNodes', () => {
     expect(text(next)).toBe('K1 -> K1');
   });
 
-  it('removes an empty series inside a parallel and flattens nested series', () => {
+  it('flattens nested series, and keeps an empty branch drawn beside the element deleted', () => {
     const doc = program([rung('r1', series('s1', no('c1', 'S1'), series('s2', no('c2', 'S2'))), parallel('p1', no('c3', 'S3'), series('s3')), coil('k1', 'K1'), coil('k2', 'P1'))], CONVEYOR_TAGS);
     const next = deleteNodes(doc, { rungId: 'r1', paths: [[3]] });
-    expect(next.rungs[0]!.network.items.map((n) => n.id)).toEqual(['c1', 'c2', 'c3', 'k1']);
+    expect(next.rungs[0]!.network.items.map((n) => n.id)).toEqual(['c1', 'c2', 'p1', 'k1']);
+    expect(next.rungs[0]!.network.items[2]).toEqual(parallel('p1', no('c3', 'S3'), series('s3')));
+  });
+
+  it('keeps a new empty branch when the element in series before or after its parallel is deleted', () => {
+    // Stop, then start with an empty branch drawn under it for the seal-in, then the coil.
+    const doc = program([rung('r1', no('c1', 'S1'), parallel('p1', no('c2', 'S2'), series('s9')), coil('k1', 'K1'))], CONVEYOR_TAGS);
+    const withoutStop = deleteNodes(doc, { rungId: 'r1', paths: [[0]] });
+    expect(withoutStop.rungs[0]!.network.items).toEqual([parallel('p1', no('c2', 'S2'), series('s9')), coil('k1', 'K1')]);
+    const withoutCoil = deleteNodes(doc, { rungId: 'r1', paths: [[2]] });
+    expect(withoutCoil.rungs[0]!.network.items).toEqual([no('c1', 'S1'), parallel('p1', no('c2', 'S2'), series('s9'))]);
+  });
+
+  it('removes a branch the deletion emptied, and a parallel left with only an empty branch', () => {
+    const doc = program([rung('r1', parallel('p1', series('s1', no('c2', 'S2')), series('s9')), coil('k1', 'K1'))], CONVEYOR_TAGS);
+    // The start button was the branch's only element: the parallel is left with just the empty branch, and goes.
+    expect(text(deleteNodes(doc, { rungId: 'r1', paths: [[0, 0, 0]] }))).toBe(text(program([rung('r1', coil('k1', 'K1'))], CONVEYOR_TAGS)));
+    const three = program([rung('r1', parallel('p1', no('c2', 'S2'), no('c3', 'K1'), series('s9')), coil('k1', 'K1'))], CONVEYOR_TAGS);
+    expect(deleteNodes(three, { rungId: 'r1', paths: [[0, 1]] }).rungs[0]!.network.items[0]).toEqual(parallel('p1', no('c2', 'S2'), series('s9')));
   });
 
   it('returns the same document when no path leads anywhere', () => {

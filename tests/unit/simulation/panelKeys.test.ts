@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { builtInPanel, type PanelLayout } from '@shared/field';
-import { bindingForKey, panelKeyBindings } from '@/simulation/panelKeys';
+import { bindingForKey, keyIsForPanel, panelKeyBindings, type PanelKeyEvent } from '@/simulation/panelKeys';
 
 describe('keyboard bindings for a panel layout', () => {
   it('gives the default panel digits for S0..S4 and hinting letters for the rest', () => {
@@ -26,5 +26,29 @@ describe('keyboard bindings for a panel layout', () => {
     expect(new Set(bindings.map((b) => b.key)).size).toBe(20);
     expect(bindingForKey(bindings, '9')!.deviceId).toBe('S9');
     expect(bindingForKey(bindings, 'S')!.deviceId).toBe('S10');
+  });
+});
+
+describe('the focus rule of the panel keys', () => {
+  /** A stand-in for the panel element: it holds exactly the nodes listed. */
+  const panelHolding = (...nodes: unknown[]) => ({ contains: (n: Node | null) => nodes.includes(n) });
+  const event = (target: unknown, mods: Partial<PanelKeyEvent> = {}): PanelKeyEvent => ({ target: target as EventTarget, ctrlKey: false, metaKey: false, altKey: false, ...mods });
+  const button = { closest: () => null };
+  const fieldInPanel = { closest: (s: string) => (s.includes('input') ? {} : null) };
+
+  it('gives a key to the panel only while the focus is inside it', () => {
+    expect(keyIsForPanel(event(button), panelHolding(button))).toBe(true);
+    const canvas = { closest: () => null };
+    expect(keyIsForPanel(event(canvas), panelHolding(button))).toBe(false);
+    expect(keyIsForPanel(event(null), panelHolding(button))).toBe(false);
+    expect(keyIsForPanel(event(button), null)).toBe(false);
+  });
+
+  it('leaves chords with Ctrl, Cmd or Alt and text fields inside the panel alone', () => {
+    const panel = panelHolding(button, fieldInPanel);
+    expect(keyIsForPanel(event(button, { ctrlKey: true }), panel)).toBe(false);
+    expect(keyIsForPanel(event(button, { metaKey: true }), panel)).toBe(false);
+    expect(keyIsForPanel(event(button, { altKey: true }), panel)).toBe(false);
+    expect(keyIsForPanel(event(fieldInPanel), panel)).toBe(false);
   });
 });

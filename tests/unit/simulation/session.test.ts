@@ -37,12 +37,16 @@ describe('a simulator session', () => {
     expect(w.columns[1]!.at(-1)).toBe(1);
   });
 
-  it('logs why K1 dropped out when the overload trips', () => {
+  it('logs why K1 dropped out when the overload trips, and says why %QX1 is ON while S2 is held', () => {
     const session = runningForward();
     session.act('F1', 'trip');
     session.advance(5);
     const messages = session.log.map((e) => e.message);
     expect(messages).toContain('K1 dropped out: F1 95-96 opened');
+    // Sealed in on K1's auxiliary contact: the seal broke with K1, so %QX1 is OFF until S2 is held.
+    expect(session.simulation!.runtime.read('%QX1')).toBe(false);
+    session.act('S2', 'press');
+    session.advance(2);
     expect(session.simulation!.explain().outputs[0]!.reason).toBe('%QX1 ON, K1 open (F1 95-96 open)');
   });
 
@@ -147,8 +151,9 @@ describe('pressing a momentary button by hand', () => {
     session.advance(1);
     expect(session.simulation!.word('S2')).toBe('released');
     expect(session.simulation!.runtime.read('%QX1')).toBe(true);
+    // One 10 ms scan is shorter than K1's 25 ms pick-up, so the seal on its auxiliary contact never makes.
     session.advance(10);
-    expect(session.simulation!.word('K1')).toBe('closed');
+    expect(session.simulation!.word('K1')).toBe('open');
   });
 
   it('releases at once when a scan has already seen the press', () => {
