@@ -60,7 +60,7 @@ const apiPgProject = testDatabaseUrl
   ? [
       {
         extends: true as const,
-        test: { ...apiTest, name: 'api-pg', include: ['tests/api/**/*.test.ts'], exclude: PGLITE_ONLY, globalSetup: ['tests/api/globalSetupPg.ts'], testTimeout: 60_000 },
+        test: { ...apiTest, name: 'api-pg', include: ['tests/api/**/*.test.ts'], exclude: PGLITE_ONLY, globalSetup: ['tests/api/globalSetupPg.ts'], testTimeout: 120_000 },
       },
     ]
   : [];
