@@ -1,31 +1,12 @@
 /**
  * The scan engine: compile a program to a plan, run it in virtual time, force, trace, snapshot.
+ * Only what other parts use is exported here; the rest is imported from its own module.
  */
-export { compile, type CompileOptions, type CompileResult } from './compile';
-export type { Diagnostic, DiagnosticCode, Severity } from './diagnostic';
-export type { Plan, PlanNode, PlanRung, PlanInstance, PlanEdge, PlanSource, BitLayout } from './plan';
-export {
-  createRuntime,
-  checkScanMs,
-  DEFAULT_SCAN_MS,
-  SCAN_MS_MAX,
-  SCAN_MS_MIN,
-  type EvaluatorKind,
-  type Runtime,
-  type RuntimeOptions,
-} from './runtime';
+export { compile } from './compile';
+export type { Diagnostic } from './diagnostic';
+export type { Plan } from './plan';
+export { checkScanMs, DEFAULT_SCAN_MS, SCAN_MS_MAX, SCAN_MS_MIN, type Runtime } from './runtime';
+export { createRuntime } from './scanRuntime';
 export { transferMemory } from './transfer';
-export { SNAPSHOT_FORMAT, type RestoreReport, type RuntimeSnapshot } from './snapshot';
-export { createTrace, type Trace, type TraceRow } from './trace';
-export type { ElementFlow, PowerFlowView } from './powerFlow';
-export { kernelSource } from './codegen';
-export {
-  BLOCK_BEHAVIOURS,
-  isStateOf,
-  readMember,
-  stepBlock,
-  type BlockBehaviour,
-  type BlockInputsByType,
-  type BlockState,
-  type BlockStateByType,
-} from './blocks/behaviours';
+export type { RuntimeSnapshot } from './snapshot';
+export { createTrace } from './trace';

@@ -4,13 +4,16 @@
  *
  * Validation (`validateProgram`) is the place where a student's mistakes are explained; this pass
  * re-checks what the engine relies on, so a gap in validation becomes a located diagnostic here,
- * never an exception or a wrong run.
+ * never an exception or a wrong run. It runs on every edit while a program runs, so it resolves
+ * each distinct operand text once and builds a node's path only to report a problem.
  */
 import { addressInRange, formatAddress, type AddressSpace } from '../ladder/addresses';
 import { BLOCK_SPECS, blockOutput, operandInputs, type BlockParam, type ParamType } from '../ladder/blocks';
 import { buildSymbolTable, operandKey, resolveOperand, symbolKey, type Operand, type SymbolTable } from '../ladder/operands';
+import type { Result } from '../ladder/result';
 import type { Block, Coil, Contact, NetworkNode, Program } from '../ladder/schema';
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
+import { COIL_KINDS, CONTACT_KINDS } from './elements';
 import { bitLayout, type BitLayout, type Plan, type PlanBlockInput, type PlanEdge, type PlanInstance } from './plan';
 import type { PlanNode, PlanSeries, PlanSource } from './plan';
 
@@ -27,6 +30,12 @@ interface Lowering {
   readonly edges: PlanEdge[];
   readonly flowIds: string[];
   readonly diagnostics: Diagnostic[];
+  /** Operand text → its resolution, once per distinct text. */
+  readonly resolved: Map<string, Result<Operand>>;
+  /** Operand text → what a contact reads (or why it cannot), once per distinct text. */
+  readonly contactSources: Map<string, PlanSource | string>;
+  /** Index path of the node being lowered (copied only into a diagnostic). */
+  readonly path: number[];
   rungId: string;
   elementCount: number;
 }
@@ -44,6 +53,9 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
     edges: [],
     flowIds: [],
     diagnostics: [],
+    resolved: new Map(),
+    contactSources: new Map(),
+    path: [],
     rungId: '',
     elementCount: 0,
   };
@@ -54,14 +66,13 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
   const flowIndex = new Map<string, number>();
   const rungs = program.rungs.map((rung) => {
     context.rungId = rung.id;
-    const network = lowerNode(rung.network, [], context) as PlanSeries;
+    const network = lowerNode(rung.network, context) as PlanSeries;
     flowIndex.set(rung.id, network.flow);
     return { id: rung.id, network };
   });
   if (context.diagnostics.length > 0) return { ok: false, diagnostics: context.diagnostics };
-  context.flowIds.forEach((id, index) => {
-    if (!flowIndex.has(id)) flowIndex.set(id, index);
-  });
+  const { flowIds } = context;
+  for (let index = 0; index < flowIds.length; index += 1) if (!flowIndex.has(flowIds[index]!)) flowIndex.set(flowIds[index]!, index);
   return {
     ok: true,
     plan: {
@@ -72,51 +83,75 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
       rungs,
       instances: context.instances,
       edges: context.edges,
-      flowIds: context.flowIds,
+      flowIds,
       flowIndex,
       elementCount: context.elementCount,
     },
   };
 }
 
-function lowerNode(node: NetworkNode, path: number[], context: Lowering): PlanNode {
+function lowerChildren(children: readonly NetworkNode[], context: Lowering): PlanNode[] {
+  const lowered: PlanNode[] = [];
+  const { path } = context;
+  for (let i = 0; i < children.length; i += 1) {
+    path.push(i);
+    lowered.push(lowerNode(children[i]!, context));
+    path.pop();
+  }
+  return lowered;
+}
+
+function lowerNode(node: NetworkNode, context: Lowering): PlanNode {
   const flow = context.flowIds.length;
   context.flowIds.push(node.id);
   switch (node.kind) {
     case 'series':
-      return { op: 'series', id: node.id, flow, items: node.items.map((item, i) => lowerNode(item, [...path, i], context)) };
+      return { op: 'series', id: node.id, flow, items: lowerChildren(node.items, context) };
     case 'parallel':
-      return {
-        op: 'parallel',
-        id: node.id,
-        flow,
-        branches: node.branches.map((branch, i) => lowerNode(branch, [...path, i], context)),
-      };
+      return { op: 'parallel', id: node.id, flow, branches: lowerChildren(node.branches, context) };
     case 'contact':
       context.elementCount += 1;
-      return lowerContact(node, flow, path, context);
+      return lowerContact(node, flow, context);
     case 'coil':
       context.elementCount += 1;
-      return lowerCoil(node, flow, path, context);
+      return lowerCoil(node, flow, context);
     case 'block':
       context.elementCount += 1;
-      return lowerBlock(node, flow, path, context);
+      return lowerBlock(node, flow, context);
   }
+}
+
+/** Report a problem with the element being lowered. */
+function report(context: Lowering, element: Contact | Coil | Block, message: string, field?: string): void {
+  const operand = element.kind === 'block' ? element.instance.trim() : element.operand.trim();
+  context.diagnostics.push(engineDiagnostic(context.rungId, [...context.path], element.id, operand, message, field));
+}
+
+function resolve(text: string, context: Lowering): Result<Operand> {
+  let resolved = context.resolved.get(text);
+  if (resolved === undefined) {
+    resolved = resolveOperand(text, context.symbols);
+    context.resolved.set(text, resolved);
+  }
+  return resolved;
 }
 
 const UNUSABLE: PlanSource = { kind: 'constant', value: 0 };
 
-function lowerContact(contact: Contact, flow: number, path: number[], context: Lowering): PlanNode {
-  const report = (message: string): void => {
-    context.diagnostics.push(engineDiagnostic(context.rungId, path, contact.id, contact.operand.trim(), message));
-  };
-  const resolved = resolveOperand(contact.operand, context.symbols);
+function lowerContact(contact: Contact, flow: number, context: Lowering): PlanNode {
+  const resolved = resolve(contact.operand, context);
   let source = UNUSABLE;
   let edge = -1;
-  if (!resolved.ok) report(resolved.error);
+  if (!resolved.ok) report(context, contact, resolved.error);
   else {
-    source = sourceFor(resolved.value, 'BOOL', context, report) ?? UNUSABLE;
-    if (contact.variant === 'rising' || contact.variant === 'falling') {
+    let found = context.contactSources.get(contact.operand);
+    if (found === undefined) {
+      found = sourceFor(resolved.value, 'BOOL', context);
+      context.contactSources.set(contact.operand, found);
+    }
+    if (typeof found === 'string') report(context, contact, found);
+    else source = found;
+    if (CONTACT_KINDS[contact.variant].edge) {
       edge = context.edges.length;
       context.edges.push({ elementId: contact.id, operand: operandKey(resolved.value) });
     }
@@ -124,38 +159,37 @@ function lowerContact(contact: Contact, flow: number, path: number[], context: L
   return { op: 'contact', id: contact.id, flow, variant: contact.variant, source, edge };
 }
 
-function lowerCoil(coil: Coil, flow: number, path: number[], context: Lowering): PlanNode {
-  const report = (message: string): void => {
-    context.diagnostics.push(engineDiagnostic(context.rungId, path, coil.id, coil.operand.trim(), message));
-  };
-  const resolved = resolveOperand(coil.operand, context.symbols);
+function lowerCoil(coil: Coil, flow: number, context: Lowering): PlanNode {
+  const resolved = resolve(coil.operand, context);
   let bit = -1;
-  if (!resolved.ok) report(resolved.error);
-  else if (resolved.value.kind !== 'bit') report(`a coil writes a bit (%QX or %MX); "${coil.operand.trim()}" is not one`);
+  let edge = -1;
+  if (!resolved.ok) report(context, coil, resolved.error);
+  else if (resolved.value.kind !== 'bit') report(context, coil, `a coil writes a bit (%QX or %MX); "${coil.operand.trim()}" is not one`);
   else if (resolved.value.address.area === 'I') {
-    report(`a coil cannot write the input ${formatAddress(resolved.value.address)}: inputs come from the field`);
+    report(context, coil, `a coil cannot write the input ${formatAddress(resolved.value.address)}: inputs come from the field`);
   } else {
     const range = addressInRange(resolved.value.address, context.space);
-    if (range !== null) report(range);
+    if (range !== null) report(context, coil, range);
     else bit = bitIndex(resolved.value, context.layout);
+    if (COIL_KINDS[coil.variant].edge) {
+      edge = context.edges.length;
+      context.edges.push({ elementId: coil.id, operand: operandKey(resolved.value) });
+    }
   }
-  return { op: 'coil', id: coil.id, flow, variant: coil.variant, bit };
+  return { op: 'coil', id: coil.id, flow, variant: coil.variant, bit, edge };
 }
 
-function lowerBlock(block: Block, flow: number, path: number[], context: Lowering): PlanNode {
-  const report = (message: string, field?: string): void => {
-    context.diagnostics.push(engineDiagnostic(context.rungId, path, block.id, block.instance.trim(), message, field));
-  };
+function lowerBlock(block: Block, flow: number, context: Lowering): PlanNode {
   const spec = BLOCK_SPECS[block.type];
   const key = symbolKey(block.instance);
   const instance = context.instanceIndex.get(key) ?? -1;
-  if (instance < 0) report(`the ${block.type} block needs an instance name, e.g. ${block.type.startsWith('T') ? 'T1' : 'C1'}`);
+  if (instance < 0) report(context, block, `the ${block.type} block needs an instance name, e.g. ${block.type.startsWith('T') ? 'T1' : 'C1'}`);
   else if (context.instances[instance]!.type !== block.type) {
-    report(`"${block.instance}" is already a ${context.instances[instance]!.type}; give this ${block.type} another name`);
+    report(context, block, `"${block.instance}" is already a ${context.instances[instance]!.type}; give this ${block.type} another name`);
   }
   const chargesTime = instance >= 0 && !context.calledInstances.has(instance);
   if (instance >= 0) context.calledInstances.add(instance);
-  const inputs = operandInputs(block.type).map((param) => lowerBlockInput(block, param, context, report));
+  const inputs = operandInputs(block.type).map((param) => lowerBlockInput(block, param, context));
   return {
     op: 'block',
     id: block.id,
@@ -169,25 +203,24 @@ function lowerBlock(block: Block, flow: number, path: number[], context: Lowerin
   };
 }
 
-function lowerBlockInput(
-  block: Block,
-  param: BlockParam,
-  context: Lowering,
-  report: (message: string, field?: string) => void,
-): PlanBlockInput {
+function lowerBlockInput(block: Block, param: BlockParam, context: Lowering): PlanBlockInput {
   const given = Object.entries(block.inputs).find(([name]) => name.toUpperCase() === param.name)?.[1] ?? '';
   const required = (BLOCK_SPECS[block.type].required as readonly string[]).includes(param.name);
   if (given.trim() === '') {
-    if (required) report(`${block.instance || block.type}.${param.name} needs a value`, param.name);
+    if (required) report(context, block, `${block.instance || block.type}.${param.name} needs a value`, param.name);
     return { name: param.name, type: param.type, source: UNUSABLE };
   }
-  const resolved = resolveOperand(given, context.symbols);
+  const resolved = resolve(given, context);
   if (!resolved.ok) {
-    report(`${param.name}: ${resolved.error}`, param.name);
+    report(context, block, `${param.name}: ${resolved.error}`, param.name);
     return { name: param.name, type: param.type, source: UNUSABLE };
   }
-  const source = sourceFor(resolved.value, param.type, context, (message) => report(`${param.name}: ${message}`, param.name));
-  return { name: param.name, type: param.type, source: source ?? UNUSABLE };
+  const source = sourceFor(resolved.value, param.type, context);
+  if (typeof source === 'string') {
+    report(context, block, `${param.name}: ${source}`, param.name);
+    return { name: param.name, type: param.type, source: UNUSABLE };
+  }
+  return { name: param.name, type: param.type, source };
 }
 
 const TYPE_NOUNS = {
@@ -198,34 +231,20 @@ const TYPE_NOUNS = {
 
 const CONSTANT_TYPES = { bool: 'BOOL', time: 'TIME', int: 'INT' } as const;
 
-/** Map an operand to a source of the wanted type, or report why it does not fit. */
-function sourceFor(
-  operand: Operand,
-  wanted: ParamType,
-  context: Lowering,
-  report: (message: string) => void,
-): PlanSource | null {
-  const mismatch = (): null => {
-    report(`expected ${TYPE_NOUNS[wanted]}`);
-    return null;
-  };
+/** Map an operand to a source of the wanted type, or say why it does not fit. */
+function sourceFor(operand: Operand, wanted: ParamType, context: Lowering): PlanSource | string {
+  const mismatch = (): string => `expected ${TYPE_NOUNS[wanted]}`;
   switch (operand.kind) {
     case 'bit': {
       if (wanted !== 'BOOL') return mismatch();
       const range = addressInRange(operand.address, context.space);
-      if (range !== null) {
-        report(range);
-        return null;
-      }
+      if (range !== null) return range;
       return { kind: 'bit', bit: bitIndex(operand, context.layout) };
     }
     case 'member': {
       const instance = context.instanceIndex.get(operand.instance);
       const output = instance === undefined ? undefined : blockOutput(context.instances[instance]!.type, operand.member);
-      if (instance === undefined || output === undefined) {
-        report(`"${operand.instance}.${operand.member}" is not an output of a block in this program`);
-        return null;
-      }
+      if (instance === undefined || output === undefined) return `"${operand.instance}.${operand.member}" is not an output of a block in this program`;
       if (output.type !== wanted) return mismatch();
       return { kind: 'member', instance, member: output.name, type: output.type };
     }

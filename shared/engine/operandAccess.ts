@@ -6,13 +6,13 @@
 import { addressInRange, formatAddress, type Address } from '../ladder/addresses';
 import { resolveOperand } from '../ladder/operands';
 import { fail, ok, type Result } from '../ladder/result';
-import { readMember } from './blocks/behaviours';
 import { bitIndex } from './lower';
-import type { Memory } from './memory';
+import type { Machine } from './machine';
 import type { Plan } from './plan';
+import { recordLayoutOf } from './stateLayout';
 
-/** Reads one value from memory. */
-export type Reader = (memory: Memory) => boolean | number | undefined;
+/** Reads one value from a machine of the plan it was resolved for. */
+export type Reader = (machine: Machine) => boolean | number | undefined;
 
 /** A resolved bit: its address and its index in the bit image. */
 export interface ResolvedBit {
@@ -42,12 +42,18 @@ export function resolveReader(plan: Plan, text: string): Reader | null {
     case 'bit': {
       if (addressInRange(operand.address, plan.space) !== null) return null;
       const bit = bitIndex(operand, plan.layout);
-      return (memory) => memory.bits[bit] === 1;
+      return (machine) => machine.cells[bit] === 1;
     }
     case 'member': {
       const instance = plan.instances.findIndex((i) => i.key === operand.instance);
       if (instance < 0) return null;
-      return (memory) => readMember(memory.states[instance]!, operand.member);
+      // `resolveOperand` names only a block's outputs, never a record's own memories (lastCU…).
+      const field = recordLayoutOf(plan.instances[instance]!.type).byName.get(operand.member);
+      if (field === undefined) return null;
+      const { offset } = field;
+      return field.kind === 'number'
+        ? (machine) => machine.numbers[(machine.layout.records[instance]! + offset) / 8]
+        : (machine) => machine.cells[(machine.layout.records[instance]! + offset) / 4] === 1;
     }
     case 'bool':
       return () => operand.value;

@@ -1,8 +1,7 @@
 /**
  * The executable plan: a validated program lowered onto typed memory. Every operand is resolved to
  * a numeric index (a bit of the image, a block instance, an edge memory) or a constant, so running
- * a plan never looks at text a user typed. Both evaluators (the interpreter and the generated
- * kernel) read only this.
+ * a plan never looks at text a user typed. The kernel (`kernel.ts`) is emitted from this alone.
  */
 import type { AddressSpace } from '../ladder/addresses';
 import type { ParamType } from '../ladder/blocks';
@@ -57,6 +56,8 @@ export interface PlanCoil extends NodeBase {
   readonly variant: CoilVariant;
   /** The bit written (an output or memory bit; never an input). */
   readonly bit: number;
+  /** Index of this coil's own edge memory; -1 for variants without one (all today's). */
+  readonly edge: number;
 }
 
 /** A block input given as an operand, or left open (then FALSE / 0). */
@@ -101,10 +102,10 @@ export interface PlanInstance {
   readonly type: BlockType;
 }
 
-/** An edge contact's memory: which element owns it and what it examines. */
+/** An edge memory: which element owns it and what it examines or writes. */
 export interface PlanEdge {
   readonly elementId: string;
-  /** Canonical text of the operand examined, e.g. `%IX2` or `T1.Q`. */
+  /** Canonical text of the element's operand, e.g. `%IX2` or `T1.Q`. */
   readonly operand: string;
 }
 

@@ -1,9 +1,9 @@
 /**
  * The power flow of the last scan, as the live view reads it: for every node (contact, coil,
  * block, series, parallel; a rung id stands for its root series) whether it was energised on its
- * left and on its right.
+ * left and on its right. The kernel that records it stores both sides of every node as it solves
+ * them (see `kernel.ts`); a view copies them out once per scan.
  */
-import type { FlowRecord } from './interpreter';
 import type { Plan } from './plan';
 
 /** One node's power flow. */
@@ -30,6 +30,12 @@ export interface PowerFlowView {
   has(id: string): boolean;
 }
 
+/** Power per node, indexed by `PlanNode.flow`: 1 where energised. */
+export interface FlowRecord {
+  readonly left: Uint8Array;
+  readonly right: Uint8Array;
+}
+
 /** Wrap recorded flow arrays; reads are O(1) and allocate one small object. */
 export function createPowerFlowView(plan: Plan, record: FlowRecord, scanCount: number, recorded: boolean): PowerFlowView {
   return {
@@ -43,9 +49,4 @@ export function createPowerFlowView(plan: Plan, record: FlowRecord, scanCount: n
     },
     has: (id) => plan.flowIndex.has(id),
   };
-}
-
-/** Empty flow arrays sized for a plan. */
-export function createFlowRecord(plan: Plan): FlowRecord {
-  return { left: new Uint8Array(plan.flowIds.length), right: new Uint8Array(plan.flowIds.length) };
 }

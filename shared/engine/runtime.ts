@@ -6,32 +6,36 @@
  *   3. output image ← the output bits,
  *   4. virtual time += the scan period.
  * Nothing here reads a clock or a random source: the same inputs give the same run, scan for scan.
- * The implementation is `ScanRuntime` (scanRuntime.ts).
+ * This file is the contract; `createRuntime` and the implementation are in `scanRuntime.ts`.
  */
 import type { Result } from '../ladder/result';
 import { fail, ok } from '../ladder/result';
-import type { Memory } from './memory';
+import type { ForcedBit } from './core';
 import type { Plan } from './plan';
 import type { PowerFlowView } from './powerFlow';
-import { ScanRuntime } from './scanRuntime';
 import type { RestoreReport, RuntimeSnapshot } from './snapshot';
-
-/** Which evaluator runs the rungs. */
-export type EvaluatorKind = 'generated' | 'interpreter';
 
 export interface RuntimeOptions {
   /** Scan period in ms, a whole number from 1 to 1000; 10 if absent. */
   scanMs?: number;
   /**
-   * `auto` (default) uses generated code and falls back to the interpreter where the host forbids
-   * code generation; the other two choose one (`generated` still falls back if it must).
-   */
-  evaluator?: 'auto' | EvaluatorKind;
-  /**
-   * Record power flow from the first scan. Without it recording starts at the first `powerFlow()`
-   * call, whose view is then empty (`recorded: false`) until the next scan.
+   * Record power flow from the first scan (a live view). Without it nothing is recorded until the
+   * first `powerFlow()` call, whose view is then empty (`recorded: false`) until the next scan;
+   * a runtime nobody watches (grading, the command line) never pays for it.
    */
   recordPowerFlow?: boolean;
+}
+
+/**
+ * The whole machine state as raw bytes, for a search that visits many states: `saveState` and
+ * `loadState` are one copy each. Only meaningful for a runtime of the same plan; treat as opaque.
+ */
+export interface SavedState {
+  bytes: Uint8Array;
+  scanCount: number;
+  timeMs: number;
+  /** The forces in effect (shared, never changed: a new map is made when forces change). */
+  forces: ReadonlyMap<string, ForcedBit>;
 }
 
 export interface Runtime {
@@ -42,8 +46,6 @@ export interface Runtime {
   readonly scanCount: number;
   /** Virtual time, ms: the scans run so far times the scan period. */
   readonly timeMs: number;
-  /** Which evaluator this runtime uses. */
-  readonly evaluator: EvaluatorKind;
   /** The field value of `%IX<index>` (1-based) for the next input scan. */
   setInput(index: number, value: boolean): void;
   /** Set every field input at once: `values[0]` is `%IX1`; missing entries leave their input as it was. */
@@ -71,6 +73,10 @@ export interface Runtime {
    * another type, a bit outside this panel) are skipped and listed in the report.
    */
   restore(snapshot: RuntimeSnapshot): RestoreReport;
+  /** Copy the machine state out, into `into` when given (no allocation then). */
+  saveState(into?: SavedState): SavedState;
+  /** Put a state from `saveState` back: forces, field values, time and all. */
+  loadState(state: SavedState): void;
 }
 
 /** The scan period limits, ms. */
@@ -85,29 +91,3 @@ export function checkScanMs(value: number): Result<number> {
   }
   return ok(value);
 }
-
-/** The mutable heart of a runtime, shared with the snapshot code. */
-export interface RuntimeCore {
-  readonly plan: Plan;
-  readonly scanMs: number;
-  readonly memory: Memory;
-  /** Field value per input, 0/1, index 0 = %IX1. */
-  readonly field: Uint8Array;
-  /** Output image, 0/1, index 0 = %QX1. */
-  readonly outputImage: Uint8Array;
-  /** Forced bits: canonical address → bit index and value. */
-  readonly forces: Map<string, { bit: number; value: boolean }>;
-  scanCount: number;
-  timeMs: number;
-  /** Bumped on every restore, so power flow cached before it is dropped. */
-  epoch: number;
-}
-
-/** Start a runtime on a plan: every bit FALSE, every block fresh, time 0. */
-export function createRuntime(plan: Plan, options: RuntimeOptions = {}): Runtime {
-  const scanMs = options.scanMs ?? DEFAULT_SCAN_MS;
-  const checked = checkScanMs(scanMs);
-  if (!checked.ok) throw new RangeError(checked.error);
-  return new ScanRuntime(plan, scanMs, options);
-}
-

@@ -8,9 +8,10 @@ import { addressInRange, formatAddress, parseAddress, type AddressSpace } from '
 import { symbolKey } from '../ladder/operands';
 import type { BlockType } from '../ladder/schema';
 import { BLOCK_BEHAVIOURS, isStateOf, type BlockState } from './blocks/behaviours';
+import type { RuntimeCore } from './core';
 import { bitIndex } from './lower';
+import { readRecord, writeRecord } from './machine';
 import type { Plan } from './plan';
-import type { RuntimeCore } from './runtime';
 
 export const SNAPSHOT_FORMAT = 'rungwright.runtime-snapshot';
 
@@ -27,7 +28,7 @@ export interface RuntimeSnapshot {
   field: number[];
   /** The bit image, by area. */
   bits: { inputs: number[]; outputs: number[]; memory: number[] };
-  /** The output image after the last scan. */
+  /** The output image after the last scan (the output bits; read back from `bits.outputs` on restore). */
   outputImage: number[];
   /** Each edge contact's memory: element id, canonical operand, last value seen. */
   edges: Array<{ elementId: string; operand: string; value: number }>;
@@ -43,11 +44,14 @@ export interface RestoreReport {
   dropped: string[];
 }
 
-/** Copy the state out (plain arrays and objects; block states are immutable and shared). */
+/** Copy the state out (plain arrays and objects). */
 export function takeSnapshot(core: RuntimeCore): RuntimeSnapshot {
-  const { plan, memory } = core;
+  const { plan, machine } = core;
   const { layout } = plan;
-  const area = (from: number, to: number): number[] => Array.from(memory.bits.subarray(from, to));
+  const { cells } = machine;
+  const at = machine.layout;
+  /** Cells `[from, to)` counted from byte address `base`. */
+  const area = (from: number, to: number, base = 0): number[] => Array.from(cells.subarray(base / 4 + from, base / 4 + to));
   return {
     format: SNAPSHOT_FORMAT,
     version: 1,
@@ -55,15 +59,15 @@ export function takeSnapshot(core: RuntimeCore): RuntimeSnapshot {
     scanCount: core.scanCount,
     timeMs: core.timeMs,
     space: { ...plan.space },
-    field: Array.from(core.field),
+    field: area(0, plan.space.inputs, at.field),
     bits: {
       inputs: area(layout.inputs, layout.outputs),
       outputs: area(layout.outputs, layout.memory),
       memory: area(layout.memory, layout.size),
     },
-    outputImage: Array.from(core.outputImage),
-    edges: plan.edges.map((edge, i) => ({ elementId: edge.elementId, operand: edge.operand, value: memory.edges[i]! })),
-    instances: plan.instances.map((instance, i) => ({ name: instance.name, type: instance.type, state: memory.states[i]! })),
+    outputImage: area(layout.outputs, layout.memory),
+    edges: plan.edges.map((edge, i) => ({ elementId: edge.elementId, operand: edge.operand, value: cells[at.edges / 4 + i]! })),
+    instances: plan.instances.map((instance, i) => ({ name: instance.name, type: instance.type, state: readRecord(machine, i) })),
     forces: [...core.forces].map(([address, { value }]) => ({ address, value })),
   };
 }
@@ -80,8 +84,11 @@ export function applySnapshot(
   if (typeof snapshot !== 'object' || snapshot === null || snapshot.format !== SNAPSHOT_FORMAT || snapshot.version !== 1) {
     throw new TypeError(`restore: expected a ${SNAPSHOT_FORMAT} version 1 object`);
   }
-  const { plan, memory } = core;
+  const { plan, machine } = core;
   const { layout } = plan;
+  const { cells } = machine;
+  const at = machine.layout;
+  const field = at.field / 4;
   const kept: string[] = [];
   const dropped: string[] = [];
 
@@ -92,18 +99,16 @@ export function applySnapshot(
       else if (v === 1) dropped.push(`${prefix}${i + 1}`);
     });
   };
-  memory.bits.fill(0);
-  core.field.fill(0);
-  core.outputImage.fill(0);
-  copyBits(snapshot.field, plan.space.inputs, (i, v) => (core.field[i] = v), '%IX');
-  copyBits(snapshot.bits?.inputs, plan.space.inputs, (i, v) => (memory.bits[layout.inputs + i] = v), '%IX');
-  copyBits(snapshot.bits?.outputs, plan.space.outputs, (i, v) => (memory.bits[layout.outputs + i] = v), '%QX');
-  copyBits(snapshot.bits?.memory, plan.space.memory, (i, v) => (memory.bits[layout.memory + i] = v), '%MX');
-  copyBits(snapshot.outputImage, plan.space.outputs, (i, v) => (core.outputImage[i] = v), '%QX');
+  cells.fill(0, 0, layout.size);
+  cells.fill(0, field, field + plan.space.inputs);
+  copyBits(snapshot.field, plan.space.inputs, (i, v) => (cells[field + i] = v), '%IX');
+  copyBits(snapshot.bits?.inputs, plan.space.inputs, (i, v) => (cells[layout.inputs + i] = v), '%IX');
+  copyBits(snapshot.bits?.outputs, plan.space.outputs, (i, v) => (cells[layout.outputs + i] = v), '%QX');
+  copyBits(snapshot.bits?.memory, plan.space.memory, (i, v) => (cells[layout.memory + i] = v), '%MX');
 
   const edges = new Map((snapshot.edges ?? []).map((edge) => [`${edge.elementId}\u0000${edge.operand}`, edge.value]));
   plan.edges.forEach((edge, i) => {
-    memory.edges[i] = edges.get(`${edge.elementId}\u0000${edge.operand}`) === 1 ? 1 : 0;
+    cells[at.edges / 4 + i] = edges.get(`${edge.elementId}\u0000${edge.operand}`) === 1 ? 1 : 0;
   });
 
   const saved = new Map((snapshot.instances ?? []).map((instance) => [symbolKey(instance.name), instance]));
@@ -111,20 +116,18 @@ export function applySnapshot(
     const old = saved.get(instance.key);
     saved.delete(instance.key);
     if (old !== undefined && old.type === instance.type && isStateOf(instance.type, old.state)) {
-      memory.states[i] = Object.freeze({ ...old.state });
+      writeRecord(machine, i, old.state);
       kept.push(instance.name);
     } else {
-      memory.states[i] = BLOCK_BEHAVIOURS[instance.type].initial;
+      writeRecord(machine, i, BLOCK_BEHAVIOURS[instance.type].initial);
       if (old !== undefined) dropped.push(old.name);
     }
   });
   for (const old of saved.values()) dropped.push(old.name);
 
-  for (const { bit } of core.forces.values()) {
-    memory.keep[bit] = 1;
-    memory.forced[bit] = 0;
-  }
-  core.forces.clear();
+  cells.fill(1, at.keep / 4, at.keep / 4 + layout.size);
+  cells.fill(0, at.forced / 4, at.forced / 4 + layout.size);
+  core.forces = new Map();
   for (const { address, value } of snapshot.forces ?? []) {
     const bit = bitOfAddress(address, plan);
     if (bit === null) {

@@ -122,26 +122,49 @@ function joinProblems(problems: readonly string[]): string {
   return more > 0 ? `${shown} (and ${more} more)` : shown;
 }
 
-/** The first repeated id, with where both uses are (`rungs[1].network.items[0]`), or null. */
-function findDuplicateId(program: Program): string | null {
-  const seen = new Map<string, string>();
-  let duplicate: string | null = null;
-  const note = (id: string, where: string): void => {
-    if (duplicate !== null) return;
-    const first = seen.get(id);
-    if (first !== undefined) duplicate = `${where}: duplicate id "${id}" (first used at ${first})`;
-    else seen.set(id, where);
-  };
+/** Every id in document order, each with where it is (built only to explain a duplicate). */
+function locatedIds(program: Program): Array<[string, string]> {
+  const found: Array<[string, string]> = [];
   const walk = (node: NetworkNode, where: string): void => {
-    note(node.id, where);
+    found.push([node.id, where]);
     if (node.kind === 'series') node.items.forEach((child, i) => walk(child, `${where}.items[${i}]`));
     if (node.kind === 'parallel') node.branches.forEach((child, i) => walk(child, `${where}.branches[${i}]`));
   };
   program.rungs.forEach((rung, index) => {
-    note(rung.id, `rungs[${index}]`);
+    found.push([rung.id, `rungs[${index}]`]);
     walk(rung.network, `rungs[${index}].network`);
   });
-  return duplicate;
+  return found;
+}
+
+/**
+ * The first repeated id, with where both uses are (`rungs[1].network.items[0]`), or null. Places
+ * are spelled out only once a repeat is found: a long program has tens of thousands of nodes, and
+ * a string per node made this the slowest part of loading, saving and compiling it.
+ */
+function findDuplicateId(program: Program): string | null {
+  const seen = new Set<string>();
+  let repeated = false;
+  const visit = (node: NetworkNode): void => {
+    if (seen.has(node.id)) repeated = true;
+    seen.add(node.id);
+    const children = node.kind === 'series' ? node.items : node.kind === 'parallel' ? node.branches : [];
+    for (let i = 0; i < children.length && !repeated; i += 1) visit(children[i]!);
+  };
+  for (const rung of program.rungs) {
+    if (seen.has(rung.id)) repeated = true;
+    seen.add(rung.id);
+    if (!repeated) visit(rung.network);
+    if (repeated) break;
+  }
+  if (!repeated) return null;
+  const first = new Map<string, string>();
+  for (const [id, where] of locatedIds(program)) {
+    const earlier = first.get(id);
+    if (earlier !== undefined) return `${where}: duplicate id "${id}" (first used at ${earlier})`;
+    first.set(id, where);
+  }
+  return null;
 }
 
 /** Parse and normalise a program document from JSON data (not text: `JSON.parse` first). */

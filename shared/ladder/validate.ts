@@ -23,6 +23,7 @@ import {
   type Operand,
   type SymbolTable,
 } from './operands';
+import type { Result } from './result';
 import type { Block, Coil, Contact, Program, Rung } from './schema';
 import { checkRungShape } from './shape';
 import { looksLikeTimeLiteral } from './time';
@@ -33,6 +34,8 @@ interface Context {
   symbols: SymbolTable;
   space: AddressSpace;
   found: Diagnostic[];
+  /** Each distinct operand text resolved once (a long program repeats a few hundred texts thousands of times). */
+  resolved: Map<string, Result<Operand>>;
 }
 
 interface Place {
@@ -57,7 +60,11 @@ function resolveErrorCode(text: string, symbols: SymbolTable): DiagnosticCode {
 
 /** Resolve an operand, reporting failures and out-of-range addresses; null when unusable. */
 function resolveAt(text: string, place: Place, ctx: Context): Operand | null {
-  const resolved = resolveOperand(text, ctx.symbols);
+  let resolved = ctx.resolved.get(text);
+  if (resolved === undefined) {
+    resolved = resolveOperand(text, ctx.symbols);
+    ctx.resolved.set(text, resolved);
+  }
   if (!resolved.ok) {
     ctx.found.push(createDiagnostic(resolveErrorCode(text, ctx.symbols), { operand: text.trim(), reason: resolved.error }, place));
     return null;
@@ -212,7 +219,7 @@ export function validateProgram(program: Program, space: AddressSpace = DEFAULT_
 
 function findProblems(program: Program, space: AddressSpace): Diagnostic[] {
   const symbols = buildSymbolTable(program);
-  const ctx: Context = { symbols, space, found: validateTags(program.tags, space) };
+  const ctx: Context = { symbols, space, found: validateTags(program.tags, space), resolved: new Map() };
   const firstInstance = new Map<string, { type: Block['type']; rung: number }>();
   const lastWriter = new Map<string, number>();
 

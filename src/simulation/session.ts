@@ -136,10 +136,8 @@ export function createSimulatorSession(options: SessionOptions): SimulatorSessio
 
   /** A fresh simulation of `prog`, or the compile failure as diagnostics. */
   const build = (prog: Program, ms: number) => {
-    const built = createSimulation({ program: prog, panel, scanMs: ms, maxEvents: 2000 });
-    // The runtime records power flow from its first powerFlow() call on; the live view needs every scan.
-    if (built.ok) built.simulation.runtime.powerFlow();
-    return built;
+    // The live view reads power flow after every scan: only the recording kernel is compiled.
+    return createSimulation({ program: prog, panel, scanMs: ms, maxEvents: 2000, recordPowerFlow: true });
   };
 
   const start = (): void => {

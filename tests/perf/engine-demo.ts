@@ -1,20 +1,29 @@
 /**
- * The benchmark's small case and a golden test's subject: a 6-rung program like the demo's
- * (Larch Hollow Timber Co. reversing conveyor — demo data, invented), and the same logic written by
- * hand over plain arrays as the baseline.
+ * The engine benchmark's demo programs, each with the same logic written by hand in the strong
+ * style (typed arrays, bitwise operators) as its baseline:
  *
- * Rungs: 1 forward with seal-in, stop, interlock and overload; 2 reverse likewise; 3 green lamp and
- * horn timer while either direction runs; 4 horn until the timer is done; 5 box counter on the
- * photo-eye, reset by the selector at JOG; 6 red lamp at rest, amber when the count is reached.
+ * - the conveyor demo: the 3-rung forward/reverse program with interlocks that the demo data
+ *   seeds (server/db/demoPrograms.ts);
+ * - the three-wire demo: the simulator's 7-rung three-wire reversing program with lamps and a jam
+ *   timer (src/simulation/demoPrograms.ts);
+ * - the batch demo: a 6-rung reversing conveyor with a horn timer and a box counter on an edge
+ *   contact, also the subject of tests/unit/engine/demo.test.ts.
+ *
+ * All Larch Hollow Timber Co. scenarios: demo data, invented.
  */
+import type { AddressSpace } from '@shared/ladder/addresses';
+import { DEFAULT_ADDRESS_SPACE } from '@shared/ladder/addresses';
 import type { Program } from '@shared/ladder/schema';
+import { REVERSING_DEMO } from '../../server/db/demoPrograms';
+import { threeWireProgram } from '../../src/simulation/demoPrograms';
 import { programBuilder } from '../unit/engine/build';
 
-/** Horn sounds this long after a start, ms. */
+/** Horn sounds this long after a start, ms (batch demo). */
 export const DEMO_HORN_MS = 3000;
-/** Boxes per batch. */
+/** Boxes per batch (batch demo). */
 export const DEMO_BATCH = 10;
 
+/** The batch demo: 6 rungs on the default panel. */
 export function demoProgram(): Program {
   const b = programBuilder();
   const tags = [
@@ -44,63 +53,135 @@ export function demoProgram(): Program {
   );
 }
 
-/** Memory of the hand-written baseline: plain arrays and objects. */
-export interface DemoBaselineState {
-  /** %IX1..%IX8 input image. */
-  inputs: boolean[];
-  /** %QX1..%QX6. */
-  q: boolean[];
-  /** %MX1..%MX64. */
-  m: boolean[];
-  outputImage: boolean[];
-  t1: { q: boolean; et: number };
-  c1: { q: boolean; cv: number; lastCu: boolean };
-  eyeLast: boolean;
-  timeMs: number;
+/** A demo's baseline memory: the bit image, edge memories, and block fields in typed arrays. */
+export interface DemoState {
+  I: Uint8Array;
+  Q: Uint8Array;
+  M: Uint8Array;
+  E: Uint8Array;
+  /** Per block: Q, last CU (counters), ET or CV. */
+  BQ: Uint8Array;
+  BL: Uint8Array;
+  BN: Int32Array;
+  outputImage: Uint8Array;
 }
 
-export function demoBaselineState(): DemoBaselineState {
+/** Block fields the baseline keeps, to compare with the engine's snapshot. */
+export interface DemoBlock {
+  name: string;
+  state: (s: DemoState) => Record<string, boolean | number>;
+}
+
+export interface DemoCase {
+  name: string;
+  program: Program;
+  space: AddressSpace;
+  /** Edge memories (edge contacts) in the program. */
+  edges: number;
+  blocks: DemoBlock[];
+  scan: (s: DemoState, field: readonly boolean[], dt: number) => void;
+}
+
+function demoState(space: AddressSpace, edges: number, blocks: number): DemoState {
   return {
-    inputs: new Array<boolean>(8).fill(false),
-    q: new Array<boolean>(6).fill(false),
-    m: new Array<boolean>(64).fill(false),
-    outputImage: new Array<boolean>(6).fill(false),
-    t1: { q: false, et: 0 },
-    c1: { q: false, cv: 0, lastCu: false },
-    eyeLast: false,
-    timeMs: 0,
+    I: new Uint8Array(space.inputs),
+    Q: new Uint8Array(space.outputs),
+    M: new Uint8Array(space.memory),
+    E: new Uint8Array(Math.max(edges, 1)),
+    BQ: new Uint8Array(Math.max(blocks, 1)),
+    BL: new Uint8Array(Math.max(blocks, 1)),
+    BN: new Int32Array(Math.max(blocks, 1)),
+    outputImage: new Uint8Array(space.outputs),
   };
 }
 
-/** One scan of the demo logic, written by hand: input image, the six rungs, output image, time. */
-export function demoBaselineScan(s: DemoBaselineState, field: readonly boolean[], dtMs: number): void {
-  const { inputs, q, m } = s;
-  for (let i = 0; i < 8; i += 1) inputs[i] = field[i]!;
-  const stop = inputs[0]!;
-  const trip = inputs[5]!;
-  q[0] = (inputs[1]! || q[0]!) && stop && !q[1] && !trip;
-  q[1] = (inputs[2]! || q[1]!) && stop && !q[0] && !trip;
-  const running = q[0]! || q[1]!;
-  q[3] = running;
-  if (running) {
-    s.t1.et = Math.min(s.t1.et + dtMs, DEMO_HORN_MS);
-    s.t1.q = s.t1.et >= DEMO_HORN_MS;
+export function createDemoState(demo: DemoCase): DemoState {
+  return demoState(demo.space, demo.edges, demo.blocks.length);
+}
+
+function readInputs(s: DemoState, field: readonly boolean[]): void {
+  const I = s.I;
+  for (let i = 0; i < I.length; i += 1) I[i] = field[i] ? 1 : 0;
+}
+
+function writeOutputs(s: DemoState): void {
+  const { Q, outputImage } = s;
+  for (let i = 0; i < Q.length; i += 1) outputImage[i] = Q[i]!;
+}
+
+/** Conveyor: forward and reverse sealed in, each blocked by the other; red lamp at rest. */
+function conveyorScan(s: DemoState, field: readonly boolean[]): void {
+  readInputs(s, field);
+  const { I, Q } = s;
+  Q[0] = I[0]! & (I[1]! | Q[0]!) & (Q[1]! ^ 1);
+  Q[1] = I[0]! & (I[2]! | Q[1]!) & (Q[0]! ^ 1);
+  Q[4] = (Q[0]! ^ 1) & (Q[1]! ^ 1);
+  writeOutputs(s);
+}
+
+/** Three-wire: stop, start or sealed in at RUN, interlock; lamps; 5 s jam timer and horn. */
+function threeWireScan(s: DemoState, field: readonly boolean[], dt: number): void {
+  readInputs(s, field);
+  const { I, Q, BQ, BN } = s;
+  Q[0] = I[0]! & (I[1]! | (Q[0]! & I[3]!)) & (Q[1]! ^ 1);
+  Q[1] = I[0]! & (I[2]! | (Q[1]! & I[3]!)) & (Q[0]! ^ 1);
+  Q[3] = I[6]! | I[7]!;
+  Q[4] = (I[6]! ^ 1) & (I[7]! ^ 1);
+  Q[5] = I[5]!;
+  if (I[4]! & I[6]!) {
+    const et = Math.min(BN[0]! + dt, 5000);
+    BN[0] = et;
+    BQ[0] = et >= 5000 ? 1 : 0;
   } else {
-    s.t1.et = 0;
-    s.t1.q = false;
+    BN[0] = 0;
+    BQ[0] = 0;
   }
-  q[2] = running && !s.t1.q;
-  const eye = inputs[4]!;
-  const edge = eye && !s.eyeLast;
-  s.eyeLast = eye;
-  const c1 = s.c1;
-  if (m[0]) c1.cv = 0;
-  else if (edge && !c1.lastCu && c1.cv < 32767) c1.cv += 1;
-  c1.lastCu = edge;
-  c1.q = c1.cv >= DEMO_BATCH;
-  m[1] = c1.q;
-  q[4] = !q[0] && !q[1];
-  q[5] = m[1]!;
-  for (let i = 0; i < 6; i += 1) s.outputImage[i] = q[i]!;
-  s.timeMs += dtMs;
+  Q[2] = BQ[0]!;
+  writeOutputs(s);
+}
+
+/** Batch: conveyor with overload, green lamp and 3 s horn, box counter with reset on %MX1, red and amber lamps. */
+function batchScan(s: DemoState, field: readonly boolean[], dt: number): void {
+  readInputs(s, field);
+  const { I, Q, M, E, BQ, BL, BN } = s;
+  const stop = I[0]!;
+  const tripped = I[5]!;
+  Q[0] = (I[1]! | Q[0]!) & stop & (Q[1]! ^ 1) & (tripped ^ 1);
+  Q[1] = (I[2]! | Q[1]!) & stop & (Q[0]! ^ 1) & (tripped ^ 1);
+  const running = Q[0]! | Q[1]!;
+  Q[3] = running;
+  if (running) {
+    const et = Math.min(BN[0]! + dt, DEMO_HORN_MS);
+    BN[0] = et;
+    BQ[0] = et >= DEMO_HORN_MS ? 1 : 0;
+  } else {
+    BN[0] = 0;
+    BQ[0] = 0;
+  }
+  Q[2] = (Q[0]! | Q[1]!) & (BQ[0]! ^ 1);
+  const eye = I[4]!;
+  const box = eye & (E[0]! ^ 1);
+  E[0] = eye;
+  const counted = box & (BL[1]! ^ 1);
+  BL[1] = box;
+  if (M[0]) BN[1] = 0;
+  else if (counted & (BN[1]! < 32767 ? 1 : 0)) BN[1] += 1;
+  BQ[1] = BN[1]! >= DEMO_BATCH ? 1 : 0;
+  M[1] = BQ[1]!;
+  Q[4] = (Q[0]! ^ 1) & (Q[1]! ^ 1);
+  Q[5] = M[1]!;
+  writeOutputs(s);
+}
+
+const timer = (name: string, k: number): DemoBlock => ({ name, state: (s) => ({ Q: s.BQ[k] === 1, ET: s.BN[k]! }) });
+const upCounter = (name: string, k: number): DemoBlock => ({ name, state: (s) => ({ Q: s.BQ[k] === 1, CV: s.BN[k]!, lastCU: s.BL[k] === 1 }) });
+
+/** The three demos, smallest first. */
+export function demoCases(): DemoCase[] {
+  const space = DEFAULT_ADDRESS_SPACE;
+  return [
+    { name: 'conveyor', program: REVERSING_DEMO, space, edges: 0, blocks: [], scan: conveyorScan },
+    { name: 'three-wire', program: threeWireProgram(), space, edges: 0, blocks: [timer('T1', 0)], scan: threeWireScan },
+    { name: 'batch', program: demoProgram(), space, edges: 1, blocks: [timer('T1', 0), upCounter('C1', 1)], scan: batchScan },
+  ];
 }

@@ -2,8 +2,9 @@
  * HTTP benchmark: autocannon against the real server process on loopback (PGlite on a temporary
  * DATA_DIR), 50 connections × 10 s per case. Cases: load a program (GET with its head document, the
  * requests going round 50 programs) and save a version (each connection saves on its own program,
- * so no save meets a 409).
- * Targets (issue 5): zero errors, p99 < 50 ms for loads, < 100 ms for saves.
+ * so no save meets a 409), with the small 12-rung document (2.4 kB) and with a realistic 20-rung
+ * one (about 8.9 kB: tags, rung comments, timers and counters; see documents.ts).
+ * Targets (issues 5 and 18): zero errors, p99 < 50 ms for loads, < 100 ms for saves.
  */
 import { rmSync } from 'node:fs';
 import autocannon from 'autocannon';
@@ -12,6 +13,7 @@ import { round } from './stats';
 import { DEMO_STUDENTS } from '../../server/db/demoAccounts';
 import { makeTempDataDir, startServerProcess } from '../api/helpers/serverProcess';
 import { documentWithRungs } from '../api/helpers/fixtures';
+import { realisticDocument } from './documents';
 
 const CONNECTIONS = 50;
 const DURATION_S = Number(process.env.BENCH_HTTP_SECONDS ?? 10);
@@ -73,29 +75,38 @@ export default async function (): Promise<BenchCase[]> {
     // a request takes an idle program, and its response puts it back with the new head.
     const heads = new Map(programIds.map((id) => [id, 1]));
     const idle = [...programIds];
-    const save = await autocannon({
-      url: server.url,
-      connections: CONNECTIONS,
-      duration: DURATION_S,
-      headers,
-      requests: [
-        {
-          method: 'POST',
-          setupRequest: (req, ctx) => {
-            const context = ctx as { programId?: string };
-            const programId = idle.pop() ?? programIds[0];
-            context.programId = programId;
-            return { ...req, path: `/api/programs/${programId}/versions`, body: JSON.stringify({ baseVersion: heads.get(programId), document, message: 'bench' }) };
+    const saveRun = (body: unknown) =>
+      autocannon({
+        url: server.url,
+        connections: CONNECTIONS,
+        duration: DURATION_S,
+        headers,
+        requests: [
+          {
+            method: 'POST',
+            setupRequest: (req, ctx) => {
+              const context = ctx as { programId?: string };
+              const programId = idle.pop() ?? programIds[0];
+              context.programId = programId;
+              return { ...req, path: `/api/programs/${programId}/versions`, body: JSON.stringify({ baseVersion: heads.get(programId), document: body, message: 'bench' }) };
+            },
+            onResponse: (status, responseBody, ctx) => {
+              const context = ctx as { programId: string };
+              if (status === 201) heads.set(context.programId, (JSON.parse(responseBody) as { version: { number: number } }).version.number);
+              idle.push(context.programId);
+            },
           },
-          onResponse: (status, body, ctx) => {
-            const context = ctx as { programId: string };
-            if (status === 201) heads.set(context.programId, (JSON.parse(body) as { version: { number: number } }).version.number);
-            idle.push(context.programId);
-          },
-        },
-      ],
-    });
-    return [figures('http: load a program (GET /api/programs/:id)', load, 50), figures('http: save a version (POST /api/programs/:id/versions)', save, 100)];
+        ],
+      });
+    const save = await saveRun(document);
+    const realistic = realisticDocument();
+    const realisticBytes = JSON.stringify(realistic).length;
+    const saveRealistic = await saveRun(realistic);
+    return [
+      figures('http: load a program (GET /api/programs/:id)', load, 50),
+      figures(`http: save a version (POST /api/programs/:id/versions), 12 rungs, ${JSON.stringify(document).length} bytes`, save, 100),
+      figures(`http: save a version (POST /api/programs/:id/versions), 20 rungs, ${realisticBytes} bytes`, saveRealistic, 100),
+    ];
   } finally {
     server.child.kill('SIGTERM');
     await server.exited;

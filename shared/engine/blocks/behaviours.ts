@@ -1,12 +1,14 @@
 /**
  * The behaviour of every standard function block, in one table keyed by block type: its initial
- * state and a pure step function. The compiler, both evaluators and the snapshot code go through
- * this table only, so a block type that is not described here fails to compile.
+ * state, its pure step function (the reference semantics) and its WebAssembly emitter (what the
+ * engine runs; tested against the step). The kernel, the state layout and the snapshot code go
+ * through this table only, so a block type that is not described here fails to compile.
  */
 import type { BlockType } from '../../ladder/schema';
-import { BISTABLE_INITIAL, EDGE_INITIAL, stepFTrig, stepRS, stepRTrig, stepSR } from './bistables';
+import type { BlockEmit } from './blockEmit';
+import { BISTABLE_INITIAL, EDGE_INITIAL, emitFTrig, emitRS, emitRTrig, emitSR, stepFTrig, stepRS, stepRTrig, stepSR } from './bistables';
 import type { BistableState, EdgeInputs, EdgeState, ResetDominantInputs, SetDominantInputs } from './bistables';
-import { DOWN_COUNTER_INITIAL, UP_COUNTER_INITIAL, UP_DOWN_COUNTER_INITIAL, stepCTD, stepCTU, stepCTUD } from './counters';
+import { DOWN_COUNTER_INITIAL, UP_COUNTER_INITIAL, UP_DOWN_COUNTER_INITIAL, emitCTD, emitCTU, emitCTUD, stepCTD, stepCTU, stepCTUD } from './counters';
 import type {
   DownCounterInputs,
   DownCounterState,
@@ -15,7 +17,7 @@ import type {
   UpDownCounterInputs,
   UpDownCounterState,
 } from './counters';
-import { DELAY_TIMER_INITIAL, PULSE_TIMER_INITIAL, stepTOF, stepTON, stepTP } from './timers';
+import { DELAY_TIMER_INITIAL, PULSE_TIMER_INITIAL, emitTOF, emitTON, emitTP, stepTOF, stepTON, stepTP } from './timers';
 import type { DelayTimerState, PulseTimerState, TimerInputs } from './timers';
 
 /** The state type of each block type. Output members (Q, ET, CV…) are fields with the standard's names. */
@@ -55,31 +57,22 @@ export interface BlockBehaviour<S, I> {
   readonly initial: S;
   /** One call of the block: pure. `dtMs` is the virtual time this call is charged, in ms. */
   readonly step: (state: S, inputs: I, dtMs: number) => S;
+  /** The same call in WebAssembly, over the instance's state record (see `BlockEmit`). */
+  readonly emit: (b: BlockEmit) => void;
 }
 
 export const BLOCK_BEHAVIOURS = {
-  TON: { initial: DELAY_TIMER_INITIAL, step: stepTON },
-  TOF: { initial: DELAY_TIMER_INITIAL, step: stepTOF },
-  TP: { initial: PULSE_TIMER_INITIAL, step: stepTP },
-  CTU: { initial: UP_COUNTER_INITIAL, step: stepCTU },
-  CTD: { initial: DOWN_COUNTER_INITIAL, step: stepCTD },
-  CTUD: { initial: UP_DOWN_COUNTER_INITIAL, step: stepCTUD },
-  R_TRIG: { initial: EDGE_INITIAL, step: stepRTrig },
-  F_TRIG: { initial: EDGE_INITIAL, step: stepFTrig },
-  SR: { initial: BISTABLE_INITIAL, step: stepSR },
-  RS: { initial: BISTABLE_INITIAL, step: stepRS },
+  TON: { initial: DELAY_TIMER_INITIAL, step: stepTON, emit: emitTON },
+  TOF: { initial: DELAY_TIMER_INITIAL, step: stepTOF, emit: emitTOF },
+  TP: { initial: PULSE_TIMER_INITIAL, step: stepTP, emit: emitTP },
+  CTU: { initial: UP_COUNTER_INITIAL, step: stepCTU, emit: emitCTU },
+  CTD: { initial: DOWN_COUNTER_INITIAL, step: stepCTD, emit: emitCTD },
+  CTUD: { initial: UP_DOWN_COUNTER_INITIAL, step: stepCTUD, emit: emitCTUD },
+  R_TRIG: { initial: EDGE_INITIAL, step: stepRTrig, emit: emitRTrig },
+  F_TRIG: { initial: EDGE_INITIAL, step: stepFTrig, emit: emitFTrig },
+  SR: { initial: BISTABLE_INITIAL, step: stepSR, emit: emitSR },
+  RS: { initial: BISTABLE_INITIAL, step: stepRS, emit: emitRS },
 } as const satisfies { [K in BlockType]: BlockBehaviour<BlockStateByType[K], BlockInputsByType[K]> };
-
-/** Call a block of a type known only at run time (the interpreter's path). */
-export function stepBlock(
-  type: BlockType,
-  state: BlockState,
-  inputs: Readonly<Record<string, boolean | number>>,
-  dtMs: number,
-): BlockState {
-  const behaviour = BLOCK_BEHAVIOURS[type] as unknown as BlockBehaviour<BlockState, typeof inputs>;
-  return behaviour.step(state, inputs, dtMs);
-}
 
 /** Read an output member (`Q`, `ET`, `CV`, `QU`, `QD`, `Q1`) of a state. */
 export function readMember(state: BlockState, member: string): boolean | number | undefined {

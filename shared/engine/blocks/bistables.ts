@@ -1,7 +1,10 @@
 /**
  * IEC 61131-3 bistables (clause 6.6.3.5.2, Table 43) and edge detectors (clause 6.6.3.5.3,
- * Table 44), each a pure step `(state, inputs) -> state`.
+ * Table 44), each a pure step `(state, inputs) -> state`, and beside it its WebAssembly
+ * (`emitSR`…), which the engine runs; the steps are the reference it is tested against.
  */
+import { OP } from '../wasm/opcodes';
+import type { BlockEmit } from './blockEmit';
 
 export interface EdgeState {
   readonly Q: boolean;
@@ -56,4 +59,54 @@ export function stepSR(state: BistableState, inputs: SetDominantInputs): Bistabl
 export function stepRS(state: BistableState, inputs: ResetDominantInputs): BistableState {
   const q1 = !inputs.R1 && (inputs.S || state.Q1);
   return q1 === state.Q1 ? state : { Q1: q1 };
+}
+
+/** `stepRTrig` in WebAssembly. */
+export function emitRTrig(b: BlockEmit): void {
+  const { code } = b;
+  code.storeCell(b.field('Q'), () => {
+    b.bool('CLK');
+    code.loadCell(b.field('lastCLK'));
+    code.op(OP.i32Eqz);
+    code.op(OP.i32And);
+  });
+  code.storeCell(b.field('lastCLK'), () => b.bool('CLK'));
+}
+
+/** `stepFTrig` in WebAssembly. */
+export function emitFTrig(b: BlockEmit): void {
+  const { code } = b;
+  code.storeCell(b.field('Q'), () => {
+    b.bool('CLK');
+    code.op(OP.i32Eqz);
+    code.loadCell(b.field('lastCLK'));
+    code.op(OP.i32And);
+  });
+  code.storeCell(b.field('lastCLK'), () => b.bool('CLK'));
+}
+
+/** `stepSR` in WebAssembly. */
+export function emitSR(b: BlockEmit): void {
+  const { code } = b;
+  code.storeCell(b.field('Q1'), () => {
+    b.bool('S1');
+    b.bool('R');
+    code.op(OP.i32Eqz);
+    code.loadCell(b.field('Q1'));
+    code.op(OP.i32And);
+    code.op(OP.i32Or);
+  });
+}
+
+/** `stepRS` in WebAssembly. */
+export function emitRS(b: BlockEmit): void {
+  const { code } = b;
+  code.storeCell(b.field('Q1'), () => {
+    b.bool('R1');
+    code.op(OP.i32Eqz);
+    b.bool('S');
+    code.loadCell(b.field('Q1'));
+    code.op(OP.i32Or);
+    code.op(OP.i32And);
+  });
 }

@@ -6,8 +6,11 @@
  * counted to the end of the current scan (ET = runtime.timeMs − the time IN changed). A second call
  * of the same instance within one scan is given `dtMs = 0` by the compiler, so time is never counted
  * twice. All times are whole milliseconds; a negative preset counts as 0. A step returns the very
- * same state object when nothing changed, so an idle timer allocates nothing.
+ * same state object when nothing changed, so an idle timer allocates nothing. Beside each step, its
+ * WebAssembly (`emitTON`…), which the engine runs; the steps are the reference it is tested against.
  */
+import { OP } from '../wasm/opcodes';
+import type { BlockEmit } from './blockEmit';
 
 /** State of a TON or TOF instance. Q and ET are the standard's outputs. */
 export interface DelayTimerState {
@@ -82,4 +85,141 @@ export function stepTP(state: PulseTimerState, inputs: TimerInputs, dtMs: number
   }
   const et = inputs.IN ? state.ET : 0;
   return et === state.ET && inputs.IN === state.lastIN ? state : { Q: false, ET: et, lastIN: inputs.IN };
+}
+
+/** Push PT as the steps read it: `preset(PT)`, a negative preset counting as 0. */
+function pushPreset(b: BlockEmit): void {
+  const { code } = b;
+  const pt = b.f64(0);
+  b.number('PT');
+  code.tee(pt);
+  code.f64(0);
+  code.get(pt);
+  code.f64(0);
+  code.op(OP.f64Gt);
+  code.op(OP.select);
+}
+
+/** Push `min(<ET> + dt, pt)` with the preset in scratch f64 0. */
+function pushRunningEt(b: BlockEmit): void {
+  const { code } = b;
+  code.loadF64(b.field('ET'));
+  b.dt();
+  code.op(OP.f64Add);
+  code.get(b.f64(0));
+  code.op(OP.f64Min);
+}
+
+/** `stepTON` in WebAssembly. */
+export function emitTON(b: BlockEmit): void {
+  const { code } = b;
+  const et = b.f64(1);
+  code.when(
+    () => b.bool('IN'),
+    () => {
+      pushPreset(b);
+      code.set(b.f64(0));
+      pushRunningEt(b);
+      code.set(et);
+      code.storeF64(b.field('ET'), () => code.get(et));
+      code.storeCell(b.field('Q'), () => {
+        code.get(et);
+        code.get(b.f64(0));
+        code.op(OP.f64Ge);
+      });
+    },
+    () => {
+      code.storeF64(b.field('ET'), () => code.f64(0));
+      code.storeCell(b.field('Q'), () => code.i32(0));
+    },
+  );
+}
+
+/** `stepTOF` in WebAssembly. */
+export function emitTOF(b: BlockEmit): void {
+  const { code } = b;
+  const et = b.f64(1);
+  code.when(
+    () => b.bool('IN'),
+    () => {
+      code.storeF64(b.field('ET'), () => code.f64(0));
+      code.storeCell(b.field('Q'), () => code.i32(1));
+    },
+    () =>
+      code.when(
+        () => code.loadCell(b.field('Q')),
+        () => {
+          pushPreset(b);
+          code.set(b.f64(0));
+          pushRunningEt(b);
+          code.set(et);
+          code.storeF64(b.field('ET'), () => code.get(et));
+          code.storeCell(b.field('Q'), () => {
+            code.get(et);
+            code.get(b.f64(0));
+            code.op(OP.f64Lt);
+          });
+        },
+      ),
+  );
+}
+
+/** `stepTP` in WebAssembly. */
+export function emitTP(b: BlockEmit): void {
+  const { code } = b;
+  const pt = b.f64(0);
+  const et = b.f64(1);
+  pushPreset(b);
+  code.set(pt);
+  const lastIn = (): void => code.storeCell(b.field('lastIN'), () => b.bool('IN'));
+  code.when(
+    // A pulse starts: not in a pulse, IN rising, and a positive preset.
+    () => {
+      code.loadCell(b.field('Q'));
+      code.op(OP.i32Eqz);
+      b.bool('IN');
+      code.op(OP.i32And);
+      code.loadCell(b.field('lastIN'));
+      code.op(OP.i32Eqz);
+      code.op(OP.i32And);
+      code.get(pt);
+      code.f64(0);
+      code.op(OP.f64Gt);
+      code.op(OP.i32And);
+    },
+    () => {
+      code.storeCell(b.field('Q'), () => code.i32(1));
+      code.storeF64(b.field('ET'), () => {
+        b.dt();
+        code.get(pt);
+        code.op(OP.f64Min);
+      });
+      code.storeCell(b.field('lastIN'), () => code.i32(1));
+    },
+    () =>
+      code.when(
+        () => code.loadCell(b.field('Q')),
+        () => {
+          pushRunningEt(b);
+          code.set(et);
+          code.storeF64(b.field('ET'), () => code.get(et));
+          code.storeCell(b.field('Q'), () => {
+            code.get(et);
+            code.get(pt);
+            code.op(OP.f64Lt);
+          });
+          lastIn();
+        },
+        () => {
+          code.when(
+            () => {
+              b.bool('IN');
+              code.op(OP.i32Eqz);
+            },
+            () => code.storeF64(b.field('ET'), () => code.f64(0)),
+          );
+          lastIn();
+        },
+      ),
+  );
 }

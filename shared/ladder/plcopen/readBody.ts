@@ -17,15 +17,12 @@ import {
   readWires,
   readY,
   variableText,
+  type Wire,
 } from './readParts';
 import { child, childrenNamed, elementChildren, localName, textContent, type XmlElement } from './xmlTree';
 
-/** One `connection` of a `connectionPointIn`. */
-export interface Wire {
-  refLocalId: number;
-  /** The source's output pin, when the source is a block. */
-  formalParameter?: string;
-}
+/** Wires are read in readParts.ts; the records below hold them. */
+export type { Wire };
 
 interface Placed {
   localId: number;

@@ -4,8 +4,14 @@
  */
 import { fail, ok, type Result } from '../result';
 import { readFormattedText } from './formatted';
-import type { Wire } from './readBody';
 import { child, childrenNamed, localName, textContent, type XmlElement } from './xmlTree';
+
+/** One `connection` of a `connectionPointIn`. */
+export interface Wire {
+  refLocalId: number;
+  /** The source's output pin, when the source is a block. */
+  formalParameter?: string;
+}
 
 /** `3=con1 4=coil2` → localId → id; malformed pairs are skipped (the ids are only a courtesy). */
 export function readElementIds(text: string | undefined): Map<number, string> {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { compile, createRuntime } from '@shared/engine';
-import { GENERATED_SPACE, generateCase } from '../../perf/engine-generated';
+import { BENCH_SPACE, benchProgram } from '../../perf/engine-programs';
 import { planOf, programBuilder } from './build';
 
 function program() {
@@ -77,19 +77,19 @@ describe('power flow', () => {
   });
 });
 
-describe('the power-flow replay', () => {
-  it('agrees with the scan it replays on every memory coil of a large generated program', () => {
-    const generated = generateCase(300, 7);
-    const compiled = compile(generated.program, { space: GENERATED_SPACE });
+describe('the recording kernel', () => {
+  it('agrees with what each plain coil of a large generated program wrote', () => {
+    const generated = benchProgram('series', 300, 7);
+    const compiled = compile(generated.program, { space: BENCH_SPACE });
     if (!compiled.ok) throw new Error(compiled.diagnostics[0]!.message);
     const rt = createRuntime(compiled.plan, { recordPowerFlow: true });
-    // Each rung writes its own %MX bit (GENERATED_SPACE gives room), so the bit holds what its coil wrote.
+    // Each rung writes its own %MX bit (BENCH_SPACE gives room), so the bit holds what its coil wrote.
     const coils = generated.program.rungs.flatMap((rung) =>
       rung.network.items.filter((item) => item.kind === 'coil' && item.operand.startsWith('%MX') && (item.variant === 'coil' || item.variant === 'negated')),
     );
     expect(coils.length).toBeGreaterThan(200);
     for (let k = 0; k < 40; k += 1) {
-      for (let i = 1; i <= GENERATED_SPACE.inputs; i += 1) rt.setInput(i, ((k * 7 + i * 3) % 5) < 2);
+      for (let i = 1; i <= BENCH_SPACE.inputs; i += 1) rt.setInput(i, ((k * 7 + i * 3) % 5) < 2);
       rt.scan();
       const flow = rt.powerFlow();
       for (const coil of coils) {

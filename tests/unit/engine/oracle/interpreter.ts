@@ -1,19 +1,15 @@
 /**
- * The plan interpreter: runs the rungs without generated code, so it works under a Content
- * Security Policy that forbids `eval`. The plan is turned once into a tree of small closures over
- * the runtime's memory (one per node, chosen from a table keyed by node kind), which is several
- * times faster than walking the plan on every scan. The same builder can record the power flow on
- * both sides of every node, for the live view.
+ * The reference interpreter, the engine's test oracle: it walks the plan with the reference
+ * semantics of `shared/engine` (`CONTACT_KINDS.passes`, `COIL_KINDS.writes`, the blocks' pure
+ * `step` functions) instead of running the WebAssembly the engine emits from the same plan. The
+ * plan is turned once into a tree of small closures over the memory (one per node, from a table
+ * keyed by node kind); with `flow`, the power on both sides of every node is recorded.
  */
-import { BLOCK_BEHAVIOURS, readMember, type BlockBehaviour, type BlockState } from './blocks/behaviours';
-import { COIL_WRITES, CONTACT_PASSES, type Memory } from './memory';
-import type { Plan, PlanNode, PlanOp, PlanSource } from './plan';
-
-/** Power flow per node, indexed by `PlanNode.flow`: 1 where energised. */
-export interface FlowRecord {
-  readonly left: Uint8Array;
-  readonly right: Uint8Array;
-}
+import { BLOCK_BEHAVIOURS, readMember, type BlockBehaviour, type BlockState } from '@shared/engine/blocks/behaviours';
+import { COIL_KINDS, CONTACT_KINDS, type CoilKind, type ContactKind } from '@shared/engine/elements';
+import type { Plan, PlanNode, PlanOp, PlanSource } from '@shared/engine/plan';
+import type { FlowRecord } from '@shared/engine/powerFlow';
+import type { Memory } from './memory';
 
 /** Solves the rungs of one scan over the memory it was built for. */
 export type RungSolver = (dtMs: number) => void;
@@ -71,43 +67,36 @@ const BUILDERS = {
     };
   },
   contact: (node, { memory }) => {
-    const { bits, edges } = memory;
-    const passes = CONTACT_PASSES[node.variant];
-    if (node.edge < 0 && node.source.kind === 'bit') {
-      const bit = node.source.bit;
-      return node.variant === 'nc' ? (left) => left & (bits[bit]! ^ 1) : (left) => left & bits[bit]!;
-    }
+    const { edges } = memory;
+    const kind: ContactKind = CONTACT_KINDS[node.variant];
     const read = sourceReader(node.source, memory);
-    if (node.edge < 0) return (left) => left & passes(read(), 0);
+    if (!kind.edge) return (left) => left & kind.passes(read(), 0);
     const edge = node.edge;
     return (left) => {
       const value = read();
-      const passed = passes(value, edges[edge]!);
+      const passed = kind.passes(value, edges[edge]!);
       edges[edge] = value;
       return left & passed;
     };
   },
   coil: (node, { memory }) => {
-    const { bits, keep, forced } = memory;
-    const write = COIL_WRITES[node.variant];
-    const bit = node.bit;
+    const { bits, edges, keep, forced } = memory;
+    const kind: CoilKind = COIL_KINDS[node.variant];
+    const { bit, edge } = node;
     return (left) => {
-      bits[bit] = (write(left, bits[bit]!) & keep[bit]!) | forced[bit]!;
+      bits[bit] = (kind.writes(left, bits[bit]!, kind.edge ? edges[edge]! : 0) & keep[bit]!) | forced[bit]!;
+      if (kind.edge) edges[edge] = left;
       return left;
     };
   },
   block: (node, { memory, frame }) => {
     const { states } = memory;
     const behaviour = BLOCK_BEHAVIOURS[node.type] as unknown as BlockBehaviour<BlockState, Record<string, boolean | number>>;
-    // One input record per call site, refilled on every call: a step only reads it during the call.
-    const record: Record<string, boolean | number> = { [node.powerIn]: false };
     const inputs = node.inputs.map((input) => ({ name: input.name, bool: input.type === 'BOOL', read: sourceReader(input.source, memory) }));
-    for (const input of inputs) record[input.name] = input.bool ? false : 0;
     const { instance, powerIn, powerOut, chargesTime } = node;
     return (left) => {
-      record[powerIn] = left === 1;
-      for (let i = 0; i < inputs.length; i += 1) {
-        const input = inputs[i]!;
+      const record: Record<string, boolean | number> = { [powerIn]: left === 1 };
+      for (const input of inputs) {
         const value = input.read();
         record[input.name] = input.bool ? value !== 0 : value;
       }
@@ -132,10 +121,9 @@ function build(node: PlanNode, building: Building): NodeSolver {
 }
 
 /**
- * Build the solver for a plan over `memory`: each call solves every rung once, top to bottom, each
- * from a left rail that is ON (IEC 61131-3 clause 8.2.7 [memory for the sub-number]); a coil's write
- * is visible at once to every later element. With `flow`, the power on both sides of every node is
- * recorded as it is solved.
+ * The solver for a plan over `memory`: each call solves every rung once, top to bottom, each from
+ * a left rail that is ON (IEC 61131-3 clause 8.2.7 [memory for the sub-number]); a coil's write
+ * is visible at once to every later element.
  */
 export function buildRungSolver(plan: Plan, memory: Memory, flow: FlowRecord | null = null): RungSolver {
   const frame = { dtMs: 0 };

@@ -1,0 +1,291 @@
+/**
+ * The scan kernel: a plan written out as a WebAssembly module over the runtime's memory (see
+ * `stateLayout.ts`). Its one export, `scan(dt)`, runs a whole scan but the bookkeeping: input
+ * image from the field (forces win), the rungs top to bottom (the output bits are the output
+ * image).
+ *
+ * Safety rule: a module is assembled only from the fixed instructions in `wasm/opcodes.ts`, laid
+ * down by the emitters of `elements.ts` and `blocks/`, with numbers taken from the validated plan
+ * (byte addresses, constants checked to be finite). No text a user typed (operands, tags, ids,
+ * comments) ever enters it, and it can touch nothing but its own memory.
+ *
+ * With `recordFlow`, every node also stores the power on its left and right into the flow record:
+ * the variant a live view runs. Without it, nothing is recorded (grading, the command line).
+ */
+import { BLOCK_SPECS } from '../ladder/blocks';
+import type { BlockEmit } from './blocks/blockEmit';
+import { BLOCK_BEHAVIOURS } from './blocks/behaviours';
+import { COIL_KINDS, CONTACT_KINDS } from './elements';
+import type { Plan, PlanBlock, PlanCoil, PlanContact, PlanNode, PlanOp, PlanRung, PlanSource } from './plan';
+import type { StateLayout } from './stateLayout';
+import { Code, DT } from './wasm/code';
+import { assembleModule } from './wasm/module';
+import { CELL, OP } from './wasm/opcodes';
+
+/** Elements per generated function: each function is compiled and optimised on its own. */
+const CHUNK_ELEMENTS = 400;
+
+/** Scratch i32 locals by use (see `Code`): each use is short and never spans another's. */
+const FLOW_TEMP = 0;
+const COIL_POWER = 1;
+const EDGE_VALUE = 2;
+/** A block call's BOOL inputs, the power-flow input first (CTUD has the most: 4). */
+const BLOCK_BOOLS = 4;
+const BLOCK_SCRATCH_I32 = 8;
+/** A block call's numeric input (PT or PV), then the emitter's scratch. */
+const BLOCK_NUMBER = 0;
+const BLOCK_SCRATCH_F64 = 2;
+
+interface Emitting {
+  readonly code: Code;
+  readonly plan: Plan;
+  readonly layout: StateLayout;
+  readonly recordFlow: boolean;
+}
+
+function checkedAddress(n: number): number {
+  if (!Number.isSafeInteger(n) || n < 0) throw new RangeError(`wasm: bad address ${String(n)}`);
+  return n;
+}
+
+/** Byte address of bit `bit` of the image, and of its cell in an area of one cell per bit. */
+const bitAt = (bit: number, area = 0): number => checkedAddress(area + CELL * bit);
+
+/** Byte address of a field of an instance's record. */
+function fieldAddress(e: Emitting, instance: number, name: string): number {
+  const record = e.layout.recordLayouts[instance];
+  const field = record?.byName.get(name);
+  if (record === undefined || field === undefined) throw new RangeError(`wasm: no field ${name} in instance ${instance}`);
+  return checkedAddress(e.layout.records[instance]! + field.offset);
+}
+
+/** Push a source as a BOOL (0/1). */
+function pushBool(e: Emitting, source: PlanSource): void {
+  switch (source.kind) {
+    case 'bit':
+      e.code.loadCell(bitAt(source.bit));
+      return;
+    case 'member':
+      if (source.type !== 'BOOL') throw new TypeError('wasm: a BOOL is read from a BOOL member');
+      e.code.loadCell(fieldAddress(e, source.instance, source.member));
+      return;
+    case 'constant':
+      e.code.i32(source.value !== 0 ? 1 : 0);
+  }
+}
+
+/** Push a TIME or INT source as an f64. */
+function pushNumber(e: Emitting, source: PlanSource): void {
+  switch (source.kind) {
+    case 'bit':
+      throw new TypeError('wasm: a number is never read from a bit');
+    case 'member':
+      if (source.type === 'BOOL') throw new TypeError('wasm: a number is read from a TIME or INT member');
+      e.code.loadF64(fieldAddress(e, source.instance, source.member));
+      return;
+    case 'constant':
+      e.code.f64(source.value);
+  }
+}
+
+/**
+ * Store into bit `bit` the value already on the stack above the address base, unless the bit is
+ * forced: `(value & keep) | forced`.
+ */
+function endStoreBit(e: Emitting, bit: number): void {
+  const { code, layout } = e;
+  code.loadCell(bitAt(bit, layout.keep));
+  code.op(OP.i32And);
+  code.loadCell(bitAt(bit, layout.forced));
+  code.op(OP.i32Or);
+  code.endStoreCell(bitAt(bit));
+}
+
+type Emitter<N extends PlanNode> = (node: N, depth: number, e: Emitting) => void;
+
+/** Each emitter finds the power on its left on the stack and leaves the power on its right. */
+const EMITTERS = {
+  series: (node, depth, e) => {
+    for (const item of node.items) emitNode(item, depth, e);
+  },
+  parallel: (node, depth, e) => {
+    const { code } = e;
+    if (node.branches.length === 0) {
+      code.op(OP.drop);
+      code.i32(0);
+      return;
+    }
+    const left = code.depthLocal(depth);
+    code.set(left);
+    node.branches.forEach((branch, k) => {
+      code.get(left);
+      emitNode(branch, depth + 1, e);
+      if (k > 0) code.op(OP.i32Or);
+    });
+  },
+  contact: (node: PlanContact, _depth, e) => {
+    const kind = CONTACT_KINDS[node.variant];
+    pushBool(e, node.source);
+    kind.emit({ code: e.code, edge: kind.edge ? bitAt(node.edge, e.layout.edges) : -1, temp: e.code.i32Temp(EDGE_VALUE) });
+  },
+  coil: (node: PlanCoil, _depth, e) => {
+    const { code } = e;
+    const kind = COIL_KINDS[node.variant];
+    const power = code.i32Temp(COIL_POWER);
+    const edge = kind.edge ? bitAt(node.edge, e.layout.edges) : -1;
+    code.set(power);
+    code.storeBase();
+    kind.emit({ code, power, bit: bitAt(node.bit), edge });
+    endStoreBit(e, node.bit);
+    if (kind.edge) {
+      code.storeBase();
+      code.get(power);
+      code.endStoreCell(edge);
+    }
+    code.get(power);
+  },
+  block: (node: PlanBlock, _depth, e) => emitBlock(node, e),
+} as const satisfies { [K in PlanOp]: Emitter<Extract<PlanNode, { op: K }>> };
+
+function emitBlock(node: PlanBlock, e: Emitting): void {
+  const { code } = e;
+  const bools = new Map<string, number>([[node.powerIn, code.i32Temp(BLOCK_BOOLS)]]);
+  const numbers = new Map<string, number>();
+  code.set(bools.get(node.powerIn)!);
+  // Every input is read before the block changes anything (see BlockEmit).
+  for (const input of node.inputs) {
+    if (input.type === 'BOOL') {
+      const local = code.i32Temp(BLOCK_BOOLS + bools.size);
+      pushBool(e, input.source);
+      code.set(local);
+      bools.set(input.name, local);
+    } else {
+      const local = code.f64Temp(BLOCK_NUMBER + numbers.size);
+      pushNumber(e, input.source);
+      code.set(local);
+      numbers.set(input.name, local);
+    }
+  }
+  const local = (table: Map<string, number>, name: string): number => {
+    const found = table.get(name);
+    if (found === undefined) throw new RangeError(`wasm: ${node.type} has no input ${name}`);
+    return found;
+  };
+  const context: BlockEmit = {
+    code,
+    field: (name) => fieldAddress(e, node.instance, name),
+    bool: (name) => code.get(local(bools, name)),
+    number: (name) => code.get(local(numbers, name)),
+    dt: () => (node.chargesTime ? code.get(DT) : code.f64(0)),
+    i32: (n) => code.i32Temp(BLOCK_SCRATCH_I32 + n),
+    f64: (n) => code.f64Temp(BLOCK_SCRATCH_F64 + n),
+  };
+  BLOCK_BEHAVIOURS[node.type].emit(context);
+  code.loadCell(fieldAddress(e, node.instance, BLOCK_SPECS[node.type].powerOut));
+}
+
+/** Store the power on the stack into a flow record byte, leaving it on the stack. */
+function recordFlow(e: Emitting, address: number): void {
+  const { code } = e;
+  const temp = code.i32Temp(FLOW_TEMP);
+  code.set(temp);
+  code.storeBase();
+  code.get(temp);
+  code.endStoreCell(checkedAddress(address));
+  code.get(temp);
+}
+
+function emitNode(node: PlanNode, depth: number, e: Emitting): void {
+  if (e.recordFlow) recordFlow(e, bitAt(node.flow, e.layout.flowLeft));
+  (EMITTERS[node.op] as Emitter<PlanNode>)(node, depth, e);
+  if (e.recordFlow) recordFlow(e, bitAt(node.flow, e.layout.flowRight));
+}
+
+function countElements(node: PlanNode): number {
+  if (node.op === 'series') return node.items.reduce((sum, item) => sum + countElements(item), 0);
+  if (node.op === 'parallel') return node.branches.reduce((sum, branch) => sum + countElements(branch), 0);
+  return 1;
+}
+
+function chunkRungs(rungs: readonly PlanRung[]): PlanRung[][] {
+  const chunks: PlanRung[][] = [];
+  let current: PlanRung[] = [];
+  let size = 0;
+  for (const rung of rungs) {
+    const n = countElements(rung.network) + 1;
+    if (current.length > 0 && size + n > CHUNK_ELEMENTS) {
+      chunks.push(current);
+      current = [];
+      size = 0;
+    }
+    current.push(rung);
+    size += n;
+  }
+  if (current.length > 0) chunks.push(current);
+  return chunks;
+}
+
+/** Input image: each input bit = its field value, or its forced value (step 1 of the scan cycle). */
+function emitInputImage(e: Emitting): void {
+  const { code, plan, layout } = e;
+  for (let i = 0; i < plan.space.inputs; i += 1) {
+    code.storeBase();
+    code.loadCell(bitAt(i, layout.field));
+    endStoreBit(e, plan.layout.inputs + i);
+  }
+}
+
+/**
+ * The module's bytes. Each rung is solved from a left rail that is ON (IEC 61131-3 clause 8.2.7
+ * [memory for the sub-number]); a coil's write is visible at once to every later element.
+ */
+export function kernelModule(plan: Plan, layout: StateLayout, options: { recordFlow: boolean }): Uint8Array {
+  const emitRungs = (e: Emitting, rungs: readonly PlanRung[]): void => {
+    for (const rung of rungs) {
+      e.code.i32(1);
+      emitNode(rung.network, 0, e);
+      e.code.op(OP.drop);
+    }
+  };
+  const chunks = chunkRungs(plan.rungs);
+  const scan: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow };
+  emitInputImage(scan);
+  // A small program is solved inside `scan` itself: a call costs as much as a few rungs.
+  if (chunks.length === 1) emitRungs(scan, chunks[0]!);
+  const functions = chunks.length === 1 ? [] : chunks.map((rungs) => {
+    const e: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow };
+    emitRungs(e, rungs);
+    return e.code;
+  });
+  functions.forEach((_, i) => {
+    scan.code.get(DT);
+    scan.code.call(i);
+  });
+  return assembleModule([...functions, scan.code], functions.length, layout.pages);
+}
+
+/**
+ * Upper bounds of the bytes one node adds to the recording module (the larger variant): its two
+ * flow records, its own instructions, and for a block its inputs and its behaviour. Tested
+ * against real modules.
+ */
+const MAX_NODE_BYTES = { series: 32, parallel: 40, contact: 56, coil: 80, block: 512 } as const satisfies Record<PlanOp, number>;
+
+/** An upper bound of the size of a plan's recording module, in bytes. */
+export function moduleBytesBound(plan: Plan): number {
+  let bytes = 1024 + 64 * plan.space.inputs;
+  const visit = (node: PlanNode): void => {
+    bytes += MAX_NODE_BYTES[node.op];
+    if (node.op === 'series') node.items.forEach(visit);
+    else if (node.op === 'parallel') node.branches.forEach(visit);
+  };
+  for (const rung of plan.rungs) visit(rung.network);
+  return bytes;
+}
+
+/**
+ * The largest module compiled: a browser compiles a module on its main thread synchronously only
+ * up to 8 MB (Chromium's message: "WebAssembly.Compile is disallowed on the main thread, if the
+ * buffer size is larger than 8MB"; measured in Chromium 156).
+ */
+export const MAX_MODULE_BYTES = 8_000_000;

@@ -1,0 +1,101 @@
+/**
+ * A growing byte buffer with the encodings WebAssembly's binary format uses (WebAssembly Core
+ * Specification 2.0, section 5.2 "Values": unsigned and signed LEB128 integers, IEEE 754 doubles
+ * little-endian). Writing is amortised O(1) per byte, so a module of a million bytes is built in
+ * a few milliseconds.
+ */
+export class ByteWriter {
+  private bytes = new Uint8Array(1024);
+  private size = 0;
+  private readonly scratch = new DataView(new ArrayBuffer(8));
+
+  get length(): number {
+    return this.size;
+  }
+
+  private room(n: number): void {
+    if (this.size + n <= this.bytes.length) return;
+    let capacity = this.bytes.length * 2;
+    while (capacity < this.size + n) capacity *= 2;
+    const grown = new Uint8Array(capacity);
+    grown.set(this.bytes.subarray(0, this.size));
+    this.bytes = grown;
+  }
+
+  byte(value: number): void {
+    this.room(1);
+    this.bytes[this.size++] = value;
+  }
+
+  /** Two bytes: an opcode and its one-byte immediate (most instructions written here). */
+  pair(a: number, b: number): void {
+    this.room(2);
+    this.bytes[this.size++] = a;
+    this.bytes[this.size++] = b;
+  }
+
+  /** Unsigned LEB128 of a whole number 0..2^32-1. */
+  u32(value: number): void {
+    this.room(5);
+    // Most values written are addresses below 2^14: one or two bytes, no loop.
+    if (value >= 0 && value < 0x4000 && value === Math.floor(value)) {
+      if (value < 0x80) this.bytes[this.size++] = value;
+      else {
+        this.bytes[this.size++] = (value & 0x7f) | 0x80;
+        this.bytes[this.size++] = value >>> 7;
+      }
+      return;
+    }
+    if (!Number.isInteger(value) || value < 0 || value > 0xffffffff) throw new RangeError(`wasm: bad u32 ${String(value)}`);
+    let v = value;
+    do {
+      let b = v % 128;
+      v = Math.floor(v / 128);
+      if (v !== 0) b |= 0x80;
+      this.bytes[this.size++] = b;
+    } while (v !== 0);
+  }
+
+  /** Signed LEB128 of a 32-bit integer. */
+  s32(value: number): void {
+    if (!Number.isInteger(value) || value < -0x80000000 || value > 0x7fffffff) throw new RangeError(`wasm: bad s32 ${String(value)}`);
+    this.room(5);
+    let v = value | 0;
+    for (;;) {
+      const b = v & 0x7f;
+      v >>= 7;
+      const done = (v === 0 && (b & 0x40) === 0) || (v === -1 && (b & 0x40) !== 0);
+      this.bytes[this.size++] = done ? b : b | 0x80;
+      if (done) return;
+    }
+  }
+
+  /** An IEEE 754 double, little-endian. */
+  f64(value: number): void {
+    this.room(8);
+    this.scratch.setFloat64(0, value, true);
+    for (let i = 0; i < 8; i += 1) this.bytes[this.size++] = this.scratch.getUint8(i);
+  }
+
+  /** A name: its UTF-8 length and bytes (names here are ASCII). */
+  name(text: string): void {
+    this.u32(text.length);
+    for (let i = 0; i < text.length; i += 1) {
+      const code = text.charCodeAt(i);
+      if (code > 0x7e || code < 0x20) throw new RangeError('wasm: names here are printable ASCII');
+      this.byte(code);
+    }
+  }
+
+  /** Append another writer's bytes. */
+  append(other: ByteWriter): void {
+    this.room(other.size);
+    this.bytes.set(other.bytes.subarray(0, other.size), this.size);
+    this.size += other.size;
+  }
+
+  /** A copy of the bytes written so far. */
+  toBytes(): Uint8Array {
+    return this.bytes.slice(0, this.size);
+  }
+}

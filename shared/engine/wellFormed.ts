@@ -1,0 +1,123 @@
+/**
+ * A fast, exact test that a value is already a parsed program: true only when `parseProgram`
+ * would accept it and return it unchanged (every field the schema defaults present, no key the
+ * schema strips, every limit and pattern of `shared/ladder/schema.ts` kept, ids unique).
+ *
+ * Why: every program reaching `compile` has been through `parseProgram` where it entered (load,
+ * save, import) or is a pure edit of one, yet `compile` must not trust that; running the whole
+ * zod schema again cost more than the rest of compiling (30 ms of 1,000 rungs on this machine).
+ * This walk costs a few milliseconds. It may refuse a document the schema would take (then the
+ * schema runs, with its located messages); it must never accept one the schema would refuse or
+ * change, which the tests check against the schema on generated and mutated documents.
+ */
+import { BlockTypeSchema, CoilVariantSchema, ContactVariantSchema, PROGRAM_FORMAT, PROGRAM_VERSION, type Program } from '../ladder/schema';
+
+const ID = /^[A-Za-z0-9_-]+$/;
+const TAG_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
+const CONTACT_VARIANTS: ReadonlySet<unknown> = new Set(ContactVariantSchema.options);
+const COIL_VARIANTS: ReadonlySet<unknown> = new Set(CoilVariantSchema.options);
+const BLOCK_TYPES: ReadonlySet<unknown> = new Set(BlockTypeSchema.options);
+
+/** The schema's limits (`shared/ladder/schema.ts`); the tests hold them to it. */
+export const DOCUMENT_LIMITS = {
+  id: 64,
+  operand: 64,
+  elementComment: 500,
+  instance: 32,
+  seriesItems: 200,
+  parallelBranches: 64,
+  rungComment: 2000,
+  tagName: 32,
+  tagAddress: 16,
+  tagComment: 200,
+  tags: 500,
+  title: 200,
+  description: 10_000,
+  rungs: 5000,
+} as const;
+
+const L = DOCUMENT_LIMITS;
+
+type Plain = Record<string, unknown>;
+
+/** A plain object (as JSON gives) whose own keys are all in `allowed`. */
+function isRecord(value: unknown): value is Plain {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) return false;
+  const proto = Object.getPrototypeOf(value) as unknown;
+  return proto === Object.prototype || proto === null;
+}
+
+function keysWithin(value: Plain, required: number, optional: string | null): boolean {
+  let count = 0;
+  for (const key in value) {
+    if (!Object.hasOwn(value, key)) return false;
+    count += 1;
+  }
+  return count === required || (optional !== null && count === required + 1 && Object.hasOwn(value, optional));
+}
+
+const text = (value: unknown, max: number): boolean => typeof value === 'string' && value.length <= max;
+const id = (value: unknown): boolean => typeof value === 'string' && value.length >= 1 && value.length <= L.id && ID.test(value);
+const comment = (node: Plain): boolean => node.comment === undefined ? !Object.hasOwn(node, 'comment') : text(node.comment, L.elementComment);
+
+function isInputs(value: unknown): boolean {
+  if (!isRecord(value)) return false;
+  for (const key in value) if (!Object.hasOwn(value, key) || !text(value[key], L.operand)) return false;
+  return true;
+}
+
+/** A network node; ids go into `ids`, false on a repeat. */
+function isNode(value: unknown, ids: Set<string>): boolean {
+  if (!isRecord(value) || !id(value.id) || ids.has(value.id as string)) return false;
+  ids.add(value.id as string);
+  switch (value.kind) {
+    case 'contact':
+      return keysWithin(value, 4, 'comment') && CONTACT_VARIANTS.has(value.variant) && text(value.operand, L.operand) && comment(value);
+    case 'coil':
+      return keysWithin(value, 4, 'comment') && COIL_VARIANTS.has(value.variant) && text(value.operand, L.operand) && comment(value);
+    case 'block':
+      return keysWithin(value, 5, 'comment') && BLOCK_TYPES.has(value.type) && text(value.instance, L.instance) && isInputs(value.inputs) && comment(value);
+    case 'series':
+      return keysWithin(value, 3, null) && isChildren(value.items, L.seriesItems, ids);
+    case 'parallel':
+      return keysWithin(value, 3, null) && isChildren(value.branches, L.parallelBranches, ids);
+    default:
+      return false;
+  }
+}
+
+function isChildren(value: unknown, max: number, ids: Set<string>): boolean {
+  if (!Array.isArray(value) || value.length > max) return false;
+  for (let i = 0; i < value.length; i += 1) if (!isNode(value[i], ids)) return false;
+  return true;
+}
+
+function isTag(value: unknown): boolean {
+  return (
+    isRecord(value) &&
+    keysWithin(value, 3, null) &&
+    typeof value.name === 'string' &&
+    value.name.length >= 1 &&
+    value.name.length <= L.tagName &&
+    TAG_NAME.test(value.name) &&
+    text(value.address, L.tagAddress) &&
+    text(value.comment, L.tagComment)
+  );
+}
+
+/** True only when `parseProgram(value)` would accept `value` and return an equal program. */
+export function isParsedProgram(value: unknown): value is Program {
+  if (!isRecord(value) || !keysWithin(value, 6, null)) return false;
+  if (value.format !== PROGRAM_FORMAT || value.version !== PROGRAM_VERSION) return false;
+  if (!text(value.title, L.title) || !text(value.description, L.description)) return false;
+  const { tags, rungs } = value;
+  if (!Array.isArray(tags) || tags.length > L.tags || !tags.every(isTag)) return false;
+  if (!Array.isArray(rungs) || rungs.length > L.rungs) return false;
+  const ids = new Set<string>();
+  for (const rung of rungs) {
+    if (!isRecord(rung) || !keysWithin(rung, 3, null) || !id(rung.id) || ids.has(rung.id as string) || !text(rung.comment, L.rungComment)) return false;
+    ids.add(rung.id as string);
+    if (!isRecord(rung.network) || rung.network.kind !== 'series' || !isNode(rung.network, ids)) return false;
+  }
+  return true;
+}

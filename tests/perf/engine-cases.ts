@@ -1,0 +1,177 @@
+/**
+ * The engine benchmark's cases, prepared the same way in Node and in the page benchmark: the
+ * program compiled and started on the engine, the baseline started on its typed arrays, both
+ * wrapped as `Subject`s that report their whole memory for the agreement check.
+ */
+import { compile, createRuntime, type Runtime, type RuntimeSnapshot } from '@shared/engine';
+import type { AddressSpace } from '@shared/ladder/addresses';
+import type { BlockType, Program } from '@shared/ladder/schema';
+import { createDemoState, demoCases, type DemoCase, type DemoState } from './engine-demo';
+import { inputPatterns, type MemoryImage, type Subject } from './engine-measure';
+import { BENCH_SPACE, benchProgram, type BaselineBlock, type ProgramShape } from './engine-programs';
+
+export const SCAN_MS = 10;
+/** Generated program sizes, rungs. */
+export const GENERATED_SIZES = [10, 100, 1000, 5000, 10000] as const;
+export const SHAPES: readonly ProgramShape[] = ['series', 'parallel'];
+
+export interface CaseSpec {
+  /** `demo conveyor`, `series 1000`… */
+  id: string;
+  demo?: string;
+  shape?: ProgramShape;
+  rungs: number;
+}
+
+export function caseSpecs(sizes: readonly number[] = GENERATED_SIZES): CaseSpec[] {
+  const demos = demoCases().map((d): CaseSpec => ({ id: `demo ${d.name}`, demo: d.name, rungs: d.program.rungs.length }));
+  const generated = sizes.flatMap((rungs) => SHAPES.map((shape): CaseSpec => ({ id: `${shape} ${rungs}`, shape, rungs })));
+  return [...demos, ...generated];
+}
+
+export type Measured = Subject & { image(): MemoryImage };
+
+/** What a generated baseline module exports (see engine-programs.ts). */
+export interface BaselineModule {
+  createBaselineState(): GeneratedState;
+  baselineScan(s: GeneratedState, field: readonly boolean[], dt: number): void;
+}
+
+interface GeneratedState {
+  I: Uint8Array;
+  Q: Uint8Array;
+  M: Uint8Array;
+  E: Uint8Array;
+  BQ: Uint8Array;
+  BD: Uint8Array;
+  BL: Uint8Array;
+  BM: Uint8Array;
+  BN: Int32Array;
+  outputImage: Uint8Array;
+}
+
+export interface PreparedCase {
+  spec: CaseSpec;
+  engine: Measured;
+  baseline: Measured;
+  runtime: Runtime;
+  elements: number;
+  /** `compile()`, `createRuntime()` and the first scan, ms (the first scan compiles the code it runs). */
+  compileMs: number;
+  runtimeMs: number;
+  firstScanMs: number;
+}
+
+function snapshotImage(snapshot: RuntimeSnapshot): MemoryImage {
+  return {
+    inputs: snapshot.bits.inputs,
+    outputs: snapshot.bits.outputs,
+    memory: snapshot.bits.memory,
+    edges: snapshot.edges.map((e) => e.value),
+    outputImage: snapshot.outputImage,
+    instances: new Map(snapshot.instances.map((i) => [i.name, i.state as unknown as Record<string, boolean | number>])),
+  };
+}
+
+function engineSubject(runtime: Runtime, patterns: readonly boolean[][]): Measured {
+  const count = patterns.length;
+  return {
+    run(from, n) {
+      for (let k = 0; k < n; k += 1) {
+        runtime.setInputs(patterns[(from + k) % count]!);
+        runtime.scan();
+      }
+    },
+    image: () => snapshotImage(runtime.snapshot()),
+  };
+}
+
+const BLOCK_FIELDS = {
+  TON: (s, k) => ({ Q: s.BQ[k] === 1, ET: s.BN[k]! }),
+  TOF: (s, k) => ({ Q: s.BQ[k] === 1, ET: s.BN[k]! }),
+  TP: (s, k) => ({ Q: s.BQ[k] === 1, ET: s.BN[k]!, lastIN: s.BL[k] === 1 }),
+  CTU: (s, k) => ({ Q: s.BQ[k] === 1, CV: s.BN[k]!, lastCU: s.BL[k] === 1 }),
+  CTD: (s, k) => ({ Q: s.BQ[k] === 1, CV: s.BN[k]!, lastCD: s.BL[k] === 1 }),
+  CTUD: (s, k) => ({ QU: s.BQ[k] === 1, QD: s.BD[k] === 1, CV: s.BN[k]!, lastCU: s.BL[k] === 1, lastCD: s.BM[k] === 1 }),
+} satisfies Partial<Record<BlockType, (s: GeneratedState, k: number) => Record<string, boolean | number>>>;
+
+function generatedBaseline(module: BaselineModule, blocks: readonly BaselineBlock[], patterns: readonly boolean[][]): Measured {
+  const state = module.createBaselineState();
+  const scan = module.baselineScan;
+  const count = patterns.length;
+  return {
+    run(from, n) {
+      for (let k = 0; k < n; k += 1) scan(state, patterns[(from + k) % count]!, SCAN_MS);
+    },
+    image: () => ({
+      inputs: state.I,
+      outputs: state.Q,
+      memory: state.M,
+      edges: state.E.subarray(0, state.E.length),
+      outputImage: state.outputImage,
+      instances: new Map(blocks.map((b) => [b.name, BLOCK_FIELDS[b.type as keyof typeof BLOCK_FIELDS](state, b.k)])),
+    }),
+  };
+}
+
+function demoBaseline(demo: DemoCase, patterns: readonly boolean[][]): Measured {
+  const state: DemoState = createDemoState(demo);
+  const count = patterns.length;
+  return {
+    run(from, n) {
+      for (let k = 0; k < n; k += 1) demo.scan(state, patterns[(from + k) % count]!, SCAN_MS);
+    },
+    image: () => ({
+      inputs: state.I,
+      outputs: state.Q,
+      memory: state.M,
+      edges: state.E.subarray(0, demo.edges),
+      outputImage: state.outputImage,
+      instances: new Map(demo.blocks.map((b) => [b.name, b.state(state)])),
+    }),
+  };
+}
+
+/** The program a spec benchmarks, with its generated baseline's description. */
+export function caseProgram(spec: CaseSpec): { program: Program; space: AddressSpace; demo?: DemoCase; generated?: ReturnType<typeof benchProgram> } {
+  if (spec.demo !== undefined) {
+    const demo = demoCases().find((d) => d.name === spec.demo)!;
+    return { program: demo.program, space: demo.space, demo };
+  }
+  const generated = benchProgram(spec.shape!, spec.rungs);
+  return { program: generated.program, space: BENCH_SPACE, generated };
+}
+
+/**
+ * Compile and start a case on both sides. `module` is the generated baseline's module (generated
+ * cases); `nowMs` a millisecond clock for the compile figures.
+ */
+export function prepareCase(spec: CaseSpec, module: BaselineModule | null, nowMs: () => number): PreparedCase {
+  const { program, space, demo, generated } = caseProgram(spec);
+  const patterns = inputPatterns(space.inputs, 1009, 11);
+  const t0 = nowMs();
+  const compiled = compile(program, { space });
+  const t1 = nowMs();
+  if (!compiled.ok) throw new Error(`${spec.id} does not compile: ${compiled.diagnostics[0]?.message}`);
+  const runtime = createRuntime(compiled.plan, { scanMs: SCAN_MS });
+  const t2 = nowMs();
+  // The first scan runs on a copy, so the measured runtime starts from scan 0 like the baseline.
+  const first = createRuntime(compiled.plan, { scanMs: SCAN_MS });
+  const t3 = nowMs();
+  first.scan();
+  const t4 = nowMs();
+  let baseline: Measured;
+  if (demo !== undefined) baseline = demoBaseline(demo, patterns);
+  else if (module !== null && generated !== undefined) baseline = generatedBaseline(module, generated.blocks, patterns);
+  else throw new Error(`${spec.id}: its baseline module is missing`);
+  return {
+    spec,
+    engine: engineSubject(runtime, patterns),
+    baseline,
+    runtime,
+    elements: compiled.plan.elementCount,
+    compileMs: t1 - t0,
+    runtimeMs: t2 - t1,
+    firstScanMs: t4 - t3,
+  };
+}

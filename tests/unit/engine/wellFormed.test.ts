@@ -1,0 +1,123 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { compile } from '@shared/engine';
+import { DOCUMENT_LIMITS, isParsedProgram } from '@shared/engine/wellFormed';
+import { createEmptyProgram, parseProgram } from '@shared/ladder/restore';
+import type { Program } from '@shared/ladder/schema';
+import { benchProgram } from '../../perf/engine-programs';
+import { demoCases } from '../../perf/engine-demo';
+import { programBuilder } from './build';
+import { randomProgram } from './oracle/randomProgram';
+
+/** The one property that matters: the fast check never accepts what the schema refuses or changes. */
+function expectSound(value: unknown): void {
+  if (!isParsedProgram(value)) return;
+  const parsed = parseProgram(value);
+  expect(parsed.ok ? 'accepted' : parsed.error).toBe('accepted');
+  if (parsed.ok) expect(parsed.value).toStrictEqual(value);
+}
+
+/** Every object and array inside a document, to mutate one of them. */
+function containers(value: unknown, out: Array<Record<string, unknown> | unknown[]> = []): Array<Record<string, unknown> | unknown[]> {
+  if (typeof value !== 'object' || value === null) return out;
+  out.push(value as Record<string, unknown> | unknown[]);
+  for (const child of Object.values(value)) containers(child, out);
+  return out;
+}
+
+const mutation = fc.oneof(
+  fc.record({ op: fc.constant('set' as const), key: fc.constantFrom('id', 'kind', 'variant', 'operand', 'type', 'instance', 'inputs', 'items', 'branches', 'comment', 'name', 'address', 'title', 'format', 'version', 'rungs', 'tags', 'network', 'extra'), value: fc.jsonValue({ maxDepth: 2 }) }),
+  fc.record({ op: fc.constant('long' as const), key: fc.constantFrom('id', 'operand', 'instance', 'comment', 'name', 'address', 'title'), length: fc.constantFrom(17, 33, 65, 201, 501, 2001) }),
+  fc.record({ op: fc.constant('odd' as const), key: fc.constantFrom('id', 'name'), text: fc.constantFrom('', 'a b', 'é', '1abc', 'a.b', 'x'.repeat(64)) }),
+  fc.record({ op: fc.constant('delete' as const), key: fc.constantFrom('id', 'kind', 'comment', 'tags', 'title', 'description', 'inputs', 'items', 'operand') }),
+  fc.record({ op: fc.constant('duplicate-id' as const) }),
+  fc.record({ op: fc.constant('grow' as const), times: fc.constantFrom(65, 201) }),
+);
+
+function mutate(program: Program, which: number, m: Record<string, unknown>): unknown {
+  const copy = structuredClone(program) as unknown;
+  const all = containers(copy);
+  const target = all[which % all.length]!;
+  if (Array.isArray(target)) {
+    if (m.op === 'grow' && target.length > 0) for (let i = 0; i < (m.times as number); i += 1) target.push(structuredClone(target[0]));
+    else if (m.op === 'set') target.push(m.value);
+    return copy;
+  }
+  const key = m.key as string;
+  if (m.op === 'set') target[key] = m.value;
+  else if (m.op === 'long') target[key] = 'a'.repeat(m.length as number);
+  else if (m.op === 'odd') target[key] = m.text;
+  else if (m.op === 'delete') delete target[key];
+  else if (m.op === 'duplicate-id' && typeof target.id === 'string') {
+    const other = all.find((c) => !Array.isArray(c) && c !== target && typeof (c as Record<string, unknown>).id === 'string') as Record<string, unknown> | undefined;
+    if (other) target.id = other.id;
+  }
+  return copy;
+}
+
+describe('isParsedProgram', () => {
+  it('accepts what parseProgram returns, unchanged', () => {
+    const documents: Program[] = [
+      createEmptyProgram('x'),
+      ...demoCases().map((d) => d.program),
+      benchProgram('series', 100, 1).program,
+      benchProgram('parallel', 100, 1).program,
+      { ...programBuilder().program([]), tags: [{ name: 'Start', address: '%IX1', comment: 'a' }] },
+    ];
+    for (const doc of documents) {
+      expect(isParsedProgram(doc)).toBe(true);
+      const parsed = parseProgram(doc);
+      expect(parsed.ok && parsed.value).toStrictEqual(doc);
+    }
+    fc.assert(fc.property(randomProgram, (doc) => isParsedProgram(doc) && parseProgram(doc).ok), { numRuns: 200, seed: 7 });
+  }, 60_000);
+
+  it('never accepts a document the schema refuses or would change', () => {
+    fc.assert(
+      fc.property(randomProgram, fc.nat(), mutation, (doc, which, m) => {
+        expectSound(mutate(doc, which, m as Record<string, unknown>));
+      }),
+      { numRuns: 2000, seed: 2026 },
+    );
+  }, 120_000);
+
+  it('refuses what is not a plain JSON document', () => {
+    const doc = programBuilder().program([]);
+    for (const junk of [null, 42, 'x', [], new Map(), Object.assign(Object.create({ inherited: 1 }), doc), { ...doc, extra: 1 }]) {
+      expect(isParsedProgram(junk)).toBe(false);
+    }
+  });
+
+  it('holds the same limits as the schema', () => {
+    const b = programBuilder();
+    const at = (limit: number, make: (n: number) => Program): void => {
+      expect(isParsedProgram(make(limit))).toBe(true);
+      expect(parseProgram(make(limit)).ok).toBe(true);
+      expect(parseProgram(make(limit + 1)).ok).toBe(false);
+      expect(isParsedProgram(make(limit + 1))).toBe(false);
+    };
+    const rung = (items: Program['rungs'][number]['network']['items']): Program['rungs'][number] => ({ id: 'r', comment: '', network: { kind: 'series', id: 's', items } });
+    const one = (node: Program['rungs'][number]['network']['items'][number]): Program => b.program([rung([node])]);
+    at(DOCUMENT_LIMITS.id, (n) => one({ kind: 'contact', id: 'a'.repeat(n), variant: 'no', operand: '' }));
+    at(DOCUMENT_LIMITS.operand, (n) => one({ kind: 'contact', id: 'c', variant: 'no', operand: 'a'.repeat(n) }));
+    at(DOCUMENT_LIMITS.elementComment, (n) => one({ kind: 'coil', id: 'c', variant: 'set', operand: '', comment: 'a'.repeat(n) }));
+    at(DOCUMENT_LIMITS.instance, (n) => one({ kind: 'block', id: 'c', type: 'TON', instance: 'a'.repeat(n), inputs: {} }));
+    at(DOCUMENT_LIMITS.seriesItems, (n) => b.program([rung(Array.from({ length: n }, (_, i) => ({ kind: 'contact', id: `c${i}`, variant: 'no', operand: '' })))]));
+    at(DOCUMENT_LIMITS.parallelBranches, (n) => one({ kind: 'parallel', id: 'p', branches: Array.from({ length: n }, (_, i) => ({ kind: 'contact', id: `c${i}`, variant: 'no', operand: '' })) }));
+    at(DOCUMENT_LIMITS.rungComment, (n) => b.program([{ ...rung([]), comment: 'a'.repeat(n) }]));
+    at(DOCUMENT_LIMITS.tagName, (n) => ({ ...b.program([]), tags: [{ name: 'a'.repeat(n), address: '%IX1', comment: '' }] }));
+    at(DOCUMENT_LIMITS.tagAddress, (n) => ({ ...b.program([]), tags: [{ name: 'a', address: '%'.repeat(n), comment: '' }] }));
+    at(DOCUMENT_LIMITS.tagComment, (n) => ({ ...b.program([]), tags: [{ name: 'a', address: '', comment: 'a'.repeat(n) }] }));
+    at(DOCUMENT_LIMITS.tags, (n) => ({ ...b.program([]), tags: Array.from({ length: n }, (_, i) => ({ name: `t${i}`, address: '', comment: '' })) }));
+    at(DOCUMENT_LIMITS.title, (n) => ({ ...b.program([]), title: 'a'.repeat(n) }));
+    at(DOCUMENT_LIMITS.description, (n) => ({ ...b.program([]), description: 'a'.repeat(n) }));
+    at(DOCUMENT_LIMITS.rungs, (n) => b.program(Array.from({ length: n }, (_, i) => ({ id: `r${i}`, comment: '', network: { kind: 'series', id: `s${i}`, items: [] } }))));
+  });
+
+  it('leaves a document it refuses to the schema, whose message compile passes on', () => {
+    const doc = { ...programBuilder().program([]), rungs: [{ id: 'r1' }] } as unknown as Program;
+    const result = compile(doc);
+    expect(result.ok).toBe(false);
+    expect(result.diagnostics[0]!.message).toMatch(/rungs\[0\]\.network/);
+  });
+});
