@@ -35,6 +35,9 @@ export const RETRY_LIMIT = 3;
 /** The mail outbox's queue. */
 export const MAIL_QUEUE = 'send-mail';
 
+/** Messages a worker takes per poll: a few seconds of SMTP at most, well inside their expiry. */
+const MAIL_BATCH = 20;
+
 /** A mail relay may refuse for a while: 8 tries with back-off from 30 s cover about two hours. */
 const MAIL_RETRY = { retryLimit: 8, retryDelay: 30, retryBackoff: true };
 
@@ -72,8 +75,6 @@ export interface JobQueue {
   enqueueMail(mail: OutgoingMail): Promise<void>;
   /** Sends the outbox's messages with `send` until `stop()`; one that throws is tried again later. */
   workMail(send: (mail: OutgoingMail) => Promise<void>): Promise<void>;
-  /** A job's state, for tests and the benchmark. */
-  jobState(jobId: string): Promise<{ state: string; retryCount: number } | null>;
   stop(): Promise<void>;
 }
 
@@ -133,13 +134,13 @@ export async function openJobQueue(options: JobQueueOptions): Promise<JobQueue> 
       if (!id) throw new Error(`the message to ${mail.to} was not queued`);
     },
     async workMail(send) {
-      await boss.work<OutgoingMail>(MAIL_QUEUE, { batchSize: 1, pollingIntervalSeconds: 1 }, async (jobs) => {
-        for (const job of jobs) await send(job.data);
+      // A batch per poll (a class's invitations arrive together), sent one after another; a message
+      // the relay refused goes back to the queue alone.
+      await boss.work<OutgoingMail>(MAIL_QUEUE, { batchSize: MAIL_BATCH, pollingIntervalSeconds: 0.5 }, async (jobs) => {
+        const failed: string[] = [];
+        for (const job of jobs) await send(job.data).catch(() => failed.push(job.id));
+        if (failed.length > 0) await boss.fail(MAIL_QUEUE, failed);
       });
-    },
-    async jobState(jobId) {
-      const job = await boss.getJobById(GRADING_QUEUE, jobId, { includeArchive: true });
-      return job ? { state: job.state, retryCount: job.retryCount } : null;
     },
     async stop() {
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
