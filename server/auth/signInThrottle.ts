@@ -9,13 +9,15 @@
  *   checked, so a burst sent at once gets no more tries than one sent one by one.
  * - Per address (the client's IP as Express sees it: X-Forwarded-For only under TRUST_PROXY): at
  *   most AUTH_RATE_LIMIT failed sign-ins per 15 min, against one password tried on many accounts.
- *   Only failures count, so a class signing in behind one NAT does not lock itself out.
+ *   Only failures count, so a class signing in behind one NAT does not lock itself out. Each
+ *   attempt takes a slot atomically before the password is checked and a success gives it back,
+ *   so a burst sent at once gets no more failures in than the limit.
  *
  * A password change checks the current password against the same per-account counter.
  */
 import type { Db } from '../db/client';
 import { failure } from '../http/failure';
-import { clearCounter, countAttempt, readCounter } from '../db/rateCounters';
+import { clearCounter, countAttempt, uncountAttempt } from '../db/rateCounters';
 import { deleteStaleCounters, takeAttempt, type BackoffPolicy } from '../db/backoffCounters';
 
 /** Failures per account before the first wait. */
@@ -38,12 +40,16 @@ export const addressKey = (address: string): string => `${PREFIX}address:${addre
 /** Go ahead, or wait until `retryAt` (who is throttled decides the wording). */
 export type ThrottleVerdict = { allowed: true } | { allowed: false; scope: 'account' | 'address'; retryAt: Date };
 
-/** Whether the address may try a password now (it is not counted here: only failures count). */
-export async function checkAddress(db: Db, address: string, limit: number, now: Date): Promise<ThrottleVerdict> {
-  const counter = await readCounter(db, addressKey(address));
-  if (!counter) return { allowed: true };
-  const windowEnd = new Date(counter.windowStart.getTime() + ADDRESS_WINDOW_MS);
-  return counter.count >= limit && windowEnd > now ? { allowed: false, scope: 'address', retryAt: windowEnd } : { allowed: true };
+/**
+ * Takes a slot for one password attempt from `address`, in one atomic upsert: refused once the
+ * window holds `limit` failures (and attempts in flight). A success gives the slot back
+ * (`addressSucceeded`), so only failures stay counted.
+ */
+export async function reserveAddressAttempt(db: Db, address: string, limit: number, now: Date): Promise<ThrottleVerdict> {
+  const counter = await countAttempt(db, addressKey(address), now, ADDRESS_WINDOW_MS);
+  if (counter.count <= limit) return { allowed: true };
+  await uncountAttempt(db, addressKey(address));
+  return { allowed: false, scope: 'address', retryAt: new Date(counter.windowStart.getTime() + ADDRESS_WINDOW_MS) };
 }
 
 /** Takes one attempt at the account's password (counted now; cleared by `passwordAccepted`). */
@@ -52,9 +58,9 @@ export async function takeAccountAttempt(db: Db, email: string, now: Date): Prom
   return verdict.allowed ? { allowed: true } : { allowed: false, scope: 'account', retryAt: verdict.blockedUntil };
 }
 
-/** A wrong password from `address`: counts against the address (the account's attempt is counted already). */
-export async function addressFailed(db: Db, address: string, now: Date): Promise<void> {
-  await countAttempt(db, addressKey(address), now, ADDRESS_WINDOW_MS);
+/** The right password from `address`: its reserved slot is given back (only failures count). */
+export async function addressSucceeded(db: Db, address: string): Promise<void> {
+  await uncountAttempt(db, addressKey(address));
 }
 
 /** The right password (or a completed reset): the account's failures and any back-off go. */

@@ -46,6 +46,14 @@ export async function readCounter(db: Db, key: string): Promise<RateCounter | nu
   return rows[0] ?? null;
 }
 
+/** Gives back one attempt counted under `key` (a reservation that turned out not to count). */
+export async function uncountAttempt(db: Db, key: string): Promise<void> {
+  await db
+    .update(rateCounters)
+    .set({ count: sql`greatest(${rateCounters.count} - 1, 0)` })
+    .where(eq(rateCounters.key, key));
+}
+
 /** Refuses attempts under `key` until `until` (a back-off); the count is kept. */
 export async function blockUntil(db: Db, key: string, until: Date): Promise<void> {
   await db.update(rateCounters).set({ blockedUntil: until }).where(eq(rateCounters.key, key));

@@ -1,6 +1,8 @@
 /**
- * `npm run db:reset`: wipes the database in DATA_DIR and seeds the demo data again. Takes the
- * DATA_DIR lock first, so it refuses while a server is running on that directory.
+ * `npm run db:reset`: wipes the database in DATA_DIR and seeds the demo data again, or, with
+ * DEMO=off, leaves it empty for `create-admin` (a reset must not bring back demo sign-ins with
+ * published passwords on a real install). Takes the DATA_DIR lock first, so it refuses while a
+ * server is running on that directory.
  */
 import { rmSync } from 'node:fs';
 import { readConfig } from '../config';
@@ -15,7 +17,7 @@ if (!configResult.ok) {
   console.error(configResult.error);
   process.exit(1);
 }
-const { DATA_DIR, DATABASE_URL } = configResult.config;
+const { DATA_DIR, DATABASE_URL, DEMO } = configResult.config;
 if (DATABASE_URL) {
   // A shared database is never wiped by a convenience script: that is the database owner's call.
   console.error('Not resetting: DATABASE_URL is set. db:reset wipes only the embedded database in DATA_DIR; unset DATABASE_URL (or drop and recreate the PostgreSQL database yourself).');
@@ -29,10 +31,14 @@ if (!lock.ok) {
 try {
   rmSync(pgliteDirectory(DATA_DIR), { recursive: true, force: true });
   const database = await openDatabase({ kind: 'directory', dataDir: DATA_DIR });
-  await seedDemoData(database.orm, systemClock);
+  if (DEMO === 'on') await seedDemoData(database.orm, systemClock);
   await database.close();
-  console.log(`Reset the database in ${pgliteDirectory(DATA_DIR)} and seeded the demo data. Demo sign-ins:`);
-  for (const a of DEMO_ACCOUNTS) console.log(`  ${a.role.padEnd(10)} ${a.email}  /  ${a.password}`);
+  if (DEMO === 'on') {
+    console.log(`Reset the database in ${pgliteDirectory(DATA_DIR)} and seeded the demo data. Demo sign-ins:`);
+    for (const a of DEMO_ACCOUNTS) console.log(`  ${a.role.padEnd(10)} ${a.email}  /  ${a.password}`);
+  } else {
+    console.log(`Reset the database in ${pgliteDirectory(DATA_DIR)}; it has no accounts (DEMO=off). Create the first admin with \`npm run cli -- create-admin --email you@example.org\`.`);
+  }
 } catch (err) {
   console.error(`Reset failed: ${err instanceof Error ? err.message : String(err)}`);
   process.exitCode = 1;

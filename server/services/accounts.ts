@@ -6,7 +6,7 @@
 import type { InvitationSent, SignInRequest } from '@shared/api';
 import type { AppContext } from '../context';
 import { verifyPassword } from '../auth/passwords';
-import { addressFailed, checkAddress, passwordAccepted, sweepSignInCounters, takeAccountAttempt, throttledFailure } from '../auth/signInThrottle';
+import { addressSucceeded, passwordAccepted, reserveAddressAttempt, sweepSignInCounters, takeAccountAttempt, throttledFailure } from '../auth/signInThrottle';
 import { findCredentials, findUserByEmail, setLastSignIn, type User } from '../db/users';
 import { failure, success, type Outcome } from '../http/failure';
 import { sendInvitation } from './invitations';
@@ -27,16 +27,19 @@ export const DEACTIVATED_MESSAGE = 'This account has been deactivated. Ask your 
  */
 export async function signIn(ctx: AppContext, req: SignInRequest, address: string): Promise<Outcome<User>> {
   const now = ctx.clock.now();
-  const byAddress = await checkAddress(ctx.orm, address, ctx.config.AUTH_RATE_LIMIT, now);
+  const byAddress = await reserveAddressAttempt(ctx.orm, address, ctx.config.AUTH_RATE_LIMIT, now);
   if (!byAddress.allowed) return throttledFailure(byAddress, now);
   const byAccount = await takeAccountAttempt(ctx.orm, req.email, now);
-  if (!byAccount.allowed) return throttledFailure(byAccount, now);
+  if (!byAccount.allowed) {
+    // Refused before any password was tried: not a failure of this address.
+    await addressSucceeded(ctx.orm, address);
+    return throttledFailure(byAccount, now);
+  }
   const found = await findCredentials(ctx.orm, { email: req.email });
   const matches = await verifyPassword(req.password, found?.passwordHash ?? NO_ACCOUNT_HASH);
-  if (!found || !matches) {
-    await addressFailed(ctx.orm, address, now);
-    return failure('bad_credentials', 'The e-mail or password is wrong');
-  }
+  // The address keeps its slot for a failure and gives it back for the right password.
+  if (!found || !matches) return failure('bad_credentials', 'The e-mail or password is wrong');
+  await addressSucceeded(ctx.orm, address);
   await passwordAccepted(ctx.orm, req.email);
   await sweepSignInCounters(ctx.orm, now);
   if (found.user.deactivatedAt) return failure('forbidden', DEACTIVATED_MESSAGE);

@@ -11,6 +11,7 @@
  * change, which the tests check against the schema on generated and mutated documents.
  */
 import { BlockTypeSchema, CoilVariantSchema, ContactVariantSchema, PROGRAM_FORMAT, PROGRAM_VERSION, type Program } from '../ladder/schema';
+import { checkDocumentBounds } from '../ladder/bounds';
 
 const ID = /^[A-Za-z0-9_-]+$/;
 const TAG_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
@@ -18,8 +19,8 @@ const CONTACT_VARIANTS: ReadonlySet<unknown> = new Set(ContactVariantSchema.opti
 const COIL_VARIANTS: ReadonlySet<unknown> = new Set(CoilVariantSchema.options);
 const BLOCK_TYPES: ReadonlySet<unknown> = new Set(BlockTypeSchema.options);
 
-/** The schema's limits (`shared/ladder/schema.ts`); the tests hold them to it. */
-export const DOCUMENT_LIMITS = {
+/** The schema's field limits (`shared/ladder/schema.ts`); the tests hold them to it. The size limits are `DOCUMENT_LIMITS` there. */
+export const SCHEMA_LIMITS = {
   id: 64,
   operand: 64,
   elementComment: 500,
@@ -36,7 +37,7 @@ export const DOCUMENT_LIMITS = {
   rungs: 5000,
 } as const;
 
-const L = DOCUMENT_LIMITS;
+const L = SCHEMA_LIMITS;
 
 type Plain = Record<string, unknown>;
 
@@ -108,6 +109,9 @@ function isTag(value: unknown): boolean {
 /** True only when `parseProgram(value)` would accept `value` and return an equal program. */
 export function isParsedProgram(value: unknown): value is Program {
   if (!isRecord(value) || !keysWithin(value, 6, null)) return false;
+  // The size limits (depth, nodes per rung and per program, no NUL) as parseProgram checks them,
+  // first: they also bound the recursion of the walk below.
+  if (checkDocumentBounds(value) !== null) return false;
   if (value.format !== PROGRAM_FORMAT || value.version !== PROGRAM_VERSION) return false;
   if (!text(value.title, L.title) || !text(value.description, L.description)) return false;
   const { tags, rungs } = value;

@@ -18,6 +18,8 @@ import { THREE_WIRE_DEMO } from '../../server/db/demoPrograms';
 import { insertAttachment } from '../../server/db/labs';
 import { issueScopedToken } from '../../server/db/oneTimeTokens';
 import { hashToken, INVITE_TOKEN_MS, newToken } from '../../server/auth/oneTimeTokens';
+import type { Express } from 'express';
+import { listRoutes } from '../../server/http/routeList';
 import { createTestApp, type TestApp } from './helpers/testApp';
 import { addUser, call, documentWithRungs, signIn } from './helpers/fixtures';
 import { setDeactivatedAt } from '../../server/db/users';
@@ -97,8 +99,8 @@ function programRows(label: string, pick: (s: Scene) => string, read: (ok: numbe
       send: (t, c, s) => call(t, 'post', at(s, '/versions'), c).send({ baseVersion: 1, document: documentWithRungs(2) }),
       expect: write(201),
     },
-    { route: `GET /api/programs/:id/versions/:n (${label})`, send: (t, c, s) => call(t, 'get', at(s, '/versions/1'), c), expect: read(200) },
-    { route: `GET /api/programs/:id/versions/:n/export (${label})`, send: (t, c, s) => call(t, 'get', at(s, '/versions/1/export?format=plcopen'), c), expect: read(200) },
+    { route: `GET /api/programs/:id/versions/:number (${label})`, send: (t, c, s) => call(t, 'get', at(s, '/versions/1'), c), expect: read(200) },
+    { route: `GET /api/programs/:id/versions/:number/export (${label})`, send: (t, c, s) => call(t, 'get', at(s, '/versions/1/export?format=plcopen'), c), expect: read(200) },
     { route: `GET /api/programs/:id/diff (${label})`, send: (t, c, s) => call(t, 'get', at(s, '/diff?from=1&to=1'), c), expect: read(200) },
     { route: `POST /api/programs/:id/restore (${label})`, send: (t, c, s) => call(t, 'post', at(s, '/restore'), c).send({ version: 1, baseVersion: 1 }), expect: write(201) },
   ];
@@ -148,6 +150,22 @@ const spareAccount = (t: TestApp, s: Scene) => addUser(t, `spare${s.n}@test.exam
 const ROWS: Row[] = [
   { route: 'GET /api/health', send: (t) => call(t, 'get', '/api/health'), expect: { ...all(200), anonymous: 200 } },
   { route: 'GET /api/me', send: (t, c) => call(t, 'get', '/api/me', c), expect: all(200) },
+  // Open to anyone, signed in or not: an unknown address is refused alike for every caller.
+  {
+    route: 'POST /api/auth/sign-in',
+    send: (t, c, s) => call(t, 'post', '/api/auth/sign-in', c).send({ email: `nobody${s.n}@test.example`, password: 'not-the-password' }),
+    expect: { ...all(401), anonymous: 401 },
+  },
+  {
+    route: 'POST /api/auth/password-reset',
+    send: (t, c, s) => call(t, 'post', '/api/auth/password-reset', c).send({ email: `nobody${s.n}@test.example` }),
+    expect: { ...all(202), anonymous: 202 },
+  },
+  {
+    route: 'POST /api/auth/password-reset/confirm',
+    send: (t, c) => call(t, 'post', '/api/auth/password-reset/confirm', c).send({ token: 'x'.repeat(43), password: 'a-long-enough-password' }),
+    expect: { ...all(400), anonymous: 400 },
+  },
   {
     route: 'POST /api/auth/sign-out',
     send: async (t, c, s) => call(t, 'post', '/api/auth/sign-out', await secondSession(t, s, c)),
@@ -270,6 +288,7 @@ const ROWS: Row[] = [
     expect: adminOnly(201),
   },
   { route: 'GET /api/dev/mail', send: (t, c) => call(t, 'get', '/api/dev/mail', c), expect: adminOnly(200) },
+  { route: 'GET /api/admin/status', send: (t, c) => call(t, 'get', '/api/admin/status', c), expect: adminOnly(200) },
   {
     route: 'POST /api/admin/users/:id/deactivate',
     send: async (t, c, s) => call(t, 'post', `/api/admin/users/${(await spareAccount(t, s)).id}/deactivate`, c),
@@ -340,8 +359,8 @@ const ROWS: Row[] = [
     expect: manageA(201),
   },
   { route: 'GET /api/labs/:id/attachments', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labA}/attachments`, c), expect: viewLabA(200) },
-  { route: 'GET /api/labs/:id/attachments/:aid', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labA}/attachments/${s.attachmentA}`, c), expect: viewLabA(200) },
-  { route: 'DELETE /api/labs/:id/attachments/:aid', send: (t, c, s) => call(t, 'delete', `/api/labs/${s.labA}/attachments/${s.attachmentA}`, c), expect: manageA(204) },
+  { route: 'GET /api/labs/:id/attachments/:attachmentId', send: (t, c, s) => call(t, 'get', `/api/labs/${s.labA}/attachments/${s.attachmentA}`, c), expect: viewLabA(200) },
+  { route: 'DELETE /api/labs/:id/attachments/:attachmentId', send: (t, c, s) => call(t, 'delete', `/api/labs/${s.labA}/attachments/${s.attachmentA}`, c), expect: manageA(204) },
 
   // Submissions, one in each class.
   ...submissionRows('class A', (s) => s.submissionA, reviewSubmissionA),
@@ -401,6 +420,12 @@ describe('access-control matrix', () => {
   it(`covers ${ROWS.length} routes × ${CALLERS.length} callers`, () => {
     expect(cases).toHaveLength(ROWS.length * CALLERS.length);
     expect(new Set(ROWS.map((r) => r.route)).size).toBe(ROWS.length);
+  });
+
+  it('has a row for every route the app serves', () => {
+    const served = listRoutes(t.server.listeners('request')[0] as Express).map((r) => `${r.method} ${r.path}`);
+    const covered = (route: string) => ROWS.some((row) => row.route === route || row.route.startsWith(`${route} (`));
+    expect([...new Set(served)].filter((route) => !covered(route)), 'routes without a row in the matrix').toEqual([]);
   });
 
   it.each(cases.map((c) => [c.row.route, c.caller, c.status, c] as const))('%s as %s answers %i', async (_route, caller, status, c) => {

@@ -107,6 +107,17 @@ describe('the per-address limit', () => {
     }
   });
 
+  it('gives a burst of wrong passwords sent at once no more failures than the limit', async () => {
+    const burst = await createTestApp({ AUTH_RATE_LIMIT: '3' });
+    try {
+      const statuses = await Promise.all(Array.from({ length: 12 }, (_, i) => attempt(burst, `sprayed${i}@test.example`, 'Summer2026!').then((r) => r.status)));
+      expect(statuses.filter((s) => s === 401)).toHaveLength(3);
+      expect(statuses.filter((s) => s === 429)).toHaveLength(9);
+    } finally {
+      await burst.close();
+    }
+  });
+
   it('refuses an address after AUTH_RATE_LIMIT failures on any accounts, for the rest of 15 minutes', async () => {
     const sprayed = await createTestApp({ AUTH_RATE_LIMIT: '3' });
     try {

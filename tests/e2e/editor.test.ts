@@ -74,9 +74,9 @@ describe('the rung editor in a real browser', () => {
     await page.getByTestId('safety-caution').waitFor();
     await page.screenshot({ path: `${SHOTS}/workbench-empty.png` });
     // The panel's devices as tags (S1 = %IX1, S2 = %IX2, K1 = %QX1 …).
-    await page.locator('.n-tabs-tab', { hasText: 'Tags' }).click();
+    await page.getByRole('tab', { name: 'Tags' }).click();
     await page.getByRole('button', { name: /Add panel devices/ }).click();
-    await page.locator('.n-tabs-tab', { hasText: 'Inspector' }).click();
+    await page.getByRole('tab', { name: 'Inspector' }).click();
 
     // Rung 1 by mouse: stop, start, coil, then a branch below the start button for the seal-in.
     await dragFromPalette(page, 'contact:no', await slotPoint(page, shape([[]]), 0, [], 0));

@@ -269,7 +269,9 @@ describe('a student\'s lab session', () => {
       dialogs.push(d.type());
       void d.accept();
     });
-    await page.mouse.click(start.x, start.y);
+    // A click that waits until nothing lies over the rungs (the sheet's mask fades out after Escape).
+    const canvasBox = (await page.getByTestId('rung-canvas').boundingBox())!;
+    await page.getByTestId('rung-canvas').click({ position: { x: start.x - canvasBox.x, y: start.y - canvasBox.y } });
     await page.keyboard.press('t');
     await expect.poll(() => page.getByTestId('save-status').innerText()).toMatch(/Unsaved changes/);
     await expect.poll(() => page.getByTestId('draft-status').innerText(), { timeout: 10_000 }).toMatch(/draft kept/);

@@ -59,7 +59,7 @@ async function coilBox(page: Page, program: Program): Promise<{ coil: Box; canva
 /** S2, K1, M1 and the coil all inside the window and inside the parts of the page that show them. */
 async function expectAllInView(page: Page, program: Program, viewport: { width: number; height: number }): Promise<void> {
   const shown = { x: 0, y: 0, ...viewport };
-  const pane = await boxOf(page.locator('[data-testid="dock-tabs"] .n-tab-pane:visible'));
+  const pane = await boxOf(page.getByTestId('dock-tabs').getByRole('tabpanel'));
   const devices = Object.fromEntries(await Promise.all(['S2', 'K1', 'M1'].map(async (id) => [id, await boxOf(page.locator(`[data-device="${id}"]`))] as const)));
   const { coil, canvas } = await coilBox(page, program);
   const outside = [
@@ -69,7 +69,7 @@ async function expectAllInView(page: Page, program: Program, viewport: { width: 
   expect(outside).toEqual([]);
   // Without scrolling: neither the page, the dock's pane nor the canvas has moved.
   expect(await page.evaluate(() => [window.scrollX, window.scrollY])).toEqual([0, 0]);
-  expect(await page.locator('[data-testid="dock-tabs"] .n-tab-pane:visible').evaluate((el) => el.scrollTop)).toBe(0);
+  expect(await page.getByTestId('dock-tabs').getByRole('tabpanel').evaluate((el) => el.scrollTop)).toBe(0);
   expect(await page.getByTestId('rung-canvas').evaluate((el) => [el.scrollLeft, el.scrollTop])).toEqual([0, 0]);
 }
 
@@ -198,8 +198,8 @@ describe('the panel and the rungs together (journey 2)', () => {
     // With the brief open the dock is at its narrowest.
     const fold = page.getByTestId('brief-toggle');
     if ((await fold.getAttribute('aria-expanded')) === 'false') await fold.click();
-    await page.locator('[data-testid="dock-tabs"] .n-tabs-tab', { hasText: 'I/O' }).click();
-    const pane = await boxOf(page.locator('[data-testid="dock-tabs"] .n-tab-pane:visible'));
+    await page.getByRole('tab', { name: 'I/O' }).click();
+    const pane = await boxOf(page.getByTestId('dock-tabs').getByRole('tabpanel'));
     for (const table of ['table.inputs', 'table.outputs']) {
       const box = await boxOf(page.locator(table));
       expect(box.x + box.width, table).toBeLessThanOrEqual(pane.x + pane.width + 0.5);
@@ -207,8 +207,8 @@ describe('the panel and the rungs together (journey 2)', () => {
       expect(clipped, table).toBe(0);
     }
     await page.screenshot({ path: `${SHOTS}/journey-io-1280.png` });
-    await page.locator('[data-testid="dock-tabs"] .n-tabs-tab', { hasText: 'Tags' }).click();
-    const tagsPane = await boxOf(page.locator('[data-testid="dock-tabs"] .n-tab-pane:visible'));
+    await page.getByRole('tab', { name: 'Tags' }).click();
+    const tagsPane = await boxOf(page.getByTestId('dock-tabs').getByRole('tabpanel'));
     const fields = await page.locator('.tags input').evaluateAll((inputs) => inputs.map((i) => i.getBoundingClientRect()).map((r) => ({ x: r.x, y: r.y, width: r.width, height: r.height })));
     expect(fields.length).toBeGreaterThan(10);
     expect(fields.filter((f) => f.x + f.width > tagsPane.x + tagsPane.width + 0.5 || f.width < 40)).toEqual([]);
@@ -230,7 +230,7 @@ describe('the panel and the rungs together (journey 2)', () => {
       await expect.poll(() => reset.getAttribute('class')).toMatch(/\bmain\b/);
       await page.screenshot({ path: `${SHOTS}/journey-latched-tripped-${scheme}.png` });
       await expectAccessible(page, `lab with the e-stop latched and F1 tripped (${scheme})`);
-      await page.locator('[data-testid="dock-tabs"] .n-tabs-tab', { hasText: 'I/O' }).click();
+      await page.getByRole('tab', { name: 'I/O' }).click();
       await expectAccessible(page, `lab's I/O tab with the e-stop latched (${scheme})`);
       await context.close();
     });

@@ -109,22 +109,22 @@ function writeOutputs(s: DemoState): void {
   for (let i = 0; i < Q.length; i += 1) outputImage[i] = Q[i]!;
 }
 
-/** Conveyor: forward and reverse sealed in, each blocked by the other; red lamp at rest. */
+/** Conveyor: forward and reverse sealed in on their auxiliary contacts, each blocked by the other's command; red lamp while neither contactor is closed. */
 function conveyorScan(s: DemoState, field: readonly boolean[]): void {
   readInputs(s, field);
   const { I, Q } = s;
-  Q[0] = I[0]! & (I[1]! | Q[0]!) & (Q[1]! ^ 1);
-  Q[1] = I[0]! & (I[2]! | Q[1]!) & (Q[0]! ^ 1);
-  Q[4] = (Q[0]! ^ 1) & (Q[1]! ^ 1);
+  Q[0] = I[0]! & (I[1]! | I[6]!) & (Q[1]! ^ 1);
+  Q[1] = I[0]! & (I[2]! | I[7]!) & (Q[0]! ^ 1);
+  Q[4] = (I[6]! ^ 1) & (I[7]! ^ 1);
   writeOutputs(s);
 }
 
-/** Three-wire: stop, start or sealed in at RUN, interlock; lamps; 5 s jam timer and horn. */
+/** Three-wire: stop, start or sealed in on the auxiliary contact at RUN, interlock; lamps; 5 s jam timer and horn. */
 function threeWireScan(s: DemoState, field: readonly boolean[], dt: number): void {
   readInputs(s, field);
   const { I, Q, BQ, BN } = s;
-  Q[0] = I[0]! & (I[1]! | (Q[0]! & I[3]!)) & (Q[1]! ^ 1);
-  Q[1] = I[0]! & (I[2]! | (Q[1]! & I[3]!)) & (Q[0]! ^ 1);
+  Q[0] = I[0]! & (I[1]! | (I[6]! & I[3]!)) & (Q[1]! ^ 1);
+  Q[1] = I[0]! & (I[2]! | (I[7]! & I[3]!)) & (Q[0]! ^ 1);
   Q[3] = I[6]! | I[7]!;
   Q[4] = (I[6]! ^ 1) & (I[7]! ^ 1);
   Q[5] = I[5]!;

@@ -5,8 +5,8 @@
  * production Content Security Policy, so the engine compiles its WebAssembly exactly as it does in
  * the workbench.
  */
-import { compile, createRuntime } from '@shared/engine';
-import { caseProgram, caseSpecs, prepareCase, SCAN_MS, type BaselineModule, type PreparedCase } from './engine-cases';
+import { createRuntime, type Plan } from '@shared/engine';
+import { caseProgram, caseSpecs, planFor, prepareCase, SCAN_MS, type BaselineModule, type PreparedCase } from './engine-cases';
 import { checkAgreement } from './engine-measure';
 
 export interface EnginePageApi {
@@ -25,7 +25,7 @@ export interface EnginePageApi {
 
 export function installEngineBench(modules: Readonly<Record<string, BaselineModule>>): void {
   let loaded: ReturnType<typeof caseProgram> | null = null;
-  let plan: Extract<ReturnType<typeof compile>, { ok: true }>['plan'] | null = null;
+  let plan: Plan | null = null;
   let started: ReturnType<typeof createRuntime> | null = null;
   let prepared: PreparedCase | null = null;
   const spec = (id: string) => {
@@ -38,9 +38,7 @@ export function installEngineBench(modules: Readonly<Record<string, BaselineModu
       loaded = caseProgram(spec(id));
     },
     compile() {
-      const result = compile(loaded!.program, { space: loaded!.space });
-      if (!result.ok) throw new Error(`the case does not compile: ${result.diagnostics[0]?.message}`);
-      plan = result.plan;
+      plan = planFor(loaded!.program, loaded!.space);
       return plan.elementCount;
     },
     createRuntime() {

@@ -1,7 +1,7 @@
 /**
  * `npm run bench -- engine`: the scan engine against hand-written baselines of the same logic
  * (typed arrays, bitwise operators: see engine-demo.ts and engine-programs.ts), on the demos and
- * on generated programs of 10 to 10,000 rungs in two shapes, in this Node process; then the same
+ * on generated programs of 10 to 5,000 rungs in two shapes, in this Node process; then the same
  * cases in Chromium under the production Content Security Policy (engine-page.ts).
  *
  * Per case: engine and baseline must agree on the whole memory (inputs, outputs, memory bits, edge

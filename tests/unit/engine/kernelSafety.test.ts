@@ -163,10 +163,12 @@ describe('the size bound of a module', () => {
 
   it('refuses to compile a program past it, with a message', () => {
     const b = programBuilder();
-    // 5,000 rungs of 21 contacts, an up/down counter and a coil: about 12 MB of WebAssembly.
-    const rung = (i: number) => b.rung(...Array.from({ length: 21 }, () => b.no('%IX1')), b.block('CTUD', `C${i}`, { PV: '3', CD: '%IX2', R: '%IX3', LD: '%IX4' }), b.coil('%MX1'));
-    const result = compile(b.program(Array.from({ length: 5000 }, (_, i) => rung(i))));
+    // Within the document's size limits (100 rungs of 200 nodes: the root series and 199 up/down
+    // counters, 20,000 nodes), yet well past 8 MB of WebAssembly.
+    let n = 0;
+    const rung = () => b.rung(...Array.from({ length: 199 }, () => b.block('CTUD', `C${n++}`, { PV: '3', CD: '%IX2', R: '%IX3', LD: '%IX4' })));
+    const result = compile(b.program(Array.from({ length: 100 }, () => rung())));
     expect(result.ok).toBe(false);
-    expect(result.diagnostics.at(-1)!.message).toMatch(/too large to run: 115000 elements in 5000 rungs/);
+    expect(result.diagnostics.at(-1)!.message).toMatch(/too large to run: 19900 elements in 100 rungs/);
   }, 60_000);
 });

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { compile } from '@shared/engine';
-import { DOCUMENT_LIMITS, isParsedProgram } from '@shared/engine/wellFormed';
+import { SCHEMA_LIMITS, isParsedProgram } from '@shared/engine/wellFormed';
+import { DOCUMENT_LIMITS } from '@shared/ladder/schema';
 import { createEmptyProgram, parseProgram } from '@shared/ladder/restore';
 import type { Program } from '@shared/ladder/schema';
 import { benchProgram } from '../../perf/engine-programs';
@@ -98,20 +99,47 @@ describe('isParsedProgram', () => {
     };
     const rung = (items: Program['rungs'][number]['network']['items']): Program['rungs'][number] => ({ id: 'r', comment: '', network: { kind: 'series', id: 's', items } });
     const one = (node: Program['rungs'][number]['network']['items'][number]): Program => b.program([rung([node])]);
-    at(DOCUMENT_LIMITS.id, (n) => one({ kind: 'contact', id: 'a'.repeat(n), variant: 'no', operand: '' }));
-    at(DOCUMENT_LIMITS.operand, (n) => one({ kind: 'contact', id: 'c', variant: 'no', operand: 'a'.repeat(n) }));
-    at(DOCUMENT_LIMITS.elementComment, (n) => one({ kind: 'coil', id: 'c', variant: 'set', operand: '', comment: 'a'.repeat(n) }));
-    at(DOCUMENT_LIMITS.instance, (n) => one({ kind: 'block', id: 'c', type: 'TON', instance: 'a'.repeat(n), inputs: {} }));
-    at(DOCUMENT_LIMITS.seriesItems, (n) => b.program([rung(Array.from({ length: n }, (_, i) => ({ kind: 'contact', id: `c${i}`, variant: 'no', operand: '' })))]));
-    at(DOCUMENT_LIMITS.parallelBranches, (n) => one({ kind: 'parallel', id: 'p', branches: Array.from({ length: n }, (_, i) => ({ kind: 'contact', id: `c${i}`, variant: 'no', operand: '' })) }));
-    at(DOCUMENT_LIMITS.rungComment, (n) => b.program([{ ...rung([]), comment: 'a'.repeat(n) }]));
-    at(DOCUMENT_LIMITS.tagName, (n) => ({ ...b.program([]), tags: [{ name: 'a'.repeat(n), address: '%IX1', comment: '' }] }));
-    at(DOCUMENT_LIMITS.tagAddress, (n) => ({ ...b.program([]), tags: [{ name: 'a', address: '%'.repeat(n), comment: '' }] }));
-    at(DOCUMENT_LIMITS.tagComment, (n) => ({ ...b.program([]), tags: [{ name: 'a', address: '', comment: 'a'.repeat(n) }] }));
-    at(DOCUMENT_LIMITS.tags, (n) => ({ ...b.program([]), tags: Array.from({ length: n }, (_, i) => ({ name: `t${i}`, address: '', comment: '' })) }));
-    at(DOCUMENT_LIMITS.title, (n) => ({ ...b.program([]), title: 'a'.repeat(n) }));
-    at(DOCUMENT_LIMITS.description, (n) => ({ ...b.program([]), description: 'a'.repeat(n) }));
-    at(DOCUMENT_LIMITS.rungs, (n) => b.program(Array.from({ length: n }, (_, i) => ({ id: `r${i}`, comment: '', network: { kind: 'series', id: `s${i}`, items: [] } }))));
+    at(SCHEMA_LIMITS.id, (n) => one({ kind: 'contact', id: 'a'.repeat(n), variant: 'no', operand: '' }));
+    at(SCHEMA_LIMITS.operand, (n) => one({ kind: 'contact', id: 'c', variant: 'no', operand: 'a'.repeat(n) }));
+    at(SCHEMA_LIMITS.elementComment, (n) => one({ kind: 'coil', id: 'c', variant: 'set', operand: '', comment: 'a'.repeat(n) }));
+    at(SCHEMA_LIMITS.instance, (n) => one({ kind: 'block', id: 'c', type: 'TON', instance: 'a'.repeat(n), inputs: {} }));
+    at(SCHEMA_LIMITS.seriesItems, (n) => b.program([rung(Array.from({ length: n }, (_, i) => ({ kind: 'contact', id: `c${i}`, variant: 'no', operand: '' })))]));
+    at(SCHEMA_LIMITS.parallelBranches, (n) => one({ kind: 'parallel', id: 'p', branches: Array.from({ length: n }, (_, i) => ({ kind: 'contact', id: `c${i}`, variant: 'no', operand: '' })) }));
+    at(SCHEMA_LIMITS.rungComment, (n) => b.program([{ ...rung([]), comment: 'a'.repeat(n) }]));
+    at(SCHEMA_LIMITS.tagName, (n) => ({ ...b.program([]), tags: [{ name: 'a'.repeat(n), address: '%IX1', comment: '' }] }));
+    at(SCHEMA_LIMITS.tagAddress, (n) => ({ ...b.program([]), tags: [{ name: 'a', address: '%'.repeat(n), comment: '' }] }));
+    at(SCHEMA_LIMITS.tagComment, (n) => ({ ...b.program([]), tags: [{ name: 'a', address: '', comment: 'a'.repeat(n) }] }));
+    at(SCHEMA_LIMITS.tags, (n) => ({ ...b.program([]), tags: Array.from({ length: n }, (_, i) => ({ name: `t${i}`, address: '', comment: '' })) }));
+    at(SCHEMA_LIMITS.title, (n) => ({ ...b.program([]), title: 'a'.repeat(n) }));
+    at(SCHEMA_LIMITS.description, (n) => ({ ...b.program([]), description: 'a'.repeat(n) }));
+    at(SCHEMA_LIMITS.rungs, (n) => b.program(Array.from({ length: n }, (_, i) => ({ id: `r${i}`, comment: '', network: { kind: 'series', id: `s${i}`, items: [] } }))));
+  });
+
+  it('holds the size limits parseProgram checks first: depth, nodes per program, no NUL', () => {
+    const b = programBuilder();
+    const at = (limit: number, make: (n: number) => Program): void => {
+      expect([isParsedProgram(make(limit)), parseProgram(make(limit)).ok]).toEqual([true, true]);
+      expect([isParsedProgram(make(limit + 1)), parseProgram(make(limit + 1)).ok]).toEqual([false, false]);
+    };
+    type Node = Program['rungs'][number]['network']['items'][number];
+    // `levels` series and parallel nodes nested in one another, the rung's root series the first.
+    const nested = (levels: number): Program => {
+      let node: Node = { kind: 'contact', id: 'c', variant: 'no', operand: '' };
+      for (let level = levels; level >= 2; level -= 1) node = level % 2 === 0 ? { kind: 'parallel', id: `n${level}`, branches: [node] } : { kind: 'series', id: `n${level}`, items: [node] };
+      return b.program([{ id: 'r', comment: '', network: { kind: 'series', id: 's', items: [node] } }]);
+    };
+    at(DOCUMENT_LIMITS.depth, nested);
+    // 100 rungs of 200 nodes (the root series and 199 contacts) are the 20,000; one more contact passes it.
+    const perRung = DOCUMENT_LIMITS.nodesPerProgram / 100;
+    const many = (total: number): Program =>
+      b.program(
+        Array.from({ length: 100 }, (_, r) => {
+          const contacts = perRung - 1 + (r === 99 ? total - DOCUMENT_LIMITS.nodesPerProgram : 0);
+          return { id: `r${r}`, comment: '', network: { kind: 'series', id: `s${r}`, items: Array.from({ length: contacts }, (_, i): Node => ({ kind: 'contact', id: `c${r}_${i}`, variant: 'no', operand: '' })) } };
+        }),
+      );
+    at(DOCUMENT_LIMITS.nodesPerProgram, many);
+    expect(isParsedProgram({ ...b.program([]), title: 'a\u0000b' })).toBe(false);
   });
 
   it('leaves a document it refuses to the schema, whose message compile passes on', () => {
