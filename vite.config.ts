@@ -46,6 +46,28 @@ const alias = {
 };
 const apiPort = Number(process.env.API_PORT ?? 3001);
 
+/**
+ * The API tests run twice: on PGlite (`api`) and on a PostgreSQL server (`api-pg`), with the
+ * PostgreSQL-only tests of `tests/api/postgres/`. `api-pg` needs a cluster, named by
+ * RUNGWRIGHT_TEST_DATABASE_URL (`.ci/run` starts a throwaway one and always sets it); without it
+ * the project is left out, and says so, so `npm test` still runs on a machine without PostgreSQL.
+ */
+const testDatabaseUrl = process.env.RUNGWRIGHT_TEST_DATABASE_URL;
+/** Files that test the embedded database's own machinery (DATA_DIR lock, PGlite durability, row caches). */
+const PGLITE_ONLY = ['tests/api/dataDirLock.test.ts', 'tests/api/dataDirLockRace.test.ts', 'tests/api/serverLockRace.test.ts', 'tests/api/durability.test.ts', 'tests/api/dbCaches.test.ts', 'tests/api/createAdmin.test.ts', 'tests/api/gradingPool.test.ts'];
+const apiTest = { environment: 'node' as const, testTimeout: 20_000, hookTimeout: 30_000 };
+const apiPgProject = testDatabaseUrl
+  ? [
+      {
+        extends: true as const,
+        test: { ...apiTest, name: 'api-pg', include: ['tests/api/**/*.test.ts'], exclude: PGLITE_ONLY, globalSetup: ['tests/api/globalSetupPg.ts'], testTimeout: 120_000 },
+      },
+    ]
+  : [];
+if (!testDatabaseUrl && process.env.VITEST) {
+  console.warn('vitest: the api-pg project is left out: RUNGWRIGHT_TEST_DATABASE_URL is not set (`.ci/run` starts a PostgreSQL cluster and sets it).');
+}
+
 export default defineConfig({
   plugins: [vue(), preloadFonts(), vueKonvaOnCore()],
   resolve: { alias },
@@ -73,15 +95,9 @@ export default defineConfig({
       },
       {
         extends: true,
-        test: {
-          name: 'api',
-          include: ['tests/api/**/*.test.ts'],
-          environment: 'node',
-          globalSetup: ['tests/api/globalSetup.ts'],
-          testTimeout: 20_000,
-          hookTimeout: 30_000,
-        },
+        test: { ...apiTest, name: 'api', include: ['tests/api/**/*.test.ts'], exclude: ['tests/api/postgres/**'], globalSetup: ['tests/api/globalSetup.ts'] },
       },
+      ...apiPgProject,
       {
         extends: true,
         test: {

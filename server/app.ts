@@ -30,6 +30,7 @@ import { authenticate } from './http/authenticate';
 import { requireJsonBody } from './http/reply';
 import { trustProxySetting } from './http/trustProxy';
 import { createGradingPool, type DocumentWork, type Grader } from './grading/pool';
+import type { JobQueue } from './jobs/jobQueue';
 import { refuseDeepJson, refuseNulCharacters } from './http/bodyGuards';
 import { expensiveCallLimits } from './http/userLimits';
 import { labsRouter } from './routes/labs';
@@ -56,6 +57,8 @@ export interface AppDependencies {
   grader?: Grader;
   /** Exports and imports program files; defaults to `grader` when it is a pool, else a pool of its own. */
   documents?: DocumentWork;
+  /** Submissions go to this queue (a shared PostgreSQL database) instead of `grader`. */
+  jobQueue?: JobQueue;
 }
 
 /** Builds the app: security headers, logging, the API under `/api`, then the client. */
@@ -75,7 +78,8 @@ export function createApp(deps: AppDependencies): Express {
     passwordParams: deps.passwordParams ?? DEFAULT_SCRYPT,
     grader,
     documents,
-    backup: deps.db.driver === 'pglite' ? () => deps.db.dump() : null,
+    backup: deps.db.dump ?? null,
+    jobQueue: deps.jobQueue,
   };
 
   const app = express();

@@ -1,6 +1,7 @@
 /**
  * `npm run cli -- …`: batch grading and program checks for scripts and CI pipelines, and
- * `create-admin` for a real install's first administrator. See `server/cli/args.ts` and
+ * `create-admin` for a real install's first administrator, `export-db` to move the embedded
+ * database to a PostgreSQL server. See `server/cli/args.ts` and
  * `server/cli/createAdmin.ts` for the usage texts.
  */
 import { cliMain } from './cli/main';
@@ -13,6 +14,11 @@ if (argv[0] === 'create-admin') {
   const { systemClock } = await import('./clock');
   const io = processIO();
   process.exitCode = await createAdmin(argv.slice(1), { env: process.env, readStdin: readPipedStdin, stdout: io.stdout, stderr: io.stderr, clock: systemClock });
+} else if (argv[0] === 'export-db') {
+  const { exportDb } = await import('./cli/exportDb');
+  const { systemClock } = await import('./clock');
+  const io = processIO();
+  process.exitCode = await exportDb(argv.slice(1), { env: process.env, stdout: io.stdout, stderr: io.stderr, clock: systemClock });
 } else {
   process.exitCode = cliMain(argv, processIO());
 }

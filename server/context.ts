@@ -2,14 +2,15 @@
 import type { Logger } from 'pino';
 import type { Config } from './config';
 import type { Clock } from './clock';
-import type { Db } from './db/client';
+import type { DatabaseDriver, Db } from './db/client';
 import type { Mailer } from './mail/mailer';
 import type { ScryptParams } from './auth/passwords';
 import type { DocumentWork, Grader } from './grading/pool';
+import type { JobQueue } from './jobs/jobQueue';
 
 export interface AppContext {
   orm: Db;
-  driver: 'pglite';
+  driver: DatabaseDriver;
   mailer: Mailer;
   clock: Clock;
   config: Config;
@@ -24,4 +25,10 @@ export interface AppContext {
   documents: DocumentWork;
   /** A tar of the whole database (PGlite's dump of its data directory) for the admin's backup; null where the database is elsewhere. */
   backup: (() => Promise<Blob>) | null;
+  /**
+   * On a shared PostgreSQL database: submissions are graded by `npm run worker` processes from this
+   * queue instead of in this process (regrades stay in this process's pool: the instructor waits
+   * for their count). Absent on PGlite.
+   */
+  jobQueue?: JobQueue;
 }

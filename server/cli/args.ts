@@ -21,6 +21,7 @@ Usage:
   npm run cli -- st --program P
   npm run cli -- prove --program P --properties F [--panel L] [--max-states N]
   npm run cli -- create-admin --email E [--name N] [--link]   (password piped on standard input)
+  npm run cli -- export-db --to postgres://…
   npm run cli -- --help
 
 check     Grade a program with a check script; prints the grade report as JSON.
@@ -33,6 +34,9 @@ prove     Explore every behaviour of the program on the panel from power-up and 
 create-admin
           Create an administrator in DATA_DIR's database (stop the server first); see
           npm run cli -- create-admin --help. Exit 0 done, 1 a server holds DATA_DIR, 2 bad input.
+
+export-db Copy DATA_DIR's database into an empty PostgreSQL database and check it row for row
+          (stop the server first); see npm run cli -- export-db --help.
 
 Exit codes (check, validate, st):
   0  all good: every check passes, no errors

@@ -122,7 +122,6 @@ export async function createAdmin(argv: readonly string[], deps: CreateAdminDeps
   const configResult = readConfig(deps.env);
   if (!configResult.ok) return bad(configResult.error);
   const config = configResult.config;
-  if (config.DATABASE_URL) return bad('DATABASE_URL is set, but the PostgreSQL driver is not available yet; unset it to use the database in DATA_DIR.');
 
   let password: string | null = null;
   if (!request.link) {
@@ -133,17 +132,21 @@ export async function createAdmin(argv: readonly string[], deps: CreateAdminDeps
     password = read.password;
   }
 
-  const lock = acquireDataDirLock(config.DATA_DIR, deps.clock.now(), 'command');
-  if (!lock.ok) {
+  // A PostgreSQL server is shared and locks its own rows; the embedded database needs DATA_DIR to itself.
+  const lock = config.DATABASE_URL ? null : acquireDataDirLock(config.DATA_DIR, deps.clock.now(), 'command');
+  if (lock && !lock.ok) {
     deps.stderr(`Not creating the administrator: ${lock.error}\n`);
     return EXIT_CANNOT_RUN;
   }
+  const release = () => (lock?.ok ? lock.lock.release() : undefined);
   let database: Database | null = null;
   try {
-    database = await openDatabase({ kind: 'directory', dataDir: config.DATA_DIR });
+    database = config.DATABASE_URL
+      ? await openDatabase({ kind: 'postgres', url: config.DATABASE_URL, poolSize: 2 })
+      : await openDatabase({ kind: 'directory', dataDir: config.DATA_DIR });
   } catch (error) {
-    lock.lock.release();
-    deps.stderr(`Cannot open the database in ${config.DATA_DIR}: ${error instanceof Error ? error.message : String(error)}\n`);
+    release();
+    deps.stderr(`Cannot open the database ${config.DATABASE_URL ? 'at DATABASE_URL' : `in ${config.DATA_DIR}`}: ${error instanceof Error ? error.message : String(error)}\n`);
     return EXIT_CANNOT_RUN;
   }
   try {
@@ -156,7 +159,7 @@ export async function createAdmin(argv: readonly string[], deps: CreateAdminDeps
     return EXIT_CANNOT_RUN;
   } finally {
     await database.close();
-    lock.lock.release();
+    release();
   }
 }
 

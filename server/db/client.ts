@@ -1,6 +1,6 @@
 /**
- * Opens the database. The only file that knows the database is PGlite: everything else sees a
- * Drizzle `Db` over pg-core, so a node-postgres client can slot in here when DATABASE_URL is set.
+ * Opens the database: PGlite in DATA_DIR (the default), or a PostgreSQL server through node-postgres
+ * when DATABASE_URL is set (`postgres.ts`). Everything else sees a Drizzle `Db` over pg-core.
  */
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
@@ -12,6 +12,7 @@ import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import type { SQL } from 'drizzle-orm';
 import * as schema from './schema';
 import { enableRowCaches } from './rowCache';
+import { createPool, drizzleOnPool, migratePostgres, withSchemaLock } from './postgres';
 
 /** The Drizzle handle every db-layer function takes; driver-agnostic on purpose. */
 export type Db = PgDatabase<PgQueryResultHKT, typeof schema>;
@@ -29,15 +30,27 @@ export async function executeRows<Row extends Record<string, unknown>>(db: Db, q
 export type DatabaseSource =
   | { kind: 'directory'; dataDir: string }
   | { kind: 'memory' }
-  | { kind: 'dump'; dump: Blob };
+  | { kind: 'dump'; dump: Blob }
+  /** A PostgreSQL server shared with other processes (`DATABASE_URL`). */
+  | { kind: 'postgres'; url: string; poolSize?: number; onPoolError?: (err: Error) => void };
+
+/** Which engine a `Database` runs on (`/api/health` reports it). */
+export type DatabaseDriver = 'pglite' | 'postgres';
 
 /** An open database: the Drizzle handle plus the driver-specific operations the server needs. */
 export interface Database {
   orm: Db;
-  /** Reported by `/api/health`. */
-  driver: 'pglite';
-  /** A tar dump of the whole database (tests build one template and copy it per file). */
-  dump(): Promise<Blob>;
+  /** Reported by `/api/health`; `postgres` means other processes may share the database. */
+  driver: DatabaseDriver;
+  /** PGlite only: a tar dump of the whole database (tests build one template and copy it per file). */
+  dump?: () => Promise<Blob>;
+  /**
+   * Runs `work` once at a time across every process on this database (first-start seeding): under
+   * the PostgreSQL advisory lock of the migrations, or at once on PGlite (DATA_DIR is locked).
+   */
+  exclusively<T>(work: () => Promise<T>): Promise<T>;
+  /** PostgreSQL only: the connection string, for the grading queue (pg-boss keeps a pool of its own). */
+  url?: string;
   close(): Promise<void>;
 }
 
@@ -54,6 +67,7 @@ export function pgliteDirectory(dataDir: string): string {
  * never migrate beside a running server: PGlite has no lock of its own).
  */
 export async function openDatabase(source: DatabaseSource, options: { migrate?: boolean } = {}): Promise<Database> {
+  if (source.kind === 'postgres') return openPostgres(source, options);
   const client = await createClient(source);
   const db = drizzle({ client, schema }) as unknown as Db;
   if (options.migrate ?? true) {
@@ -65,11 +79,31 @@ export async function openDatabase(source: DatabaseSource, options: { migrate?: 
     orm: db,
     driver: 'pglite',
     dump: () => client.dumpDataDir('none'),
+    exclusively: (work) => work(),
     close: () => client.close(),
   };
 }
 
-async function createClient(source: DatabaseSource): Promise<PGlite> {
+/** A PostgreSQL server: a pool, migrations under the advisory lock, and no row caches. */
+async function openPostgres(source: Extract<DatabaseSource, { kind: 'postgres' }>, options: { migrate?: boolean }): Promise<Database> {
+  const pool = createPool({ url: source.url, poolSize: source.poolSize, onPoolError: source.onPoolError });
+  try {
+    if (options.migrate ?? true) await migratePostgres(pool, MIGRATIONS_FOLDER);
+    else await pool.query('select 1');
+  } catch (err) {
+    await pool.end();
+    throw err;
+  }
+  return {
+    orm: drizzleOnPool(pool) as unknown as Db,
+    driver: 'postgres',
+    exclusively: (work) => withSchemaLock(pool, work),
+    url: source.url,
+    close: () => pool.end(),
+  };
+}
+
+async function createClient(source: Exclude<DatabaseSource, { kind: 'postgres' }>): Promise<PGlite> {
   switch (source.kind) {
     case 'directory': {
       const dir = pgliteDirectory(source.dataDir);

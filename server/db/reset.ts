@@ -17,7 +17,12 @@ if (!configResult.ok) {
   console.error(configResult.error);
   process.exit(1);
 }
-const { DATA_DIR, DEMO } = configResult.config;
+const { DATA_DIR, DATABASE_URL, DEMO } = configResult.config;
+if (DATABASE_URL) {
+  // A shared database is never wiped by a convenience script: that is the database owner's call.
+  console.error('Not resetting: DATABASE_URL is set. db:reset wipes only the embedded database in DATA_DIR; unset DATABASE_URL (or drop and recreate the PostgreSQL database yourself).');
+  process.exit(1);
+}
 const lock = acquireDataDirLock(DATA_DIR, systemClock.now(), 'command');
 if (!lock.ok) {
   console.error(`Not resetting: ${lock.error}`);

@@ -1,5 +1,5 @@
 /** Submissions and their grade history as plain objects. */
-import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from './client';
 import { rowCachesOf } from './rowCache';
 import { findProgram, findVersion } from './programs';
@@ -104,4 +104,19 @@ export async function insertGradeHistory(db: Db, h: typeof gradeHistory.$inferIn
 /** The reports a submission had before, newest first. */
 export async function listGradeHistory(db: Db, submissionId: string): Promise<GradeHistoryRecord[]> {
   return db.select().from(gradeHistory).where(eq(gradeHistory.submissionId, submissionId)).orderBy(desc(gradeHistory.replacedAt), desc(gradeHistory.id));
+}
+
+/**
+ * Writes a queued submission's grade only while it still waits for one (`submitted`, never graded):
+ * a job delivered twice (its first worker presumed dead) changes the row once. Answers whether
+ * this call wrote it.
+ */
+export async function recordQueuedGrade(db: Db, id: string, grade: { report: unknown; gradingNote: string | null; autoScore: number; gradedAt: Date }): Promise<boolean> {
+  const rows = await db
+    .update(submissions)
+    // An instructor may have overridden the score while the job waited: the override stands.
+    .set({ ...grade, score: sql`coalesce(${submissions.overrideScore}, ${grade.autoScore})`, status: 'graded' })
+    .where(and(eq(submissions.id, id), eq(submissions.status, 'submitted'), isNull(submissions.gradedAt)))
+    .returning({ id: submissions.id });
+  return rows.length === 1;
 }

@@ -37,8 +37,8 @@ export function autoScoreOf(report: GradeReport | null, totalPoints: number, pen
   return round2(fraction * totalPoints * (1 - penaltyPercent / 100));
 }
 
-/** Runs the lab's script on `document` in the worker pool. */
-export async function gradeOnLab(ctx: AppContext, lab: LabRecord, document: unknown): Promise<Outcome<GradeOutcome>> {
+/** Runs the lab's script on `document` in the worker pool (the app's, or a queue worker's). */
+export async function gradeOnLab(ctx: Pick<AppContext, 'grader'>, lab: LabRecord, document: unknown): Promise<Outcome<GradeOutcome>> {
   const run = labRun(lab.panel as LabPanel, lab.checkScript);
   if (!run.ok && run.part === 'panel') return failure('conflict', `The lab's panel is not valid any more: ${run.failure.message}`);
   if (!run.ok) return failure('conflict', `The lab's check script does not run on its panel: ${run.failure.message}`);

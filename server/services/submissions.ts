@@ -52,6 +52,32 @@ export async function submit(ctx: AppContext, actor: User, labId: string, ref: P
   const submittedAt = ctx.clock.now();
   const standing = lateStanding(lab, submittedAt);
   if (standing.refused) return failure('conflict', `The due date (${iso(lab.dueAt!)}) has passed and this lab takes no late submissions`);
+  if (ctx.jobQueue) {
+    // A shared database: stored as `submitted` with its job in one transaction; a `npm run worker`
+    // grades it, and the student's page follows the status until it reads `graded`.
+    const queue = ctx.jobQueue;
+    const stored = await ctx.orm.transaction(async (tx) => {
+      const row = await db.insertGradedSubmission(tx, {
+        labId,
+        studentId: actor.id,
+        programId: ref.programId,
+        versionNumber: version.number,
+        document: version.document,
+        status: 'submitted',
+        late: standing.late,
+        penaltyPercent: standing.penaltyPercent,
+        report: null,
+        gradingNote: null,
+        autoScore: null,
+        score: null,
+        submittedAt,
+        gradedAt: null,
+      });
+      await queue.enqueueGrading(tx, row.id);
+      return row;
+    });
+    return success(studentSubmissionView(stored, lab.totalPoints));
+  }
   // Graded first, then stored once with its report: one write per submission instead of two. A lab
   // whose script cannot run still takes the submission (status `submitted`), for a regrade later.
   const graded = await gradeOnLab(ctx, lab, version.document);

@@ -19,7 +19,7 @@ export default async function setup(project: TestProject): Promise<() => void> {
   mkdirSync(dir, { recursive: true });
   const file = path.join(dir, `api-template-${process.pid}.tar`);
   const database = await openDatabase({ kind: 'memory' });
-  const dump = await database.dump();
+  const dump = await database.dump!();
   writeFileSync(file, Buffer.from(await dump.arrayBuffer()));
   await database.close();
   project.provide('templateDumpPath', file);

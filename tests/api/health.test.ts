@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiErrorBodySchema } from '@shared/api/errors';
 import { HealthResponseSchema } from '@shared/api/health';
-import { createTestApp, type TestApp } from './helpers/testApp';
+import { createTestApp, onPostgres, type TestApp } from './helpers/testApp';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -15,7 +15,7 @@ describe('GET /api/health', () => {
   it('answers ok with the database driver and the package version', async () => {
     const res = await t.http.get('/api/health');
     expect(res.status).toBe(200);
-    expect(HealthResponseSchema.parse(res.body)).toEqual({ ok: true, db: 'pglite', version: '0.1.0' });
+    expect(HealthResponseSchema.parse(res.body)).toEqual({ ok: true, db: onPostgres() ? 'postgres' : 'pglite', version: '0.1.0' });
   });
 
   it('sends a request id and a content security policy without remote hosts', async () => {

@@ -13,6 +13,7 @@ import { openDatabase, type Database } from '../../../server/db/client';
 import { openMailer } from '../../../server/mail/openMailer';
 import type { Mailer } from '../../../server/mail/mailer';
 import { createLogger } from '../../../server/http/logging';
+import { copyTemplateDatabase } from './postgresDatabases';
 import { createFakeClock, type FakeClock } from './fakeClock';
 import type { ScryptParams } from '../../../server/auth/passwords';
 import { createGradingPool, type Grader } from '../../../server/grading/pool';
@@ -45,8 +46,28 @@ export interface TestAppOptions {
   wrapMailer?: (mailer: Mailer) => Mailer;
 }
 
-/** Loads the template dump written by globalSetup into a new in-memory database. */
+/** True in the `api-pg` project (the API tests on a PostgreSQL server). */
+export function onPostgres(): boolean {
+  return Boolean(inject('pgTemplate'));
+}
+
+/**
+ * A fresh copy of the migrated template: in the `api` project an in-memory PGlite loaded from the
+ * dump globalSetup wrote; in `api-pg` a new PostgreSQL database copied from the template database
+ * (dropped when the returned database is closed).
+ */
 export async function openTemplateDatabase(): Promise<Database> {
+  if (onPostgres()) {
+    const copy = await copyTemplateDatabase(inject('pgAdminUrl'), inject('pgTemplate'));
+    const database = await openDatabase({ kind: 'postgres', url: copy.url, poolSize: 10 }, { migrate: false });
+    return {
+      ...database,
+      async close() {
+        await database.close();
+        await copy.drop();
+      },
+    };
+  }
   const bytes = readFileSync(inject('templateDumpPath'));
   return openDatabase({ kind: 'dump', dump: new Blob([bytes]) }, { migrate: false });
 }
