@@ -11,7 +11,7 @@ import { gunzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PGlite } from '@electric-sql/pglite';
 import { InvitationEntryListSchema, UsageSchema } from '@shared/api/administration';
-import { createTestApp, type TestApp } from './helpers/testApp';
+import { createTestApp, onPostgres, type TestApp } from './helpers/testApp';
 import { call, createCast, type Cast } from './helpers/fixtures';
 import { tokenIn, waitForMail } from './helpers/mailbox';
 import { labFromTemplate, publish, saveInCopy, submitVersion } from './labsFixtures';
@@ -69,7 +69,13 @@ describe('usage', () => {
 });
 
 describe('backup', () => {
-  it('downloads a gzipped dump of the database that a fresh PGlite opens with every account in it', async () => {
+  it.runIf(onPostgres())('sends no dump on a PostgreSQL server, and says to back it up there', async () => {
+    const res = await call(t, 'get', '/api/admin/backup', cast.admin.cookie);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/pg_dump/);
+  });
+
+  it.skipIf(onPostgres())('downloads a gzipped dump of the database that a fresh PGlite opens with every account in it', async () => {
     const res = await call(t, 'get', '/api/admin/backup', cast.admin.cookie).buffer(true).parse(binary);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/gzip');

@@ -72,7 +72,8 @@ describe('attachments', () => {
 
 describe('grading limits', () => {
   it('grades a run past the virtual-time limit as such, with a clear note', async () => {
-    const long = { panel: 'reversing-conveyor', steps: [...Array.from({ length: 4 }, () => ({ wait: 600_000 })), { expect: { K1: 'open' }, label: 'still stopped' }] };
+    // Three waits of 4 h, the longest a wait may be: 12 h against the 8 h a script may run.
+    const long = { panel: 'reversing-conveyor', steps: [...Array.from({ length: 3 }, () => ({ wait: 4 * 3_600_000 })), { expect: { K1: 'open' }, label: 'still stopped' }] };
     const created = await call(t, 'post', `/api/classes/${cast.classId}/labs`, cast.instructor.cookie).send({ title: 'Long', script: long });
     expect(created.status, created.text).toBe(201);
     await publish(t, cast.instructor, created.body.lab.id);

@@ -52,9 +52,9 @@ describe('the class overview', () => {
     const lab = overview.labs[1]!;
     expect(lab.counts).toEqual({ not_started: 1, in_progress: 0, submitted: 2, returned: 0, late: 1 });
     expect(lab.needsGrading).toBe(2);
-    // The checks are worth 11 points: 11 on time, 11 less 10 % late; the mean of 11 and 9.9.
-    expect(lab.totalPoints).toBe(11);
-    expect(lab.average).toBe(10.45);
+    // The checks are worth 13 points: 13 on time, 13 less 10 % late; the mean of 13 and 11.7.
+    expect(lab.totalPoints).toBe(13);
+    expect(lab.average).toBe(12.35);
     expect(overview.labs[0]!.counts).toMatchObject({ not_started: 3, submitted: 0 });
     expect(overview.labs[0]!.average).toBeNull();
   });
@@ -75,16 +75,16 @@ describe('a lab’s students', () => {
     const by = (p: Person) => rows.find((r) => r.student.id === p.user.id)!;
     expect(rows).toHaveLength(3);
     expect(by(cast.studentB)).toMatchObject({ standing: 'not_started', submissionId: null, status: null, lateDays: 0, finalScore: null });
-    expect(by(cast.studentA)).toMatchObject({ standing: 'submitted', status: 'graded', late: false, lateDays: 0, finalScore: 11 });
-    expect(by(studentC)).toMatchObject({ standing: 'submitted', status: 'graded', late: true, lateDays: 2, penaltyPercent: 10, finalScore: 9.9 });
+    expect(by(cast.studentA)).toMatchObject({ standing: 'submitted', status: 'graded', late: false, lateDays: 0, finalScore: 13 });
+    expect(by(studentC)).toMatchObject({ standing: 'submitted', status: 'graded', late: true, lateDays: 2, penaltyPercent: 10, finalScore: 11.7 });
   });
 
   it('puts late days and the penalty in the gradebook', async () => {
     const res = await call(t, 'get', `/api/classes/${cast.classId}/gradebook`, cast.instructor.cookie);
     expect(res.body.labs.map((l: { id: string }) => l.id)).toEqual([earlyLabId, labId]);
     const row = res.body.rows.find((r: { student: { id: string } }) => r.student.id === studentC.user.id);
-    expect(row.cells[1]).toMatchObject({ late: true, lateDays: 2, penaltyPercent: 10, finalScore: 9.9 });
-    expect(res.body.labs[1]).toMatchObject({ totalPoints: 11, checkPoints: 11 });
+    expect(row.cells[1]).toMatchObject({ late: true, lateDays: 2, penaltyPercent: 10, finalScore: 11.7 });
+    expect(res.body.labs[1]).toMatchObject({ totalPoints: 13, checkPoints: 13 });
   });
 });
 
