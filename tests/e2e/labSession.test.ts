@@ -187,8 +187,8 @@ describe('a student\'s lab session', () => {
       const report = page.getByRole('region', { name: 'Check results of version 2' });
       await expect.poll(() => report.getByTestId('visible-score').innerText()).toMatch(/Visible checks: 7 \/ 7 points/);
       expect((await report.getByTestId('visible-score').innerText()).match(/\d+ \/ \d+/)?.[0]).toBe(selfVisible.match(/\d+ \/ \d+/)?.[0]);
-      await expect.poll(() => page.getByTestId('submission-score').innerText()).toMatch(/Score: 11 \/ 11/);
-      await expect.poll(() => report.getByTestId('hidden-summary').innerText()).toMatch(/Hidden checks: 3 passed, 0 failed/);
+      await expect.poll(() => page.getByTestId('submission-score').innerText()).toMatch(/Score: 13 \/ 13/);
+      await expect.poll(() => report.getByTestId('hidden-summary').innerText()).toMatch(/Hidden checks: 4 passed, 0 failed/);
       await shot('8-report');
 
       // The draft went with the save: opening the lab again offers nothing.

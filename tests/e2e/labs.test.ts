@@ -108,7 +108,7 @@ describe('labs in a real browser', () => {
     await teacher.waitForURL(/\/labs\/[^/]+\/edit$/);
     const labId = teacher.url().split('/').slice(-2)[0]!;
     await expect.poll(() => teacher.getByTestId('script-validity').innerText()).toBe('Valid for this panel');
-    expect(await teacher.getByTestId('script-points').innerText()).toBe('11');
+    expect(await teacher.getByTestId('script-points').innerText()).toBe('13');
     // The brief preview is rendered Markdown and ends with the safety caution.
     await expect.poll(() => teacher.getByTestId('lab-brief').innerText()).toMatch(/lock out \/ tag out/);
     // Markup an author pastes is sanitised: no handler runs, no script or frame reaches the page.
@@ -132,8 +132,8 @@ describe('labs in a real browser', () => {
     // Try it on the reference solution that came with the template: full marks, hidden checks shown.
     await pick(teacher, 'Program to try', /^Reference: /);
     await teacher.getByRole('button', { name: 'Try it' }).click();
-    await expect.poll(() => teacher.getByTestId('report-score').innerText(), { timeout: 15_000 }).toBe('11 / 11');
-    expect(await teacher.getByTestId('grade-report').getByText('hidden').count()).toBe(3);
+    await expect.poll(() => teacher.getByTestId('report-score').innerText(), { timeout: 15_000 }).toBe('13 / 13');
+    expect(await teacher.getByTestId('grade-report').getByText('hidden').count()).toBe(4);
 
     await teacher.getByRole('button', { name: 'Publish' }).click();
     await expect
@@ -220,9 +220,9 @@ describe('labs in a real browser', () => {
     await expect.poll(() => student.getByTestId('submit-confirm').innerText()).toMatch(/version 2/);
     await student.getByRole('button', { name: 'Submit version 2' }).click();
     await expect.poll(() => student.getByTestId('submission-status').innerText(), { timeout: 20_000 }).toMatch(/graded/);
-    // A lab from a template is worth its checks' points (11); every check passes, so the auto score is all of them.
-    await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 11 \/ 11/);
-    await expect.poll(() => student.getByTestId('hidden-summary').innerText()).toMatch(/Hidden checks: 3 passed, 0 failed/);
+    // A lab from a template is worth its checks' points (13); every check passes, so the auto score is all of them.
+    await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 13 \/ 13/);
+    await expect.poll(() => student.getByTestId('hidden-summary').innerText()).toMatch(/Hidden checks: 4 passed, 0 failed/);
     // Hidden checks stay hidden: their labels never reach the student's page.
     expect(await student.getByText('after the overload reset the belt stays stopped').count()).toBe(0);
     await student.screenshot({ path: `${SHOTS}/lab-student-graded.png` });
@@ -230,7 +230,7 @@ describe('labs in a real browser', () => {
     // ── The instructor reviews it in the table, overrides with a reason and returns it with feedback. ──
     await teacher.goto(`${suite.server.url}/labs/${labId}/submissions`, { waitUntil: 'networkidle' });
     const row = teacher.getByTestId('submissions-table').locator('tr', { hasText: 'Ana Reyes' });
-    await expect.poll(() => row.innerText()).toMatch(/11 \/ 11/);
+    await expect.poll(() => row.innerText()).toMatch(/13 \/ 13/);
     await teacher.screenshot({ path: `${SHOTS}/lab-submissions.png` });
     await row.getByRole('link', { name: 'Open' }).click();
     await teacher.waitForURL(/\/submissions\/[^/]+$/);
@@ -257,7 +257,7 @@ describe('labs in a real browser', () => {
     await student.reload({ waitUntil: 'networkidle' });
     await student.locator('.n-tabs-tab', { hasText: 'Submissions' }).click();
     await expect.poll(() => student.getByTestId('feedback').innerText()).toMatch(/Rung comments missing[\s\S]*Comment your rungs/);
-    await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 10 \/ 11/);
+    await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 10 \/ 13/);
     await student.screenshot({ path: `${SHOTS}/lab-student-returned.png` });
 
     const adminContext = await suite.browser.newContext();
@@ -270,7 +270,7 @@ describe('labs in a real browser', () => {
         },
         { timeout: 10_000 },
       )
-      .toEqual(expect.arrayContaining([expect.stringMatching(/^Returned: Three-wire[\s\S]*10 of 11 points[\s\S]*Comment your rungs/)]));
+      .toEqual(expect.arrayContaining([expect.stringMatching(/^Returned: Three-wire[\s\S]*10 of 13 points[\s\S]*Comment your rungs/)]));
 
     expect([...problems, ...failedCalls]).toEqual([]);
     await adminContext.close();
