@@ -29,6 +29,8 @@ export interface Palette {
   link: string;
   /** "Passed", "valid", "closed": success words, at 4.5:1 on the paper and the surface. */
   ok: string;
+  /** "Late", "submitted": warning words in tags, at 4.5:1 on a warning tag's tint (the amber itself is too light for text in the light scheme). */
+  warningText: string;
   error: string;
   surface: string;
   text: string;
@@ -44,6 +46,7 @@ export const LIGHT_PALETTE: Palette = {
   selection: '#0f9488',
   link: '#0f766e',
   ok: '#1d6b32',
+  warningText: '#7a4a00',
   error: '#c62828',
   surface: '#fffdf8',
   text: '#1f2a44',
@@ -59,6 +62,7 @@ export const DARK_PALETTE: Palette = {
   selection: '#2dd4bf',
   link: '#2dd4bf',
   ok: '#66bb6a',
+  warningText: '#f0a63a',
   error: '#f26b68',
   surface: '#232838',
   text: '#e6ebf5',
@@ -90,6 +94,7 @@ export function themeOverrides(p: Palette): GlobalThemeOverrides {
     Layout: { color: p.paper, headerColor: p.surface, siderColor: p.surface },
     // naive-ui's own grey for "no data" is 1.6:1 on the light paper.
     Empty: { textColor: p.mutedText },
+    Tag: { textColorWarning: p.warningText },
   };
 }
 

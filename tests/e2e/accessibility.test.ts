@@ -104,11 +104,14 @@ function visitsFor(who: Who, ids: DemoIds | null): Visit[] {
         { path: `/labs/${ids!.threeWireLabId}/edit`, ready: (p) => p.getByTestId('script-validity').waitFor() },
         { path: `/labs/${ids!.forwardReverseLabId}/submissions`, ready: tableReady },
         { path: `/submissions/${ids!.submissionId}`, ready: (p) => p.getByTestId('grade-report').waitFor() },
+        { path: '/overview' },
+        { path: `/labs/${ids!.forwardReverseLabId}/similar` },
         { path: '/account' },
       ];
     case 'admin':
       return [
         { path: '/admin', ready: tableReady },
+        { path: '/admin/mail' },
         { path: '/programs', ready: tableReady },
         { path: '/account' },
       ];
