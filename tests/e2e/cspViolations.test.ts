@@ -72,7 +72,8 @@ describe('a workbench session', () => {
     expect(await k1()).toMatch(/carrier closed/);
     await page.screenshot({ path: `${SHOTS}/csp-workbench-recompiled-while-running.png` });
 
-    // Stop and run again.
+    // Stop and run again, on the dock's Panel tab (inserting an element turned the dock to the inspector).
+    await page.getByRole('tab', { name: 'Panel' }).click();
     await dock.getByRole('button', { name: /Pause|Stop/ }).first().click();
     await dock.getByRole('button', { name: '▶ Run' }).click();
     await page.waitForTimeout(500);
