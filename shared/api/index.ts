@@ -9,3 +9,4 @@ export * from './mail';
 export * from './labs';
 export * from './invitations';
 export * from './drafts';
+export * from './proof';
