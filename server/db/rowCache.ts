@@ -15,8 +15,7 @@
  * Only handles registered by `enableRowCaches` (the database's root handle) use a cache: a
  * transaction's handle is a different object and always reads the database.
  */
-import type { User } from './users';
-import type { ProgramRow, ProgramVersionRow } from './schema';
+import type { ProgramRow, ProgramVersionRow, User } from './schema';
 
 /**
  * A bounded map, least recently used entry dropped first. Each row is frozen, so no caller can

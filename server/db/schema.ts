@@ -345,6 +345,19 @@ export const sentMail = pgTable('sent_mail', {
   receivedAt: timestamp('received_at', { withTimezone: true, mode: 'date' }).notNull(),
 });
 
+/** A user as the services see it (the hash stays in the db layer unless asked for). */
+export interface User {
+  id: string;
+  email: string;
+  name: string;
+  role: 'student' | 'instructor' | 'admin';
+  demo: boolean;
+  createdAt: Date;
+  lastSignInAt: Date | null;
+  /** Set while an admin has deactivated the account (it cannot sign in; its sessions were ended). */
+  deactivatedAt: Date | null;
+}
+
 export type UserRow = typeof users.$inferSelect;
 export type ClassRow = typeof classes.$inferSelect;
 export type ProgramRow = typeof programs.$inferSelect;

@@ -1,21 +1,11 @@
 /** The users table as plain objects. Email lookups are case-insensitive (`lower(email)` index). */
 import { count, eq, sql } from 'drizzle-orm';
 import type { Db } from './client';
-import { users } from './schema';
+import { users, type User } from './schema';
 import { readThrough, rowCachesOf } from './rowCache';
 
-/** A user as the services see it (the hash stays in the db layer unless asked for). */
-export interface User {
-  id: string;
-  email: string;
-  name: string;
-  role: 'student' | 'instructor' | 'admin';
-  demo: boolean;
-  createdAt: Date;
-  lastSignInAt: Date | null;
-  /** Set while an admin has deactivated the account (it cannot sign in; its sessions were ended). */
-  deactivatedAt: Date | null;
-}
+/** The service-side view of a user row lives beside the table (`schema.ts`), so the row cache can name it without importing this module. */
+export type { User };
 
 /** The columns of a `User`; exported so a join (the session check) can read a user in the same query. */
 export const publicColumns = {
