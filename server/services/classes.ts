@@ -82,5 +82,5 @@ export async function listInvitations(ctx: AppContext, actor: User, classId: str
   const found = await authorisedClass(ctx, actor, classId, 'manage');
   if (!found.ok) return found;
   const rows = await listClassInvitations(ctx.orm, classId);
-  return success(rows.map((r) => ({ email: r.email, name: r.invitedName, expiresAt: iso(r.expiresAt), usedAt: r.usedAt ? iso(r.usedAt) : null })));
+  return success(rows.map((r) => ({ id: r.id, email: r.email, name: r.invitedName, expiresAt: iso(r.expiresAt), usedAt: r.usedAt ? iso(r.usedAt) : null })));
 }

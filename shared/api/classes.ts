@@ -43,7 +43,8 @@ export const RosterReportSchema = z.object({
 });
 export type RosterReport = z.infer<typeof RosterReportSchema>;
 
-export const PendingInvitationSchema = z.object({ email: z.string(), name: z.string().nullable(), expiresAt: z.string(), usedAt: z.string().nullable() });
+export const PendingInvitationSchema = z.object({ id: z.string(), email: z.string(), name: z.string().nullable(), expiresAt: z.string(), usedAt: z.string().nullable() });
+/** A class's invitations, newest first: accepted and expired ones too, cancelled ones not. */
 export const InvitationListSchema = z.object({ invitations: z.array(PendingInvitationSchema) });
 
 /** Invite one student by hand; an open invitation to the same address is replaced (sent again). */

@@ -40,7 +40,7 @@ export function createClassesApi(http: Http) {
     newJoinCode: (classId: string) => http.json(CLASS_ENDPOINTS.joinCode(classId), ClassAnswer, { method: 'POST', body: {} }).then((r) => r.class),
     listStudents: (classId: string) => http.json(CLASS_ENDPOINTS.students(classId), StudentListSchema).then((r) => r.students),
     removeStudent: (classId: string, userId: string) => http.raw(CLASS_ENDPOINTS.student(classId, userId), { method: 'DELETE' }).then(() => undefined),
-    /** Every invitation of the class, used and expired ones too (`pendingInvitations` keeps the open ones). */
+    /** Every invitation of the class, used and expired ones too (`unacceptedInvitations` keeps those not accepted). */
     listInvitations: (classId: string) => http.json(CLASS_ENDPOINTS.invitations(classId), InvitationListSchema).then((r) => r.invitations),
     /** Invites one student; an open invitation to the same address is replaced (this sends it again). */
     inviteStudent: (classId: string, body: InviteStudentRequest) =>

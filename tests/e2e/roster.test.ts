@@ -100,9 +100,19 @@ describe('class rosters and invitations in a real browser', () => {
     const admin = await signIn(adminContext, DEMO_ADMIN);
     watch(admin, 'admin', problems, [/instructor-invitations 409/]);
     await expect.poll(async () => (await mailTo(admin, NEWCOMER.email)).length, { timeout: 10_000 }).toBe(1);
-    const [invitation] = await mailTo(admin, NEWCOMER.email);
-    expect(invitation!.subject).toBe(`You are invited to ${DEMO_CLASS.name}`);
-    const link = invitationLink(invitation!);
+    const firstLink = invitationLink((await mailTo(admin, NEWCOMER.email))[0]!);
+
+    // ── The instructor sends it again from the roster: a new link, and the first one stops working. ──
+    await teacher.getByRole('button', { name: `Send the invitation to ${NEWCOMER.email} again` }).click();
+    await teacher.getByText(`A new invitation link is on its way to ${NEWCOMER.email}`).waitFor();
+    await expect.poll(async () => (await mailTo(admin, NEWCOMER.email)).length, { timeout: 10_000 }).toBe(2);
+    const newest = (await mailTo(admin, NEWCOMER.email)).sort((a, b) => b.receivedAt.localeCompare(a.receivedAt))[0]!;
+    expect(newest.subject).toBe(`You are invited to ${DEMO_CLASS.name}`);
+    const link = invitationLink(newest);
+    expect(link).not.toBe(firstLink);
+    const stale = await admin.evaluate(async (token) => (await fetch('/api/auth/invitations/lookup', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ token }) })).status, firstLink.split('#token=')[1]!);
+    expect(stale).toBe(400);
+    expect(await teacher.getByTestId('roster-invitations').innerText()).toMatch(/lee\.moss@larch-hollow\.example[\s\S]*works until/);
 
     const darkPage = await darkContext.newPage();
     // Signed out: the app's first `GET /api/me` answers 401 (nobody), and a used link's lookup 400.

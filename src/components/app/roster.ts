@@ -4,9 +4,25 @@ import type { PendingInvitationSchema, RosterReport } from '@shared/api/classes'
 
 export type ClassInvitation = z.infer<typeof PendingInvitationSchema>;
 
-/** The invitations that can still be accepted at `now` (the server lists used and expired ones too), soonest to expire first. */
-export function pendingInvitations(all: readonly ClassInvitation[], now: Date): ClassInvitation[] {
-  return all.filter((i) => i.usedAt === null && Date.parse(i.expiresAt) > now.getTime()).sort((a, b) => a.expiresAt.localeCompare(b.expiresAt));
+/** An invitation nobody accepted yet, and whether its link still works at the time asked. */
+export interface UnacceptedInvitation extends ClassInvitation {
+  expired: boolean;
+}
+
+/**
+ * The invitations not accepted, one per address: `all` comes newest first, as the server lists
+ * them (accepted ones too, not cancelled ones), and only an address's newest invitation counts —
+ * sending one again expires the one before, which is not something left to do. The open ones come
+ * first, soonest to expire first, then the expired ones, most recent first, so an instructor sees
+ * who still has to be sent a new link.
+ */
+export function unacceptedInvitations(all: readonly ClassInvitation[], now: Date): UnacceptedInvitation[] {
+  const newestPerAddress = new Map<string, ClassInvitation>();
+  for (const i of all) if (!newestPerAddress.has(i.email.toLowerCase())) newestPerAddress.set(i.email.toLowerCase(), i);
+  const unaccepted = [...newestPerAddress.values()].filter((i) => i.usedAt === null).map((i) => ({ ...i, expired: Date.parse(i.expiresAt) <= now.getTime() }));
+  const open = unaccepted.filter((i) => !i.expired).sort((a, b) => a.expiresAt.localeCompare(b.expiresAt));
+  const expired = unaccepted.filter((i) => i.expired).sort((a, b) => b.expiresAt.localeCompare(a.expiresAt));
+  return [...open, ...expired];
 }
 
 export type RosterGroupKey = keyof RosterReport;
