@@ -255,7 +255,7 @@ describe('labs in a real browser', () => {
 
     // ── The student sees the returned grade, and the mail reached the local fake mailbox. ──
     await student.reload({ waitUntil: 'networkidle' });
-    await student.locator('.n-tabs-tab', { hasText: 'Submissions' }).click();
+    await student.getByRole('tab', { name: 'Submissions' }).click();
     await expect.poll(() => student.getByTestId('feedback').innerText()).toMatch(/Rung comments missing[\s\S]*Comment your rungs/);
     await expect.poll(() => student.getByTestId('submission-score').innerText()).toMatch(/Score: 10 \/ 13/);
     await student.screenshot({ path: `${SHOTS}/lab-student-returned.png` });
