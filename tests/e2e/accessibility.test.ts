@@ -113,6 +113,15 @@ function visitsFor(who: Who, ids: DemoIds | null): Visit[] {
         { path: '/admin', ready: tableReady },
         { path: '/admin/mail' },
         { path: '/programs', ready: tableReady },
+        {
+          // An admin edits a lab but reads no student work: no way to the submissions is offered.
+          path: `/labs/${ids!.threeWireLabId}/edit`,
+          ready: async (p) => {
+            await p.getByTestId('script-validity').waitFor();
+            const offered = await p.getByRole('link', { name: 'Submissions' }).count();
+            if (offered !== 0) throw new Error('the lab page offers an admin the submissions, which the server refuses them');
+          },
+        },
         { path: '/account' },
       ];
   }
