@@ -24,6 +24,7 @@ import { adminRouter } from './routes/admin';
 import { adminStatusRouter } from './routes/adminStatus';
 import { programsRouter } from './routes/programs';
 import { draftsRouter } from './routes/drafts';
+import { proofSheetsRouter } from './routes/proofSheets';
 import { classesRouter } from './routes/classes';
 import { uploadsRouter } from './routes/uploads';
 import { authenticate } from './http/authenticate';
@@ -108,6 +109,7 @@ export function createApp(deps: AppDependencies): Express {
   api.use(adminStatusRouter(ctx));
   api.use(programsRouter(ctx));
   api.use(draftsRouter(ctx));
+  api.use(proofSheetsRouter(ctx));
   api.use(classesRouter(ctx));
   api.use(labsRouter(ctx));
   api.use(submissionsRouter(ctx));

@@ -13,6 +13,7 @@ import {
   doublePrecision,
   index,
   integer,
+  json,
   jsonb,
   pgTable,
   primaryKey,
@@ -334,6 +335,26 @@ export const drafts = pgTable(
   (t) => [primaryKey({ columns: [t.programId, t.userId] })],
 );
 
+/**
+ * A program's proof sheet: the properties its owner asked the prover to decide and the checks they
+ * kept from counterexamples, one row per program (only the owner reads or writes it; `user_id` is
+ * the owner who wrote it). Both lists are stored as the shared schema accepted them
+ * (`ProofSheetSchema` in shared/api/proof.ts); the row goes with its program. `json`, not `jsonb`:
+ * jsonb reorders an object's keys, and the order of a condition's keys is the order its plain-words
+ * label names them in ("never K2 closed and K1 closed" must come back as written).
+ */
+export const proofSheets = pgTable('proof_sheets', {
+  programId: uuid('program_id')
+    .primaryKey()
+    .references(() => programs.id, { onDelete: 'cascade' }),
+  userId: uuid('user_id')
+    .notNull()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  properties: json('properties').notNull(),
+  checks: json('checks').notNull(),
+  updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull(),
+});
+
 /** Mail the local fake SMTP server received (only when SMTP_URL is unset). */
 export const sentMail = pgTable('sent_mail', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -371,3 +392,4 @@ export type GradeHistoryRow = typeof gradeHistory.$inferSelect;
 export type SessionRow = typeof sessions.$inferSelect;
 export type RateCounterRow = typeof rateCounters.$inferSelect;
 export type DraftRow = typeof drafts.$inferSelect;
+export type ProofSheetRow = typeof proofSheets.$inferSelect;

@@ -5,7 +5,8 @@
  * is its owner's alone, not even their instructor's; and a copy of another class's lab is that
  * class's instructor's business only. Admins keep accounts and classes running and do not read
  * student work: an admin reads a program only where they teach the class themselves. A draft
- * (unsaved editor state) is its owner's alone: to everyone else it does not exist.
+ * (unsaved editor state) and a proof sheet (properties and kept counterexamples) are their owner's
+ * alone: to everyone else they do not exist.
  */
 import type { Db } from '../db/client';
 import type { User } from '../db/users';
@@ -13,11 +14,11 @@ import type { Program } from '../db/programs';
 import { labsTaughtToStudent, teachesLabOf } from '../db/classes';
 import type { Access } from './access';
 
-export type ProgramAction = 'read' | 'write' | 'draft';
+export type ProgramAction = 'read' | 'write' | 'draft' | 'proof';
 
 /** May `actor` act on `program`? */
 export async function programAccess(db: Db, actor: User, program: Pick<Program, 'ownerId' | 'labId'>, action: ProgramAction): Promise<Access> {
-  if (action === 'draft') return actor.id === program.ownerId ? 'allowed' : 'hidden';
+  if (action === 'draft' || action === 'proof') return actor.id === program.ownerId ? 'allowed' : 'hidden';
   if (actor.id === program.ownerId) return 'allowed';
   if (program.labId !== null && (await teachesLabOf(db, actor.id, program.labId, program.ownerId))) {
     return action === 'read' ? 'allowed' : 'forbidden';

@@ -119,6 +119,15 @@ function draftRows(label: string, pick: (s: Scene) => string): Row[] {
   ];
 }
 
+/** The proof-sheet routes of one program of studentBoth: like a draft, theirs alone. */
+function proofRows(label: string, pick: (s: Scene) => string): Row[] {
+  const at = (s: Scene) => `/api/programs/${pick(s)}/proof`;
+  return [
+    { route: `GET /api/programs/:id/proof (${label})`, send: (t, c, s) => call(t, 'get', at(s), c), expect: ownOnly(200) },
+    { route: `PUT /api/programs/:id/proof (${label})`, send: (t, c, s) => call(t, 'put', at(s), c).send({ properties: [{ never: { '%QX1': true, '%QX2': true } }], checks: [] }), expect: ownOnly(200) },
+  ];
+}
+
 /** The review routes of one submission of studentBoth. */
 function submissionRows(label: string, pick: (s: Scene) => string, review: (ok: number) => Expected): Row[] {
   const at = (s: Scene, rest = '') => `/api/submissions/${pick(s)}${rest}`;
@@ -215,6 +224,9 @@ const ROWS: Row[] = [
   // Drafts: the owner's alone, even on a lab copy its teacher may read.
   ...draftRows('outside labs', (s) => s.freeProgram),
   ...draftRows('copy of lab A', (s) => s.copyA),
+  // Proof sheets: the owner's alone too.
+  ...proofRows('outside labs', (s) => s.freeProgram),
+  ...proofRows('copy of lab A', (s) => s.copyA),
   {
     route: 'POST /api/programs/import',
     send: (t, c) => call(t, 'post', '/api/programs/import', c).attach('file', Buffer.from(xml), { filename: 'p.xml', contentType: 'application/xml' }),

@@ -106,6 +106,10 @@ beforeAll(async () => {
     'PATCH /api/programs/:id': { title: 'Renamed' },
     'POST /api/programs/:id/versions': { baseVersion: 1, document: documentWithRungs(1), message: 'fuzz' },
     'PUT /api/programs/:id/draft': { baseVersion: 1, document: documentWithRungs(1) },
+    'PUT /api/programs/:id/proof': {
+      properties: [{ never: { '%QX1': true, '%QX2': true } }, { after: { S1: 'pressed' }, within: 100, expect: { K1: 'closed' } }],
+      checks: [{ label: 'fuzz', script: { panel: 'reversing-conveyor', scanMs: 10, settleMs: 0, steps: [{ press: 'S1' }, { wait: 10 }, { expect: { K1: 'closed' } }] } }],
+    },
     'POST /api/programs/:id/restore': { version: 1, baseVersion: 1 },
     'POST /api/programs/import': 'multipart',
     'POST /api/classes': { name: 'Fuzz class', term: 'Fall 2026' },

@@ -1,19 +1,25 @@
 /**
  * Proof benchmark (`npm run bench -- proof`): for each standard lab, its safety properties
  * (tests/unit/proof/labProperties.ts) decided for the reference solution and for every typical
- * wrong answer of tests/unit/labs/mistakes.ts — the whole `prove` call, searches, counterexamples
- * and their replays through the check runner. Figures: ms per program (median and best wall
- * time, and CPU time of the process, which a shared machine's load disturbs less), states
- * explored and scans simulated per second of CPU (a state is left by one scan per set of operator
- * moves: up to 128 on the io-checkout lab, where seven devices are read). Target: under 1 s per
- * program.
+ * wrong answer of tests/unit/labs/mistakes.ts (proof-cases.ts) — the whole `prove` call, searches,
+ * counterexamples and their replays through the check runner. Target: under 1 s per program, in
+ * Node and in the browser.
+ *
+ * Node: ms per program (median and best wall time, and CPU time of the process, which a shared
+ * machine's load disturbs less), states explored and scans simulated per second of CPU (a state is
+ * left by one scan per set of operator moves: up to 128 on the io-checkout lab, where seven devices
+ * are read).
+ *
+ * Chromium (proof-page.ts): the same programs decided in a module Web Worker of a page served under
+ * the production Content Security Policy, as the workbench's Proof tab runs them; the run fails if
+ * any verdict differs from Node's. `PROOF_BENCH=node|page` runs one side only (the page still
+ * compares with Node's verdicts); `PROOF_BENCH_RUNS` sets the timed runs per program (5).
  */
 import { REVERSING_CONVEYOR } from '@shared/field';
-import { standardLab, STANDARD_LABS } from '@shared/labs';
 import type { Program } from '@shared/ladder/schema';
 import { prove, type Property } from '@shared/proof';
-import { MISTAKES } from '../unit/labs/mistakes';
-import { LAB_CASES } from '../unit/proof/labProperties';
+import { caseKey, proofCases } from './proof-cases';
+import { PROOF_TARGET_MS, proofPageRuns } from './proof-page';
 import type { BenchCase } from './run';
 import { median, round } from './stats';
 
@@ -39,31 +45,60 @@ function once(program: Program, properties: Property[]): { wall: number; cpu: nu
 }
 
 export default async function proofBench(): Promise<BenchCase[]> {
-  const cases: BenchCase[] = [];
-  for (const lab of STANDARD_LABS) {
-    const properties = LAB_CASES.filter((c) => c.lab === lab.id).flatMap((c) => c.properties);
-    const unique = [...new Map(properties.map((p) => [JSON.stringify(p), p])).values()];
-    const programs: [string, Program][] = [['reference', standardLab(lab.id)!.solution], ...MISTAKES.filter((m) => m.lab === lab.id).map((m): [string, Program] => [m.name, m.program])];
-    for (const [name, program] of programs) {
-      once(program, unique);
-      const runs = Array.from({ length: 5 }, () => once(program, unique));
-      const wall = runs.map((r) => r.wall);
-      const cpu = runs.map((r) => r.cpu);
-      cases.push({
-        case: `proof ${lab.id}: ${name}`,
-        properties: unique.length,
-        verdicts: runs[0]!.verdicts.join(','),
-        states: runs[0]!.states,
-        msMedian: round(median(wall), 1),
-        msBest: round(Math.min(...wall), 1),
-        cpuMsMedian: round(median(cpu), 1),
-        scans: runs[0]!.transitions,
-        statesPerCpuSecond: Math.round(runs[0]!.states / (median(cpu) / 1000)),
-        scansPerCpuSecond: Math.round(runs[0]!.transitions / (median(cpu) / 1000)),
-        targetMs: 1000,
-        meetsTarget: median(cpu) < 1000,
-      });
+  const which = process.env.PROOF_BENCH ?? 'both';
+  if (!['node', 'page', 'both'].includes(which)) throw new Error(`PROOF_BENCH must be node, page or both, not ${which}`);
+  const runs = Number(process.env.PROOF_BENCH_RUNS ?? 5);
+  if (!Number.isInteger(runs) || runs < 1) throw new Error(`PROOF_BENCH_RUNS must be a whole number from 1, not ${process.env.PROOF_BENCH_RUNS}`);
+  const programs = proofCases();
+  const rows: BenchCase[] = [];
+  /** Node's verdicts per program, which the page must reproduce exactly. */
+  const nodeVerdicts = new Map<string, string>();
+
+  for (const c of programs) {
+    if (which === 'page') {
+      nodeVerdicts.set(caseKey(c), once(c.program, c.properties).verdicts.join(','));
+      continue;
     }
+    once(c.program, c.properties);
+    const timed = Array.from({ length: runs }, () => once(c.program, c.properties));
+    const wall = timed.map((r) => r.wall);
+    const cpu = timed.map((r) => r.cpu);
+    nodeVerdicts.set(caseKey(c), timed[0]!.verdicts.join(','));
+    rows.push({
+      case: `proof ${c.lab}: ${c.name}`,
+      properties: c.properties.length,
+      verdicts: timed[0]!.verdicts.join(','),
+      states: timed[0]!.states,
+      msMedian: round(median(wall), 1),
+      msBest: round(Math.min(...wall), 1),
+      cpuMsMedian: round(median(cpu), 1),
+      scans: timed[0]!.transitions,
+      statesPerCpuSecond: Math.round(timed[0]!.states / (median(cpu) / 1000)),
+      scansPerCpuSecond: Math.round(timed[0]!.transitions / (median(cpu) / 1000)),
+      targetMs: PROOF_TARGET_MS,
+      meetsTarget: median(cpu) < PROOF_TARGET_MS,
+    });
   }
-  return cases;
+  if (which === 'node') return rows;
+
+  const { proofs, summary } = await proofPageRuns(programs.map(caseKey), runs);
+  const differences: string[] = [];
+  for (const p of proofs) {
+    const expected = nodeVerdicts.get(p.key);
+    if (p.verdicts.join(',') !== expected) differences.push(`${p.key}: ${p.verdicts.join(',')} in Chromium, ${expected} in Node`);
+    rows.push({
+      case: `proof chromium: ${p.key}`,
+      verdicts: p.verdicts.join(','),
+      states: p.states,
+      ms: round(p.ms, 1),
+      msFirst: round(p.msFirst, 1),
+      wallMs: round(p.wallMs, 1),
+      statesPerS: Math.round(p.states / (p.ms / 1000)),
+      mainThreadMaxGapMs: round(p.mainThreadMaxGapMs, 1),
+      meetsTarget: p.ms < PROOF_TARGET_MS,
+    });
+  }
+  if (differences.length > 0) throw new Error(`the browser's verdicts differ from Node's:\n  ${differences.join('\n  ')}`);
+  rows.push(summary);
+  return rows;
 }

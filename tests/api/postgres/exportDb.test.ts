@@ -11,6 +11,8 @@ import pg from 'pg';
 import { exportDb, tablesInCopyOrder } from '../../../server/cli/exportDb';
 import { openDatabase } from '../../../server/db/client';
 import { seedDemoData } from '../../../server/db/seed';
+import { programs } from '../../../server/db/schema';
+import { upsertProofSheet } from '../../../server/db/proofSheets';
 import { DEMO_STUDENTS } from '../../../server/db/demoAccounts';
 import { systemClock } from '../../../server/clock';
 import { makeTempDataDir } from '../helpers/serverProcess';
@@ -39,6 +41,9 @@ beforeAll(async () => {
   dataDir = makeTempDataDir();
   const source = await openDatabase({ kind: 'directory', dataDir });
   await seedDemoData(source.orm, systemClock, TEST_SCRYPT);
+  // A proof sheet (json columns), whose condition keys must arrive in the order they were written.
+  const [program] = await source.orm.select().from(programs).limit(1);
+  await upsertProofSheet(source.orm, { programId: program!.id, userId: program!.ownerId, properties: [{ never: { K2: 'closed', K1: 'closed' } }], checks: [], now: systemClock.now() });
   await source.close();
   await onAdmin(`create database ${targetName}`);
   targetUrl = databaseUrl(inject('pgAdminUrl'), targetName);
@@ -73,8 +78,11 @@ describe('export-db', () => {
     const client = new pg.Client({ connectionString: targetUrl });
     await client.connect();
     const { rows } = await client.query<{ n: number }>('select count(*)::int as n from users');
+    const sheets = await client.query<{ properties: string }>('select properties::text as properties from proof_sheets');
     await client.end();
     expect(rows[0]!.n).toBe(DEMO_STUDENTS.length + 2);
+    expect(result.out).toContain('copied proof_sheets: 1 rows');
+    expect(sheets.rows.map((r) => r.properties)).toEqual(['[{"never":{"K2":"closed","K1":"closed"}}]']);
   });
 
   it('refuses to copy into a database that already has rows (exit 1), changing nothing', async () => {
