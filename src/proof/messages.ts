@@ -12,6 +12,17 @@ export interface ProveRequest {
   scanMs?: number;
 }
 
+/**
+ * Asked when the Proof tab opens: a small proof on an empty program, so the worker's code is
+ * loaded and compiled by the engine before the first real run (no answer is sent).
+ */
+export interface WarmRequest {
+  type: 'warm';
+  program: Program;
+  panel: PanelLayout;
+  properties: Property[];
+}
+
 export type WorkerAnswer =
   /** States visited and scans from power-up covered so far, a few times a second. */
   | { type: 'progress'; runId: number; states: number; depth: number }

@@ -6,12 +6,20 @@
  */
 import './zodJitlessGlobal';
 import { prove } from '@shared/proof';
-import { PROGRESS_EVERY_MS, type ProveRequest, type WorkerAnswer } from './messages';
+import { PROGRESS_EVERY_MS, type ProveRequest, type WarmRequest, type WorkerAnswer } from './messages';
 
 const post = (answer: WorkerAnswer): void => (self as unknown as { postMessage(m: WorkerAnswer): void }).postMessage(answer);
 
-self.addEventListener('message', (event: MessageEvent<ProveRequest>) => {
+self.addEventListener('message', (event: MessageEvent<ProveRequest | WarmRequest>) => {
   const request = event.data;
+  if (request?.type === 'warm') {
+    try {
+      prove({ program: request.program, panel: request.panel, properties: request.properties, maxStates: 5000 });
+    } catch {
+      // Only a warm-up: a real run reports its own failure.
+    }
+    return;
+  }
   if (request?.type !== 'prove') return;
   const { runId } = request;
   const started = performance.now();

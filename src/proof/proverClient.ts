@@ -4,7 +4,7 @@
  * and leaves a fresh one for the next run. The worker is made by a factory, so tests can hand in
  * a fake one.
  */
-import type { ProveRequest, WorkerAnswer } from './messages';
+import type { ProveRequest, WarmRequest, WorkerAnswer } from './messages';
 
 export interface ProverProgress {
   states: number;
@@ -19,7 +19,7 @@ export type ProverOutcome =
 
 /** What the client needs of a Worker. */
 export interface WorkerLike {
-  postMessage(message: ProveRequest): void;
+  postMessage(message: ProveRequest | WarmRequest): void;
   terminate(): void;
   onmessage: ((event: MessageEvent<WorkerAnswer>) => void) | null;
   onerror: ((event: ErrorEvent) => void) | null;
@@ -78,6 +78,11 @@ export function createProver(factory: WorkerFactory = browserWorker) {
         pending = { id, resolve, progress: null };
         ensure().postMessage({ type: 'prove', runId: id, ...request });
       });
+    },
+    /** Start the worker ahead of the first run, and let it run a small proof so its code is compiled. */
+    warm(request: Omit<WarmRequest, 'type'>): void {
+      if (worker) return;
+      ensure().postMessage({ type: 'warm', ...request });
     },
     /** End the run now: the worker goes, and the run's outcome is `stopped`. */
     stop(): void {

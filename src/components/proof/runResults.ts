@@ -3,6 +3,7 @@
  * run the user stopped, `unknown` saying so (never `proved`). Results are keyed by the property's
  * content (its label aside), so relabelling a property keeps its result and editing it does not.
  */
+import { stepSpanMs, type CheckScript } from '@shared/checks';
 import type { Property, PropertyResult, Verdict } from '@shared/proof';
 import type { ProverOutcome } from '@/proof/proverClient';
 
@@ -68,6 +69,12 @@ export function figures(r: PropertyResult): string {
   const parts = [`${r.states.toLocaleString('en-US')} states`];
   if (r.ms !== undefined) parts.push(`${r.ms} ms`);
   return parts.join(' · ');
+}
+
+/** "4 steps, 10 ms": how long a counterexample or witness is, in steps and virtual time. */
+export function scriptLength(script: CheckScript): string {
+  const ms = script.steps.reduce((sum, step) => sum + stepSpanMs(step), 0);
+  return `${script.steps.length} steps, ${ms} ms`;
 }
 
 /** A counterexample or witness that may be played and kept: never one from a defect. */
