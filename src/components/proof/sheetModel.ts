@@ -3,7 +3,7 @@
  * property, keep and delete a saved check. Each returns the next sheet, or what stops it in words
  * (a limit of the contract), and never changes the sheet it is given.
  */
-import { MAX_SAVED_CHECKS, MAX_SHEET_PROPERTIES, type ProofSheet, type SavedCheck } from '@shared/api/proof';
+import { MAX_SAVED_CHECKS, MAX_SHEET_PROPERTIES, SavedCheckSchema, type ProofSheet, type SavedCheck } from '@shared/api/proof';
 import type { CheckScript } from '@shared/checks';
 import type { Property } from '@shared/proof';
 
@@ -40,9 +40,24 @@ export function removeProperty(sheet: ProofSheet, index: number): SheetEdit {
   return { ok: true, sheet: { ...sheet, properties: sheet.properties.filter((_, i) => i !== index) } };
 }
 
+const MAX_WORDS = 200;
+const clip = (text: string): string => (text.length <= MAX_WORDS ? text : `${text.slice(0, MAX_WORDS - 1)}…`);
+
+/**
+ * The script's title and step labels clipped to what a check script allows (200 characters): the
+ * prover builds them from the property's label, which may itself be 200 long. Only words change.
+ */
+function clipWords(script: CheckScript): CheckScript {
+  const steps = script.steps.map((step) => ('label' in step && typeof step.label === 'string' && step.label.length > MAX_WORDS ? { ...step, label: clip(step.label) } : step));
+  return { ...script, ...(script.title !== undefined && { title: clip(script.title) }), steps };
+}
+
 /** "Save as check": the counterexample kept under the property's label (the same script twice is kept once). */
-export function saveCheck(sheet: ProofSheet, label: string, script: CheckScript): SheetEdit {
-  const check: SavedCheck = { label: label.trim().slice(0, 200) || 'Counterexample', script };
+export function saveCheck(sheet: ProofSheet, label: string, found: CheckScript): SheetEdit {
+  const script = clipWords(found);
+  const check: SavedCheck = { label: clip(label.trim()) || 'Counterexample', script };
+  const valid = SavedCheckSchema.safeParse(check);
+  if (!valid.success) return { ok: false, error: `This counterexample cannot be kept as a check (${valid.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}).` };
   if (sheet.checks.some((c) => sameJson(c.script, script))) return { ok: false, error: 'This counterexample is already saved as a check.' };
   if (sheet.checks.length >= MAX_SAVED_CHECKS) return { ok: false, error: `A sheet keeps at most ${MAX_SAVED_CHECKS} checks; delete one first.` };
   return { ok: true, sheet: { ...sheet, checks: [...sheet.checks, check] } };

@@ -52,6 +52,16 @@ describe('editing a proof sheet', () => {
     expect(saveCheck(full, 'one more', script).ok).toBe(false);
   });
 
+  it('clips a long label in the kept script to what a check script allows, so the sheet still saves', () => {
+    const long = 'x'.repeat(200);
+    const found: CheckScript = { ...script, title: `Counterexample: ${long}`, steps: [...script.steps.slice(0, 3), { expect: { '%QX1': true, '%QX2': true }, label: `violated: ${long}` }] };
+    const kept = must(saveCheck(EMPTY_SHEET, long, found));
+    expect(ProofSheetSchema.safeParse(kept).success).toBe(true);
+    expect(kept.checks[0]!.script.title).toHaveLength(200);
+    expect(kept.checks[0]!.script.steps[3]).toEqual({ expect: { '%QX1': true, '%QX2': true }, label: `violated: ${'x'.repeat(189)}…` });
+    expect(kept.checks[0]!.script.steps.slice(0, 3)).toEqual(found.steps.slice(0, 3));
+  });
+
   it('keys a result by the property’s content, so a new label keeps it', () => {
     expect(propertyKey({ ...interlock, label: 'a' })).toBe(propertyKey(interlock));
     expect(propertyKey(amber)).not.toBe(propertyKey(interlock));
