@@ -35,6 +35,13 @@ const workbenchReady = async (page: Page) => {
   await page.getByTestId('rung-canvas').waitFor();
   await page.waitForFunction(() => performance.getEntriesByName('rungwright:workbench-ready').length > 0);
 };
+/** The workbench with its Proof tab shown and the form that adds a property open. */
+const proofTabReady = async (page: Page) => {
+  await workbenchReady(page);
+  await page.getByRole('tab', { name: 'Proof' }).click();
+  await page.getByTestId('add-property-open').click();
+  await page.getByTestId('add-property').waitFor();
+};
 const labReady = async (page: Page) => {
   await page.getByTestId('rung-canvas').waitFor();
   await page.getByTestId('save-status').filter({ hasText: /Saved/ }).waitFor();
@@ -90,6 +97,7 @@ function visitsFor(who: Who, ids: DemoIds | null): Visit[] {
       return [
         { path: '/programs', ready: tableReady },
         { path: `/programs/${ids!.programId}`, ready: workbenchReady },
+        { path: `/programs/${ids!.programId}`, ready: proofTabReady },
         { path: '/classes', ready: tableReady },
         { path: `/classes/${ids!.classId}/labs`, ready: tableReady },
         { path: `/labs/${ids!.threeWireLabId}`, ready: labReady },

@@ -34,7 +34,7 @@ function typingIn(target: EventTarget | null): boolean {
 }
 
 /** Which tab of the right dock is showing. */
-export type DockTab = 'panel' | 'io' | 'inspector' | 'tags';
+export type DockTab = 'panel' | 'io' | 'inspector' | 'tags' | 'proof';
 
 /** Sets the editor's effects and the save key for one editing surface; call once in `setup`. */
 export function useEditorSurface(options: EditorSurfaceOptions) {

@@ -25,6 +25,7 @@ function mountTabs(start: DockTab = 'panel') {
           panel: () => h('p', { class: 'panel-pane' }, 'field panel'),
           inspector: () => h('p', { class: 'inspector-pane' }, 'inspector'),
           tags: () => h('p', { class: 'tags-pane' }, 'tags'),
+          proof: () => h('p', { class: 'proof-pane' }, 'proof'),
         },
       ),
   });
@@ -33,12 +34,12 @@ function mountTabs(start: DockTab = 'panel') {
 }
 
 describe('the dock\'s tabs', () => {
-  it('are a tablist of four tabs, the shown one selected and the only tab stop, each controlling a pane named by it', () => {
+  it('are a tablist of five tabs, the shown one selected and the only tab stop, each controlling a pane named by it', () => {
     const { tabs } = mountTabs('inspector');
     expect(wrapper!.find('[role="tablist"]').exists()).toBe(true);
-    expect(tabs().map((t) => t.text())).toEqual(['Panel', 'I/O', 'Inspector', 'Tags']);
-    expect(tabs().map((t) => t.attributes('aria-selected'))).toEqual(['false', 'false', 'true', 'false']);
-    expect(tabs().map((t) => t.attributes('tabindex'))).toEqual(['-1', '-1', '0', '-1']);
+    expect(tabs().map((t) => t.text())).toEqual(['Panel', 'I/O', 'Inspector', 'Tags', 'Proof']);
+    expect(tabs().map((t) => t.attributes('aria-selected'))).toEqual(['false', 'false', 'true', 'false', 'false']);
+    expect(tabs().map((t) => t.attributes('tabindex'))).toEqual(['-1', '-1', '0', '-1', '-1']);
     const inspector = tabs()[2]!;
     const pane = wrapper!.find(`#${inspector.attributes('aria-controls')}`);
     expect(pane.attributes('role')).toBe('tabpanel');
@@ -66,11 +67,11 @@ describe('the dock\'s tabs', () => {
     const { shown, tabs } = mountTabs('panel');
     const list = wrapper!.find('[role="tablist"]');
     await list.trigger('keydown', { key: 'ArrowLeft' });
-    expect(shown.value).toBe('tags');
+    expect(shown.value).toBe('proof');
     await list.trigger('keydown', { key: 'ArrowRight' });
     expect(shown.value).toBe('panel');
     await list.trigger('keydown', { key: 'End' });
-    expect(shown.value).toBe('tags');
+    expect(shown.value).toBe('proof');
     await list.trigger('keydown', { key: 'Home' });
     await list.trigger('keydown', { key: 'ArrowRight' });
     expect(shown.value).toBe('io');
@@ -78,5 +79,17 @@ describe('the dock\'s tabs', () => {
     expect(document.activeElement).toBe(tabs()[1]!.element);
     await list.trigger('keydown', { key: 'x' });
     expect(shown.value).toBe('io');
+  });
+
+  it('mounts the proof pane the first time its tab is shown and keeps it while another tab shows (its run and results stay)', async () => {
+    const { shown } = mountTabs('panel');
+    expect(wrapper!.find('.proof-pane').exists()).toBe(false);
+    shown.value = 'proof';
+    await nextTick();
+    expect(wrapper!.find('.proof-pane').isVisible()).toBe(true);
+    shown.value = 'tags';
+    await nextTick();
+    expect(wrapper!.find('.proof-pane').exists()).toBe(true);
+    expect(wrapper!.find('.proof-pane').isVisible()).toBe(false);
   });
 });

@@ -1,0 +1,40 @@
+/**
+ * A program's proof sheet (its properties and the checks kept from counterexamples), stored on
+ * the server beside the program (`shared/api/proof.ts`). Built on the app's `Http` like the other
+ * clients, so a 401 sends the user to sign-in; `sendOnLeave` is the one call that does not wait
+ * for an answer (the page is going away).
+ */
+import { ProofSheetResponseSchema, type ProofSheet } from '@shared/api/proof';
+import { createHttp, type Http } from './http';
+import { SESSION_EXPIRED_EVENT } from './instance';
+
+const enc = encodeURIComponent;
+export const PROOF_ENDPOINT = (programId: string) => `/api/programs/${enc(programId)}/proof`;
+
+export function createProofApi(http: Http, fetchImpl: typeof fetch = (input, init) => fetch(input, init)) {
+  return {
+    get: (programId: string) => http.json(PROOF_ENDPOINT(programId), ProofSheetResponseSchema),
+    save: (programId: string, sheet: ProofSheet) => http.json(PROOF_ENDPOINT(programId), ProofSheetResponseSchema, { method: 'PUT', body: sheet }),
+    /** The sheet sent while the page is hidden or closing: `keepalive` lets the request outlive the page (browsers cap such bodies at 64 KB). */
+    sendOnLeave: (programId: string, sheet: ProofSheet): void => {
+      const text = JSON.stringify(sheet);
+      if (text.length > 60_000) return;
+      void fetchImpl(PROOF_ENDPOINT(programId), {
+        method: 'PUT',
+        keepalive: true,
+        credentials: 'same-origin',
+        headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
+        body: text,
+      }).catch(() => undefined);
+    },
+  };
+}
+
+export type ProofApi = ReturnType<typeof createProofApi>;
+
+/** The app's proof-sheet client. */
+export const proofApi = createProofApi(
+  createHttp({
+    onUnauthenticated: () => globalThis.dispatchEvent?.(new Event(SESSION_EXPIRED_EVENT)),
+  }),
+);
