@@ -1,9 +1,15 @@
 /**
- * Imported by `main.ts` before any module that builds a zod schema. zod decides when it builds an
- * object schema whether it may compile a parser with `new Function`, probing for it the first time;
- * the app's Content Security Policy refuses `new Function`, so the probe only made the browser
- * report a CSP violation while the first page was loading. Parsing is the same either way.
+ * Imported first by every entry that parses with zod in a browser (`main.ts`, the prover's worker,
+ * the bench pages): zod decides, the first time it builds an object schema, whether it may compile
+ * a parser with `new Function`, and probes for it; the app's Content Security Policy refuses
+ * `new Function`, so the probe made the browser report a violation. Parsing is the same either way.
+ *
+ * It writes zod's global config without importing zod, so nothing of zod runs ahead of it. The
+ * page itself has the same line in `public/zod-jitless.js`, a classic script that runs before any
+ * module chunk (a chunk of shared schemas may parse before `main.ts`'s first line); a worker does
+ * not run the page's scripts, hence this module.
  */
-import { config } from 'zod';
+const scope = globalThis as { __zod_globalConfig?: Record<string, unknown> };
+scope.__zod_globalConfig = Object.assign(scope.__zod_globalConfig ?? {}, { jitless: true });
 
-config({ jitless: true });
+export {};

@@ -4,7 +4,7 @@
  * hook a few times a second. Stopping a run is the page's business: it terminates this worker
  * (the search is synchronous) and starts a fresh one next time.
  */
-import './zodJitlessGlobal';
+import '@/api/zodJitless';
 import { prove } from '@shared/proof';
 import { PROGRESS_EVERY_MS, type ProveRequest, type WarmRequest, type WorkerAnswer } from './messages';
 

@@ -6,7 +6,7 @@
  * not reach a worker, hence its first import.
  */
 // First: zod must be jitless before any module that loads it is evaluated.
-import './proof-page-worker-jitless';
+import '@/api/zodJitless';
 import { REVERSING_CONVEYOR } from '@shared/field';
 import { prove } from '@shared/proof';
 import type { ProveRequest, WorkerMessage } from './proof-page-protocol';
