@@ -7,7 +7,7 @@ import { compile, createRuntime, type Plan, type Runtime, type RuntimeSnapshot }
 import { lowerProgram } from '@shared/engine/lower';
 import { checkDocumentBounds } from '@shared/ladder/bounds';
 import type { AddressSpace } from '@shared/ladder/addresses';
-import type { BlockType, Program } from '@shared/ladder/schema';
+import type { BlockType, Contact, NetworkNode, Program } from '@shared/ladder/schema';
 import { createDemoState, demoCases, type DemoCase, type DemoState } from './engine-demo';
 import { inputPatterns, type MemoryImage, type Subject } from './engine-measure';
 import { BENCH_SPACE, benchProgram, type BaselineBlock, type ProgramShape } from './engine-programs';
@@ -20,13 +20,19 @@ export const SCAN_MS = 10;
  */
 export const GENERATED_SIZES = [10, 100, 1000, 5000] as const;
 
+/** Whether a case's program is within the document size limits (decided before any timing). */
+export function withinDocumentLimits(program: Program): boolean {
+  return checkDocumentBounds(program) === null;
+}
+
 /**
  * The case's plan through `compile`, or, for a program past the document size limits (the 5,000-
  * rung cases, ~60,000 nodes), lowered directly: no one can save such a document, but the bench
- * measures how the engine scales with the plan's size.
+ * measures how the engine scales with the plan's size. `within` is `withinDocumentLimits`, worked
+ * out beforehand so that its walk is not counted as compiling.
  */
-export function planFor(program: Program, space: AddressSpace): Plan {
-  if (checkDocumentBounds(program) === null) {
+export function planFor(program: Program, space: AddressSpace, within: boolean): Plan {
+  if (within) {
     const compiled = compile(program, { space });
     if (!compiled.ok) throw new Error(`the case does not compile: ${compiled.diagnostics[0]?.message}`);
     return compiled.plan;
@@ -164,6 +170,48 @@ export function caseProgram(spec: CaseSpec): { program: Program; space: AddressS
   return { program: generated.program, space: BENCH_SPACE, generated };
 }
 
+/** The first contact of a network, depth first (the one an edit below changes), or null. */
+function firstContact(node: NetworkNode): Contact | null {
+  if (node.kind === 'contact') return node;
+  const children = node.kind === 'series' ? node.items : node.kind === 'parallel' ? node.branches : [];
+  for (const child of children) {
+    const found = firstContact(child);
+    if (found !== null) return found;
+  }
+  return null;
+}
+
+/**
+ * The case's document after edit number `n`, as the workbench recompiles a running program: a copy
+ * made through JSON (so no cache kept for the original document or its plan applies) whose rung
+ * `n` (modulo the rung count) has its first contact examine another input. Returns the copy and
+ * whether it is within the document limits; the copy is made before any timing.
+ */
+export function editedProgram(spec: CaseSpec, n: number): { program: Program; space: AddressSpace; within: boolean } {
+  const { program, space } = caseProgram(spec);
+  const copy = JSON.parse(JSON.stringify(program)) as Program;
+  const rungs = copy.rungs;
+  for (let k = 0; k < rungs.length; k += 1) {
+    const contact = firstContact(rungs[(n + k) % rungs.length]!.network);
+    if (contact === null) continue;
+    const input = `%IX${(n % space.inputs) + 1}`;
+    (contact as { operand: string }).operand = contact.operand === input ? `%IX${((n + 1) % space.inputs) + 1}` : input;
+    break;
+  }
+  return { program: copy, space, within: withinDocumentLimits(copy) };
+}
+
+/** Compile an edited document to a first scan (see `editedProgram`): ms of `nowMs`. */
+export function compileEdited(edited: ReturnType<typeof editedProgram>, nowMs: () => number): number {
+  const t0 = nowMs();
+  const plan = planFor(edited.program, edited.space, edited.within);
+  createRuntime(plan, { scanMs: SCAN_MS }).scan();
+  return nowMs() - t0;
+}
+
+/** Edits compiled per case for the "after an edit" figure: fewer for the largest programs. */
+export const editCount = (rungs: number): number => (rungs >= 5000 ? 5 : 9);
+
 /**
  * Compile and start a case on both sides. `module` is the generated baseline's module (generated
  * cases); `nowMs` a millisecond clock for the compile figures.
@@ -171,8 +219,9 @@ export function caseProgram(spec: CaseSpec): { program: Program; space: AddressS
 export function prepareCase(spec: CaseSpec, module: BaselineModule | null, nowMs: () => number): PreparedCase {
   const { program, space, demo, generated } = caseProgram(spec);
   const patterns = inputPatterns(space.inputs, 1009, 11);
+  const within = withinDocumentLimits(program);
   const t0 = nowMs();
-  const plan = planFor(program, space);
+  const plan = planFor(program, space, within);
   const t1 = nowMs();
   const runtime = createRuntime(plan, { scanMs: SCAN_MS });
   const t2 = nowMs();

@@ -20,12 +20,12 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { caseProgram, caseSpecs, prepareCase, type BaselineModule, type CaseSpec } from './engine-cases';
+import { caseProgram, caseSpecs, compileEdited, editCount, editedProgram, prepareCase, type BaselineModule, type CaseSpec } from './engine-cases';
 import { checkAgreement, measure } from './engine-measure';
 import { engineTargets, type EngineFigures } from './engine-targets';
 import { enginePageCases } from './engine-page';
 import type { BenchCase } from './run';
-import { round } from './stats';
+import { median, round } from './stats';
 
 const TMP = path.resolve('.tmp/bench');
 
@@ -56,6 +56,8 @@ async function nodeCase(spec: CaseSpec): Promise<EngineFigures> {
   const file = writeBaseline(spec);
   const module = file === null ? null : ((await import(pathToFileURL(file).href)) as BaselineModule);
   const prepared = prepareCase(spec, module, () => cpuMicros() / 1000);
+  const edits: number[] = [];
+  for (let n = 0; n < editCount(spec.rungs); n += 1) edits.push(compileEdited(editedProgram(spec, n), () => cpuMicros() / 1000));
   checkAgreement(spec.id, spec.rungs >= 5000 ? 200 : 1000, prepared.engine, prepared.baseline);
   const timing = await measure(prepared.engine, prepared.baseline, {
     clock: cpuMicros,
@@ -75,6 +77,7 @@ async function nodeCase(spec: CaseSpec): Promise<EngineFigures> {
     compileMs: prepared.compileMs,
     runtimeMs: prepared.runtimeMs,
     firstScanMs: prepared.firstScanMs,
+    editMs: median(edits),
   };
 }
 
@@ -90,6 +93,7 @@ export function toBenchCase(f: EngineFigures): BenchCase {
     compileMs: round(f.compileMs, 1),
     createRuntimeMs: round(f.runtimeMs, 1),
     firstScanMs: round(f.firstScanMs, 1),
+    editCompileMs: round(f.editMs, 1),
     warmupMs: Math.round(f.warmupMs),
   };
 }
