@@ -6,7 +6,7 @@
  * the workbench.
  */
 import { createRuntime, type Plan } from '@shared/engine';
-import { caseProgram, caseSpecs, compileEdited, editedProgram, planFor, prepareCase, SCAN_MS, withinDocumentLimits, type BaselineModule, type PreparedCase } from './engine-cases';
+import { agreementScans, caseProgram, caseSpecs, compileEdited, editedProgram, planFor, prepareCase, SCAN_MS, withinDocumentLimits, type BaselineModule, type PreparedCase } from './engine-cases';
 import { checkAgreement } from './engine-measure';
 
 export interface EnginePageApi {
@@ -63,7 +63,7 @@ export function installEngineBench(modules: Readonly<Record<string, BaselineModu
     prepare(id) {
       const s = spec(id);
       prepared = prepareCase(s, modules[id] ?? null, () => performance.now());
-      checkAgreement(id, s.rungs >= 5000 ? 200 : 1000, prepared.engine, prepared.baseline);
+      checkAgreement(id, agreementScans(s.rungs), prepared.engine, prepared.baseline);
     },
     run(side, from, n) {
       prepared![side].run(from, n);

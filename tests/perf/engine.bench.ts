@@ -20,7 +20,7 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { caseProgram, caseSpecs, compileEdited, editCount, editedProgram, prepareCase, type BaselineModule, type CaseSpec } from './engine-cases';
+import { agreementScans, caseProgram, caseSpecs, compileEdited, editCount, editedProgram, prepareCase, type BaselineModule, type CaseSpec } from './engine-cases';
 import { checkAgreement, measure } from './engine-measure';
 import { engineTargets, type EngineFigures } from './engine-targets';
 import { enginePageCases } from './engine-page';
@@ -58,7 +58,7 @@ async function nodeCase(spec: CaseSpec): Promise<EngineFigures> {
   const prepared = prepareCase(spec, module, () => cpuMicros() / 1000);
   const edits: number[] = [];
   for (let n = 0; n < editCount(spec.rungs); n += 1) edits.push(compileEdited(editedProgram(spec, n), () => cpuMicros() / 1000));
-  checkAgreement(spec.id, spec.rungs >= 5000 ? 200 : 1000, prepared.engine, prepared.baseline);
+  checkAgreement(spec.id, agreementScans(spec.rungs), prepared.engine, prepared.baseline);
   const timing = await measure(prepared.engine, prepared.baseline, {
     clock: cpuMicros,
     sampleUs: 5000,
