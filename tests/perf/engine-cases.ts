@@ -7,7 +7,7 @@ import { compile, createRuntime, type Plan, type Runtime, type RuntimeSnapshot }
 import { lowerProgram } from '@shared/engine/lower';
 import { checkDocumentBounds } from '@shared/ladder/bounds';
 import type { AddressSpace } from '@shared/ladder/addresses';
-import type { BlockType, Contact, NetworkNode, Program } from '@shared/ladder/schema';
+import type { BlockType, NetworkNode, Program } from '@shared/ladder/schema';
 import { createDemoState, demoCases, type DemoCase, type DemoState } from './engine-demo';
 import { inputPatterns, type MemoryImage, type Subject } from './engine-measure';
 import { BENCH_SPACE, benchProgram, type BaselineBlock, type ProgramShape } from './engine-programs';
@@ -182,34 +182,44 @@ function makeCaseProgram(spec: CaseSpec): CaseProgram {
   return { program: generated.program, space: BENCH_SPACE, generated };
 }
 
-/** The first contact of a network, depth first (the one an edit below changes), or null. */
-function firstContact(node: NetworkNode): Contact | null {
-  if (node.kind === 'contact') return node;
-  const children = node.kind === 'series' ? node.items : node.kind === 'parallel' ? node.branches : [];
-  for (const child of children) {
-    const found = firstContact(child);
-    if (found !== null) return found;
+/**
+ * `node` with its first contact (depth first) examining `operand` instead, copied along the path
+ * to it and sharing everything else, as a pure edit does; null when it holds no contact.
+ */
+function withFirstContact(node: NetworkNode, operand: (old: string) => string): NetworkNode | null {
+  if (node.kind === 'contact') return { ...node, operand: operand(node.operand) };
+  if (node.kind !== 'series' && node.kind !== 'parallel') return null;
+  const children = node.kind === 'series' ? node.items : node.branches;
+  for (let i = 0; i < children.length; i += 1) {
+    const changed = withFirstContact(children[i]!, operand);
+    if (changed === null) continue;
+    const copy = children.slice();
+    copy[i] = changed;
+    return node.kind === 'series' ? { ...node, items: copy } : { ...node, branches: copy };
   }
   return null;
 }
 
 /**
- * The case's document after edit number `n`, as the workbench recompiles a running program: a copy
- * made through JSON (so no cache kept for the original document or its plan applies) whose rung
- * `n` (modulo the rung count) has its first contact examine another input. Returns the copy and
- * whether it is within the document limits; the copy is made before any timing.
+ * The case's document after edit number `n`, as the workbench recompiles a running program: a new
+ * document whose rung `n` (modulo the rung count) has its first contact examine another input, made
+ * the way the editor's pure edits make one (the path to the change copied, every other rung and node
+ * shared). No cache kept for the original document, its plan or its module applies to it: those
+ * are kept per document and per plan, and the module's bytes differ. Made before any timing.
  */
 export function editedProgram(spec: CaseSpec, n: number): { program: Program; space: AddressSpace; within: boolean } {
   const { program, space } = caseProgram(spec);
-  const copy = JSON.parse(JSON.stringify(program)) as Program;
-  const rungs = copy.rungs;
+  const rungs = program.rungs.slice();
+  const input = `%IX${(n % space.inputs) + 1}`;
+  const other = `%IX${((n + 1) % space.inputs) + 1}`;
   for (let k = 0; k < rungs.length; k += 1) {
-    const contact = firstContact(rungs[(n + k) % rungs.length]!.network);
-    if (contact === null) continue;
-    const input = `%IX${(n % space.inputs) + 1}`;
-    (contact as { operand: string }).operand = contact.operand === input ? `%IX${((n + 1) % space.inputs) + 1}` : input;
+    const at = (n + k) % rungs.length;
+    const network = withFirstContact(rungs[at]!.network, (old) => (old === input ? other : input));
+    if (network === null) continue;
+    rungs[at] = { ...rungs[at]!, network: network as Program['rungs'][number]['network'] };
     break;
   }
+  const copy: Program = { ...program, rungs };
   return { program: copy, space, within: withinDocumentLimits(copy) };
 }
 
