@@ -271,15 +271,10 @@ export function kernelModule(plan: Plan, layout: StateLayout, options: { recordF
  */
 const MAX_NODE_BYTES = { series: 32, parallel: 40, contact: 56, coil: 80, block: 512 } as const satisfies Record<PlanOp, number>;
 
-/** An upper bound of the size of a plan's recording module, in bytes. */
+/** An upper bound of the size of a plan's recording module, in bytes (from the node counts of lowering). */
 export function moduleBytesBound(plan: Plan): number {
   let bytes = 1024 + 64 * plan.space.inputs;
-  const visit = (node: PlanNode): void => {
-    bytes += MAX_NODE_BYTES[node.op];
-    if (node.op === 'series') node.items.forEach(visit);
-    else if (node.op === 'parallel') node.branches.forEach(visit);
-  };
-  for (const rung of plan.rungs) visit(rung.network);
+  for (const op of Object.keys(MAX_NODE_BYTES) as PlanOp[]) bytes += MAX_NODE_BYTES[op] * plan.nodeCounts[op];
   return bytes;
 }
 

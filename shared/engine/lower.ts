@@ -15,7 +15,7 @@ import type { Block, Coil, Contact, NetworkNode, Program } from '../ladder/schem
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
 import { COIL_KINDS, CONTACT_KINDS } from './elements';
 import { bitLayout, type BitLayout, type Plan, type PlanBlockInput, type PlanEdge, type PlanInstance } from './plan';
-import type { PlanNode, PlanSeries, PlanSource } from './plan';
+import type { PlanNode, PlanOp, PlanRung, PlanSeries, PlanSource } from './plan';
 
 /** The outcome of lowering: a plan, or the diagnostics that stopped it. */
 export type LowerResult = { ok: true; plan: Plan } | { ok: false; diagnostics: Diagnostic[] };
@@ -38,6 +38,7 @@ interface Lowering {
   readonly path: number[];
   rungId: string;
   elementCount: number;
+  readonly nodeCounts: Record<PlanOp, number>;
 }
 
 /** Lower a program that validation passed. Never throws for anything in the document. */
@@ -58,21 +59,31 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
     path: [],
     rungId: '',
     elementCount: 0,
+    nodeCounts: { series: 0, parallel: 0, contact: 0, coil: 0, block: 0 },
   };
   for (const [key, type] of symbols.instances) {
     context.instanceIndex.set(key, context.instances.length);
     context.instances.push({ name: symbols.spellings.get(key) ?? key, key, type });
   }
-  const flowIndex = new Map<string, number>();
-  const rungs = program.rungs.map((rung) => {
+  const rungs: PlanRung[] = new Array<PlanRung>(program.rungs.length);
+  const rootFlows: number[] = new Array<number>(program.rungs.length);
+  for (let r = 0; r < program.rungs.length; r += 1) {
+    const rung = program.rungs[r]!;
     context.rungId = rung.id;
     const network = lowerNode(rung.network, context) as PlanSeries;
-    flowIndex.set(rung.id, network.flow);
-    return { id: rung.id, network };
-  });
+    rootFlows[r] = network.flow;
+    rungs[r] = { id: rung.id, network };
+  }
   if (context.diagnostics.length > 0) return { ok: false, diagnostics: context.diagnostics };
   const { flowIds } = context;
-  for (let index = 0; index < flowIds.length; index += 1) if (!flowIndex.has(flowIds[index]!)) flowIndex.set(flowIds[index]!, index);
+  // Only a live view looks nodes up by id: the index is built on its first use, not on every compile.
+  let flowIndex: Map<string, number> | null = null;
+  const indexFlows = (): Map<string, number> => {
+    const index = new Map<string, number>();
+    for (let r = 0; r < rungs.length; r += 1) index.set(rungs[r]!.id, rootFlows[r]!);
+    for (let at = 0; at < flowIds.length; at += 1) if (!index.has(flowIds[at]!)) index.set(flowIds[at]!, at);
+    return index;
+  };
   return {
     ok: true,
     plan: {
@@ -84,18 +95,21 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
       instances: context.instances,
       edges: context.edges,
       flowIds,
-      flowIndex,
+      get flowIndex() {
+        return (flowIndex ??= indexFlows());
+      },
       elementCount: context.elementCount,
+      nodeCounts: context.nodeCounts,
     },
   };
 }
 
 function lowerChildren(children: readonly NetworkNode[], context: Lowering): PlanNode[] {
-  const lowered: PlanNode[] = [];
+  const lowered: PlanNode[] = new Array<PlanNode>(children.length);
   const { path } = context;
   for (let i = 0; i < children.length; i += 1) {
     path.push(i);
-    lowered.push(lowerNode(children[i]!, context));
+    lowered[i] = lowerNode(children[i]!, context);
     path.pop();
   }
   return lowered;
@@ -104,6 +118,7 @@ function lowerChildren(children: readonly NetworkNode[], context: Lowering): Pla
 function lowerNode(node: NetworkNode, context: Lowering): PlanNode {
   const flow = context.flowIds.length;
   context.flowIds.push(node.id);
+  context.nodeCounts[node.kind] += 1;
   switch (node.kind) {
     case 'series':
       return { op: 'series', id: node.id, flow, items: lowerChildren(node.items, context) };

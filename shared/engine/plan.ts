@@ -123,6 +123,8 @@ export interface Plan {
   readonly flowIndex: ReadonlyMap<string, number>;
   /** Element count, for sizing and benchmarks. */
   readonly elementCount: number;
+  /** Nodes of each kind, counted while lowering (the module's size bound needs no other walk). */
+  readonly nodeCounts: Readonly<Record<PlanOp, number>>;
 }
 
 /** Lay the three areas out one after another in a single bit image. */

@@ -6,12 +6,12 @@
  * Why: every program reaching `compile` has been through `parseProgram` where it entered (load,
  * save, import) or is a pure edit of one, yet `compile` must not trust that; running the whole
  * zod schema again cost more than the rest of compiling (30 ms of 1,000 rungs on this machine).
- * This walk costs a few milliseconds. It may refuse a document the schema would take (then the
+ * This one walk, which also checks the size limits (`checkDocumentBounds`, whose generic walk
+ * alone cost 10 ms there), costs about a millisecond. It may refuse a document the schema would take (then the
  * schema runs, with its located messages); it must never accept one the schema would refuse or
  * change, which the tests check against the schema on generated and mutated documents.
  */
-import { BlockTypeSchema, CoilVariantSchema, ContactVariantSchema, PROGRAM_FORMAT, PROGRAM_VERSION, type Program } from '../ladder/schema';
-import { checkDocumentBounds } from '../ladder/bounds';
+import { BlockTypeSchema, CoilVariantSchema, ContactVariantSchema, DOCUMENT_LIMITS as BOUNDS, PROGRAM_FORMAT, PROGRAM_VERSION, type Program } from '../ladder/schema';
 
 const ID = /^[A-Za-z0-9_-]+$/;
 const TAG_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
@@ -57,20 +57,36 @@ function keysWithin(value: Plain, required: number, optional: string | null): bo
   return count === required || (optional !== null && count === required + 1 && Object.hasOwn(value, optional));
 }
 
-const text = (value: unknown, max: number): boolean => typeof value === 'string' && value.length <= max;
+/** A string of at most `max` characters without NUL (which `checkDocumentBounds` refuses everywhere). */
+const text = (value: unknown, max: number): boolean => typeof value === 'string' && value.length <= max && (value.length === 0 || value.indexOf('\u0000') < 0);
+// The id pattern admits no NUL.
 const id = (value: unknown): boolean => typeof value === 'string' && value.length >= 1 && value.length <= L.id && ID.test(value);
 const comment = (node: Plain): boolean => node.comment === undefined ? !Object.hasOwn(node, 'comment') : text(node.comment, L.elementComment);
 
 function isInputs(value: unknown): boolean {
   if (!isRecord(value)) return false;
-  for (const key in value) if (!Object.hasOwn(value, key) || !text(value[key], L.operand)) return false;
+  for (const key in value) if (!Object.hasOwn(value, key) || key.indexOf('\u0000') >= 0 || !text(value[key], L.operand)) return false;
   return true;
 }
 
-/** A network node; ids go into `ids`, false on a repeat. */
-function isNode(value: unknown, ids: Set<string>): boolean {
-  if (!isRecord(value) || !id(value.id) || ids.has(value.id as string)) return false;
-  ids.add(value.id as string);
+/**
+ * The walk's running state: ids seen, and the node counts `DOCUMENT_LIMITS` bounds (counted here
+ * as `checkDocumentBounds` counts them, so the schema's bounds pass need not walk again).
+ */
+interface Walk {
+  readonly ids: Set<string>;
+  /** Nodes in the rung being walked, and in the rungs before it. */
+  rungNodes: number;
+  programNodes: number;
+}
+
+/** A network node at nesting `depth` (series and parallel above it, the root series 1); false on a repeated id or a limit passed. */
+function isNode(value: unknown, depth: number, walk: Walk): boolean {
+  if (!isRecord(value) || !id(value.id) || walk.ids.has(value.id as string)) return false;
+  walk.ids.add(value.id as string);
+  walk.rungNodes += 1;
+  walk.programNodes += 1;
+  if (walk.rungNodes > BOUNDS.nodesPerRung || walk.programNodes > BOUNDS.nodesPerProgram) return false;
   switch (value.kind) {
     case 'contact':
       return keysWithin(value, 4, 'comment') && CONTACT_VARIANTS.has(value.variant) && text(value.operand, L.operand) && comment(value);
@@ -79,17 +95,17 @@ function isNode(value: unknown, ids: Set<string>): boolean {
     case 'block':
       return keysWithin(value, 5, 'comment') && BLOCK_TYPES.has(value.type) && text(value.instance, L.instance) && isInputs(value.inputs) && comment(value);
     case 'series':
-      return keysWithin(value, 3, null) && isChildren(value.items, L.seriesItems, ids);
+      return keysWithin(value, 3, null) && depth + 1 <= BOUNDS.depth && isChildren(value.items, L.seriesItems, depth + 1, walk);
     case 'parallel':
-      return keysWithin(value, 3, null) && isChildren(value.branches, L.parallelBranches, ids);
+      return keysWithin(value, 3, null) && depth + 1 <= BOUNDS.depth && isChildren(value.branches, L.parallelBranches, depth + 1, walk);
     default:
       return false;
   }
 }
 
-function isChildren(value: unknown, max: number, ids: Set<string>): boolean {
+function isChildren(value: unknown, max: number, depth: number, walk: Walk): boolean {
   if (!Array.isArray(value) || value.length > max) return false;
-  for (let i = 0; i < value.length; i += 1) if (!isNode(value[i], ids)) return false;
+  for (let i = 0; i < value.length; i += 1) if (!isNode(value[i], depth, walk)) return false;
   return true;
 }
 
@@ -109,19 +125,21 @@ function isTag(value: unknown): boolean {
 /** True only when `parseProgram(value)` would accept `value` and return an equal program. */
 export function isParsedProgram(value: unknown): value is Program {
   if (!isRecord(value) || !keysWithin(value, 6, null)) return false;
-  // The size limits (depth, nodes per rung and per program, no NUL) as parseProgram checks them,
-  // first: they also bound the recursion of the walk below.
-  if (checkDocumentBounds(value) !== null) return false;
   if (value.format !== PROGRAM_FORMAT || value.version !== PROGRAM_VERSION) return false;
   if (!text(value.title, L.title) || !text(value.description, L.description)) return false;
   const { tags, rungs } = value;
   if (!Array.isArray(tags) || tags.length > L.tags || !tags.every(isTag)) return false;
   if (!Array.isArray(rungs) || rungs.length > L.rungs) return false;
-  const ids = new Set<string>();
-  for (const rung of rungs) {
+  // One walk checks the schema's fields and the size limits `parseProgram` checks first (depth,
+  // nodes per rung and per program, no NUL anywhere); the depth limit also bounds its recursion.
+  const walk: Walk = { ids: new Set<string>(), rungNodes: 0, programNodes: 0 };
+  const { ids } = walk;
+  for (let r = 0; r < rungs.length; r += 1) {
+    const rung: unknown = rungs[r];
     if (!isRecord(rung) || !keysWithin(rung, 3, null) || !id(rung.id) || ids.has(rung.id as string) || !text(rung.comment, L.rungComment)) return false;
     ids.add(rung.id as string);
-    if (!isRecord(rung.network) || rung.network.kind !== 'series' || !isNode(rung.network, ids)) return false;
+    walk.rungNodes = 0;
+    if (!isRecord(rung.network) || rung.network.kind !== 'series' || !isNode(rung.network, 0, walk)) return false;
   }
   return true;
 }

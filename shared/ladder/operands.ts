@@ -10,9 +10,8 @@
 import { BLOCK_SPECS } from './blocks';
 import { formatAddress, parseAddress, type Address } from './addresses';
 import { fail, ok, type Result } from './result';
-import type { BlockType, Program } from './schema';
+import type { BlockType, NetworkNode, Program } from './schema';
 import { looksLikeTimeLiteral, parseTimeLiteral } from './time';
-import { elementsOfProgram } from './walk';
 
 /** A resolved operand. */
 export type Operand =
@@ -60,8 +59,16 @@ export const RESERVED_WORDS: ReadonlySet<string> = new Set([
   ...Object.keys(BLOCK_SPECS),
 ]);
 
-/** Collect the tags and block instances of a program. */
+/**
+ * Symbol tables already built, per document object: documents are immutable and a table is
+ * read-only, so validation and the engine's lowering of the same document share one.
+ */
+const symbolTables = new WeakMap<Program, SymbolTable>();
+
+/** Collect the tags and block instances of a program (once per document object). */
 export function buildSymbolTable(program: Program): SymbolTable {
+  const known = symbolTables.get(program);
+  if (known !== undefined) return known;
   const tags = new Map<string, Address>();
   const invalidTags = new Map<string, string>();
   const instances = new Map<string, BlockType>();
@@ -74,14 +81,21 @@ export function buildSymbolTable(program: Program): SymbolTable {
     else invalidTags.set(key, parsed.error);
     spellings.set(key, tag.name);
   }
-  for (const { element } of elementsOfProgram(program)) {
-    if (element.kind !== 'block' || element.instance.trim() === '') continue;
-    const key = symbolKey(element.instance);
-    if (instances.has(key)) continue;
-    instances.set(key, element.type);
-    if (!spellings.has(key)) spellings.set(key, element.instance.trim());
-  }
-  return { tags, instances, spellings, invalidTags };
+  // Blocks in document order (rung by rung, depth first), without building a path per node.
+  const visit = (node: NetworkNode): void => {
+    if (node.kind === 'series') for (const item of node.items) visit(item);
+    else if (node.kind === 'parallel') for (const branch of node.branches) visit(branch);
+    else if (node.kind === 'block' && node.instance.trim() !== '') {
+      const key = symbolKey(node.instance);
+      if (instances.has(key)) return;
+      instances.set(key, node.type);
+      if (!spellings.has(key)) spellings.set(key, node.instance.trim());
+    }
+  };
+  for (const rung of program.rungs) visit(rung.network);
+  const table: SymbolTable = { tags, instances, spellings, invalidTags };
+  symbolTables.set(program, table);
+  return table;
 }
 
 /** Integer literals: decimal with `_`, or `2#`, `8#`, `16#` based (IEC 61131-3 clause 6.3.2, Table 5 [memory]). */

@@ -6,7 +6,7 @@
  * the workbench.
  */
 import { createRuntime, type Plan } from '@shared/engine';
-import { caseProgram, caseSpecs, planFor, prepareCase, SCAN_MS, type BaselineModule, type PreparedCase } from './engine-cases';
+import { agreementScans, caseProgram, caseSpecs, compileEdited, editedProgram, planFor, prepareCase, SCAN_MS, withinDocumentLimits, type BaselineModule, type PreparedCase } from './engine-cases';
 import { checkAgreement } from './engine-measure';
 
 export interface EnginePageApi {
@@ -18,6 +18,10 @@ export interface EnginePageApi {
   createRuntime(): void;
   /** Its first scan (which compiles the code it runs). */
   firstScan(): void;
+  /** Make edited copy `n` of the case's document (see `editedProgram`), to compile in the next step. */
+  edit(id: string, n: number): void;
+  /** Compile that copy to its first scan. */
+  compileEdit(): void;
   /** Prepare the case on both sides and check they agree scan for scan. */
   prepare(id: string): void;
   run(side: 'engine' | 'baseline', from: number, n: number): void;
@@ -25,9 +29,11 @@ export interface EnginePageApi {
 
 export function installEngineBench(modules: Readonly<Record<string, BaselineModule>>): void {
   let loaded: ReturnType<typeof caseProgram> | null = null;
+  let within = false;
   let plan: Plan | null = null;
   let started: ReturnType<typeof createRuntime> | null = null;
   let prepared: PreparedCase | null = null;
+  let edited: ReturnType<typeof editedProgram> | null = null;
   const spec = (id: string) => {
     const found = caseSpecs().find((s) => s.id === id);
     if (found === undefined) throw new Error(`no engine bench case ${id}`);
@@ -36,9 +42,10 @@ export function installEngineBench(modules: Readonly<Record<string, BaselineModu
   const api: EnginePageApi = {
     load(id) {
       loaded = caseProgram(spec(id));
+      within = withinDocumentLimits(loaded.program);
     },
     compile() {
-      plan = planFor(loaded!.program, loaded!.space);
+      plan = planFor(loaded!.program, loaded!.space, within);
       return plan.elementCount;
     },
     createRuntime() {
@@ -47,10 +54,16 @@ export function installEngineBench(modules: Readonly<Record<string, BaselineModu
     firstScan() {
       started!.scan();
     },
+    edit(id, n) {
+      edited = editedProgram(spec(id), n);
+    },
+    compileEdit() {
+      compileEdited(edited!, () => 0);
+    },
     prepare(id) {
       const s = spec(id);
       prepared = prepareCase(s, modules[id] ?? null, () => performance.now());
-      checkAgreement(id, s.rungs >= 5000 ? 200 : 1000, prepared.engine, prepared.baseline);
+      checkAgreement(id, agreementScans(s.rungs), prepared.engine, prepared.baseline);
     },
     run(side, from, n) {
       prepared![side].run(from, n);

@@ -18,10 +18,11 @@ import { build } from 'vite';
 import { securityHeaders } from '../../server/http/security';
 import { missingChromiumHint } from '../e2e/support/chromium';
 import { launchBenchBrowser } from './benchBrowser';
-import type { CaseSpec } from './engine-cases';
+import { editCount, type CaseSpec } from './engine-cases';
 import { measure } from './engine-measure';
 import type { EngineFigures } from './engine-targets';
 import type { BenchCase } from './run';
+import { median } from './stats';
 
 const ROOT = path.resolve('.tmp/bench-page');
 
@@ -102,6 +103,11 @@ export async function enginePageCases(specs: readonly CaseSpec[]): Promise<{ fig
       const [compileMs, elements] = await timed('engineBench.compile()');
       const [runtimeMs] = await timed('engineBench.createRuntime()');
       const [firstScanMs] = await timed('engineBench.firstScan()');
+      const edits: number[] = [];
+      for (let n = 0; n < editCount(spec.rungs); n += 1) {
+        await call(`engineBench.edit(${id}, ${n})`);
+        edits.push((await timed('engineBench.compileEdit()'))[0]);
+      }
       await call(`engineBench.prepare(${id})`);
       const side = (name: 'engine' | 'baseline') => ({ run: (from: number, n: number) => call(`engineBench.run('${name}', ${from}, ${n})`).then(() => undefined) });
       const timing = await measure(side('engine'), side('baseline'), {
@@ -122,6 +128,7 @@ export async function enginePageCases(specs: readonly CaseSpec[]): Promise<{ fig
         compileMs,
         runtimeMs,
         firstScanMs,
+        editMs: median(edits),
       };
       figures.push(f);
       console.error(JSON.stringify({ case: `engine chromium ${f.id}`, engineUs: f.engineUs, baselineUs: f.baselineUs, ratio: Math.round((f.baselineUs / f.engineUs) * 1000) / 1000 }));

@@ -4,6 +4,9 @@
  * little-endian). Writing is amortised O(1) per byte, so a module of a million bytes is built in
  * a few milliseconds.
  */
+/** `i32.const` (WebAssembly Core Specification 2.0, section 5.4.7); see `opcodes.ts`. */
+const OP_I32_CONST = 0x41;
+
 export class ByteWriter {
   private bytes = new Uint8Array(1024);
   private size = 0;
@@ -32,6 +35,34 @@ export class ByteWriter {
     this.room(2);
     this.bytes[this.size++] = a;
     this.bytes[this.size++] = b;
+  }
+
+  /**
+   * A memory access at a constant address, the engine's commonest instruction sequence:
+   * `i32.const 0`, then `opcode align offset` with the offset as unsigned LEB128. One bounds check
+   * and no further call for the usual offset below 2^14 (compiling a long program writes tens of
+   * thousands of these, much of it before the JavaScript engine has optimised this code).
+   */
+  access(opcode: number, align: number, offset: number): void {
+    if (!(offset >= 0 && offset < 0x4000 && offset === Math.floor(offset))) {
+      this.pair(OP_I32_CONST, 0);
+      this.pair(opcode, align);
+      this.u32(offset);
+      return;
+    }
+    this.room(6);
+    const bytes = this.bytes;
+    let at = this.size;
+    bytes[at++] = OP_I32_CONST;
+    bytes[at++] = 0;
+    bytes[at++] = opcode;
+    bytes[at++] = align;
+    if (offset < 0x80) bytes[at++] = offset;
+    else {
+      bytes[at++] = (offset & 0x7f) | 0x80;
+      bytes[at++] = offset >>> 7;
+    }
+    this.size = at;
   }
 
   /** Unsigned LEB128 of a whole number 0..2^32-1. */

@@ -54,33 +54,40 @@ export class Code {
     this.out.f64(value);
   }
 
+  // Locals are numbered below 128 (a few scratch ones and one per parallel nesting level, at most
+  // 32), so an index is one LEB128 byte; `u32` checks that anyway for a larger one.
   get(local: number): void {
-    this.out.byte(OP.localGet);
-    this.out.u32(local);
+    if ((local & 0x7f) === local) this.out.pair(OP.localGet, local);
+    else {
+      this.out.byte(OP.localGet);
+      this.out.u32(local);
+    }
   }
 
   set(local: number): void {
-    this.out.byte(OP.localSet);
-    this.out.u32(local);
+    if ((local & 0x7f) === local) this.out.pair(OP.localSet, local);
+    else {
+      this.out.byte(OP.localSet);
+      this.out.u32(local);
+    }
   }
 
   tee(local: number): void {
-    this.out.byte(OP.localTee);
-    this.out.u32(local);
+    if ((local & 0x7f) === local) this.out.pair(OP.localTee, local);
+    else {
+      this.out.byte(OP.localTee);
+      this.out.u32(local);
+    }
   }
 
   /** Push the cell (an i32: 0 or 1 for a bit) at byte `address`. */
   loadCell(address: number): void {
-    this.out.pair(OP.i32Const, 0);
-    this.out.pair(OP.i32Load, ALIGN.cell);
-    this.out.u32(address);
+    this.out.access(OP.i32Load, ALIGN.cell, address);
   }
 
   /** Push the double at byte `address` (8-aligned). */
   loadF64(address: number): void {
-    this.out.pair(OP.i32Const, 0);
-    this.out.pair(OP.f64Load, ALIGN.f64);
-    this.out.u32(address);
+    this.out.access(OP.f64Load, ALIGN.f64, address);
   }
 
   /**

@@ -115,7 +115,7 @@ describe('isParsedProgram', () => {
     at(SCHEMA_LIMITS.rungs, (n) => b.program(Array.from({ length: n }, (_, i) => ({ id: `r${i}`, comment: '', network: { kind: 'series', id: `s${i}`, items: [] } }))));
   });
 
-  it('holds the size limits parseProgram checks first: depth, nodes per program, no NUL', () => {
+  it('holds the size limits parseProgram checks first: depth, nodes per rung and per program, no NUL', () => {
     const b = programBuilder();
     const at = (limit: number, make: (n: number) => Program): void => {
       expect([isParsedProgram(make(limit)), parseProgram(make(limit)).ok]).toEqual([true, true]);
@@ -139,7 +139,39 @@ describe('isParsedProgram', () => {
         }),
       );
     at(DOCUMENT_LIMITS.nodesPerProgram, many);
-    expect(isParsedProgram({ ...b.program([]), title: 'a\u0000b' })).toBe(false);
+    // One rung of `total` nodes: its root series, parallels of up to 64 contacts, and contacts.
+    const wide = (total: number): Program => {
+      const items: Node[] = [];
+      let left = total - 1;
+      for (let p = 0; left > 0; p += 1) {
+        const branches = Math.min(64, left - 1);
+        if (branches < 1) {
+          items.push({ kind: 'contact', id: `x${p}`, variant: 'no', operand: '' });
+          left -= 1;
+          continue;
+        }
+        items.push({ kind: 'parallel', id: `p${p}`, branches: Array.from({ length: branches }, (_, i): Node => ({ kind: 'contact', id: `c${p}_${i}`, variant: 'no', operand: '' })) });
+        left -= branches + 1;
+      }
+      return b.program([{ id: 'r', comment: '', network: { kind: 'series', id: 's', items } }]);
+    };
+    at(DOCUMENT_LIMITS.nodesPerRung, wide);
+    // NUL is refused in every string, a block input's name included.
+    const nul = 'a\u0000b';
+    const block = (inputs: Record<string, string>): Program => b.program([{ id: 'r', comment: '', network: { kind: 'series', id: 's', items: [{ kind: 'block', id: 'k', type: 'TON', instance: 'T1', inputs }] } }]);
+    for (const doc of [
+      { ...b.program([]), title: nul },
+      { ...b.program([]), description: nul },
+      { ...b.program([]), tags: [{ name: 'a', address: '%IX1', comment: nul }] },
+      b.program([{ id: 'r', comment: nul, network: { kind: 'series', id: 's', items: [] } }]),
+      b.program([{ id: 'r', comment: '', network: { kind: 'series', id: 's', items: [{ kind: 'contact', id: 'c', variant: 'no', operand: nul }] } }]),
+      b.program([{ id: 'r', comment: '', network: { kind: 'series', id: 's', items: [{ kind: 'coil', id: 'c', variant: 'coil', operand: '%QX1', comment: nul }] } }]),
+      block({ PT: nul }),
+      block({ [nul]: 'T#1s' }),
+    ]) {
+      expect([isParsedProgram(doc), parseProgram(doc).ok]).toEqual([false, false]);
+    }
+    expect([isParsedProgram(block({ PT: 'T#1s' })), parseProgram(block({ PT: 'T#1s' })).ok]).toEqual([true, true]);
   });
 
   it('leaves a document it refuses to the schema, whose message compile passes on', () => {
