@@ -55,22 +55,29 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
     },
     { flush: 'sync' },
   );
-  // The simulation store brings the engine and the field models with it (over 130 kB of code that
-  // was evaluated before the workbench's first rungs): it is imported here, not statically. No
-  // simulation runs before the dock that starts one has loaded, which happens after the first paint.
   const scope = getCurrentScope();
-  const watchingSimulation = import('@/stores/simulation').then(({ useSimulationStore }) => {
-    if (!scope?.active) return;
-    scope.run(() => {
-      const simulation = useSimulationStore();
-      watch(
-        () => simulation.mode,
-        (mode) => {
-          if (mode === 'running' && (dockTab.value === 'inspector' || dockTab.value === 'tags')) dockTab.value = 'panel';
-        },
-      );
+  let following: Promise<void> | null = null;
+  /**
+   * From now on the dock tab follows the simulation. Its store brings the engine and the field
+   * models with it (over 130 kB of code, evaluated before the first rungs when it was imported
+   * here statically, or even lazily at setup), so the surface calls this once its rungs are on
+   * screen: the workbench does with the rest of its chrome, which holds the dock that runs one.
+   */
+  function followSimulation(): Promise<void> {
+    following ??= import('@/stores/simulation').then(({ useSimulationStore }) => {
+      if (!scope?.active) return;
+      scope.run(() => {
+        const simulation = useSimulationStore();
+        watch(
+          () => simulation.mode,
+          (mode) => {
+            if (mode === 'running' && (dockTab.value === 'inspector' || dockTab.value === 'tags')) dockTab.value = 'panel';
+          },
+        );
+      });
     });
-  });
+    return following;
+  }
 
   editor.setEffects({
     zoomBy: (f) => canvas.value?.zoomBy(f),
@@ -104,6 +111,5 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
   onMounted(() => window.addEventListener('keydown', onPageKey));
   onBeforeUnmount(() => window.removeEventListener('keydown', onPageKey));
 
-  /** `watchingSimulation` resolves once the dock tab follows the simulation (its store loaded). */
-  return { dockTab, errorCount, watchingSimulation };
+  return { dockTab, errorCount, followSimulation };
 }
