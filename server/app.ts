@@ -85,6 +85,9 @@ export function createApp(deps: AppDependencies): Express {
 
   const app = express();
   app.disable('x-powered-by');
+  // No ETag on `res.send`/`res.json`: every API answer is `no-store`, so a hash of each body (a whole
+  // program document on a load or a save) was work nobody used. Static files keep theirs (serve-static).
+  app.disable('etag');
   app.set('trust proxy', trustProxySetting(deps.config.TRUST_PROXY));
   app.use(securityHeaders());
   app.use(requestLogging(logger));

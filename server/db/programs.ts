@@ -105,9 +105,9 @@ export interface NewVersion {
 export type AppendResult = { ok: true; version: ProgramVersion } | { ok: false; head: VersionSummary | null };
 
 /**
- * Appends version `baseVersion + 1` if the head is still `baseVersion`; else reports the head.
- * One conditional statement decides (see `versionBatches.ts`, which also groups concurrent saves
- * into one statement).
+ * Appends version `baseVersion + 1` if the head is still `baseVersion`, deleting the author's draft
+ * of the program with it; else reports the head. One conditional statement decides (see
+ * `versionBatches.ts`, which also groups concurrent saves into one statement).
  */
 export async function appendVersion(db: Db, v: NewVersion): Promise<AppendResult> {
   const number = await appendVersionBatched(db, {

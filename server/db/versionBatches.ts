@@ -10,12 +10,17 @@
  * Each save in a batch keeps its own outcome: a batch never holds two saves of the same program
  * (the second waits for the next batch, so it sees the first's new head and gets its 409), and if
  * a batch's statement fails, its saves are retried one by one so one bad save cannot fail others.
- * Plain PostgreSQL: the same statement runs on a PostgreSQL server.
+ * The same statement deletes each saved version's author's draft of the program (the version holds
+ * what the draft kept): as a statement of its own per save it was one more PGlite round per save
+ * beside one per batch. Plain PostgreSQL: the same statement runs on a PostgreSQL server.
  */
 import { sql, type SQL } from 'drizzle-orm';
 import { executeRows, type Db } from './client';
 
-/** One save: append version `baseVersion + 1` to `programId` if its head is still `baseVersion`. */
+/**
+ * One save: append version `baseVersion + 1` to `programId` if its head is still `baseVersion`,
+ * and then delete `authorId`'s draft of the program.
+ */
 export interface VersionWrite {
   programId: string;
   baseVersion: number;
@@ -129,7 +134,10 @@ async function appendVersions(db: Db, writes: VersionWrite[]): Promise<Map<strin
       moved as (
         update programs p set head_version = p.head_version + 1, updated_at = i.at
         from input i where p.id = i.program_id and p.head_version = i.base
-        returning p.id, p.head_version)
+        returning p.id, p.head_version),
+      cleared as (
+        delete from drafts d using moved m, input i
+        where i.program_id = m.id and d.program_id = m.id and d.user_id = i.author_id)
       insert into program_versions (program_id, number, document, message, author_id, created_at)
       select m.id, m.head_version, i.document, i.message, i.author_id, i.at from moved m join input i on i.program_id = m.id
       returning program_id, number`,

@@ -54,8 +54,3 @@ export async function discardDraft(ctx: AppContext, actor: User, programId: stri
   await db.deleteDraft(ctx.orm, programId, actor.id);
   return success(null);
 }
-
-/** A version was saved by `userId`: their draft of the program is now part of it. */
-export async function clearDraftAfterSave(ctx: AppContext, userId: string, programId: string): Promise<void> {
-  await db.deleteDraft(ctx.orm, programId, userId);
-}

@@ -13,7 +13,6 @@ import { failure, success, type Outcome } from '../http/failure';
 import { programAccess, programListAccess, type ProgramAction } from '../policies/programPolicy';
 import { refusal } from '../policies/access';
 import { checkProgramDocument, diffProgramDocuments } from './ladderDocuments';
-import { clearDraftAfterSave } from './drafts';
 import { authorisedLab } from './labs';
 import { programView, versionDetailView, versionView } from './views';
 
@@ -97,11 +96,9 @@ async function append(ctx: AppContext, actor: User, programId: string, baseVersi
   const checked = checkProgramDocument(document);
   if (!checked.ok) return checked;
   const result = await db.appendVersion(ctx.orm, { programId, baseVersion, document: checked.value, message, authorId: actor.id, now: ctx.clock.now() });
-  if (result.ok) {
-    // The saved version holds what the draft kept; a draft left behind would be offered back as newer work.
-    await clearDraftAfterSave(ctx, actor.id, programId);
-    return success(versionDetailView(result.version));
-  }
+  // The saved version holds what the draft kept, so the same statement deleted the actor's draft:
+  // a draft left behind would be offered back as newer work.
+  if (result.ok) return success(versionDetailView(result.version));
   if (!result.head) return failure('not_found', 'This program does not exist or is not open to you');
   return failure('version_conflict', `Version ${result.head.number} was saved after version ${baseVersion}; load it and apply your change again`, {
     details: { head: versionView(result.head) },

@@ -69,21 +69,36 @@ function describeIssues(issues: readonly z.core.$ZodIssue[], root: unknown, pref
   return issues.flatMap((issue) => describeIssue(issue, root, prefix));
 }
 
+/** Whether `path` is the place of a network node: an item of a series or a branch of a parallel. */
+function isNodePlace(path: readonly PathKey[]): boolean {
+  return path.length >= 2 && typeof path.at(-1) === 'number' && (path.at(-2) === 'items' || path.at(-2) === 'branches');
+}
+
+/** What is wrong with the network node at `path` whose `kind` names no kind of node. */
+function describeNode(root: unknown, path: readonly PathKey[]): string {
+  const where = formatIssuePath(path);
+  const value = valueAt(root, path);
+  if (value === null || typeof value !== 'object' || Array.isArray(value)) {
+    return `${where}: expected a network node (an object with a "kind"), got ${describeValue(value)}`;
+  }
+  const kind = (value as { kind?: unknown }).kind;
+  if (typeof kind !== 'string') return `${where}: a network node needs a "kind" (contact, coil, block, series or parallel)`;
+  return `${where}: unknown element kind "${kind}" (expected contact, coil, block, series or parallel)`;
+}
+
 function describeIssue(issue: z.core.$ZodIssue, root: unknown, prefix: readonly PathKey[]): string[] {
   const path = [...prefix, ...issue.path];
   const where = formatIssuePath(path);
+  // A network node is chosen by its `kind` (a discriminated union): a node whose kind names no
+  // kind of node is reported at the node's `kind`; one that is not an object, as a wrong type.
+  if (issue.code === 'invalid_union' && path.at(-1) === 'kind' && isNodePlace(path.slice(0, -1))) return [describeNode(root, path.slice(0, -1))];
+  if (issue.code === 'invalid_type' && issue.expected === 'object' && isNodePlace(path)) return [describeNode(root, path)];
   if (issue.code === 'invalid_union') {
+    // Any other union (none today): explain the node by the schema of its kind where it has one.
     const value = valueAt(root, path);
-    if (value === null || typeof value !== 'object' || Array.isArray(value)) {
-      return [`${where}: expected a network node (an object with a "kind"), got ${describeValue(value)}`];
-    }
-    const kind = (value as { kind?: unknown }).kind;
-    if (typeof kind !== 'string') return [`${where}: a network node needs a "kind" (contact, coil, block, series or parallel)`];
-    if (!(kind in NODE_SCHEMAS)) {
-      return [`${where}: unknown element kind "${kind}" (expected contact, coil, block, series or parallel)`];
-    }
-    const schema = NODE_SCHEMAS[kind as keyof typeof NODE_SCHEMAS];
-    const parsed = schema.safeParse(value);
+    const kind = value !== null && typeof value === 'object' ? (value as { kind?: unknown }).kind : undefined;
+    if (typeof kind !== 'string' || !(kind in NODE_SCHEMAS)) return [describeNode(root, path)];
+    const parsed = NODE_SCHEMAS[kind as keyof typeof NODE_SCHEMAS].safeParse(value);
     if (!parsed.success) return describeIssues(parsed.error.issues, root, path);
     return [`${where}: ${issue.message}`];
   }

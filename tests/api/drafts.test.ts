@@ -53,6 +53,17 @@ describe('a program\'s draft', () => {
     expect((await call(t, 'delete', `/api/programs/${id}/draft`, owner())).status).toBe(204);
   });
 
+  it('is cleared for each of several saves that arrive together, and only for the programs saved', async () => {
+    const ids = await Promise.all(['Together 1', 'Together 2', 'Left alone'].map((title) => createProgramAs(t, cast.studentA, title)));
+    for (const id of ids) await putDraft(id, { baseVersion: 1, document: documentWithRungs(3) });
+    // Sent at once, so the server's group commit takes them in one statement (server/db/versionBatches.ts).
+    const saves = await Promise.all(ids.slice(0, 2).map((id) => call(t, 'post', `/api/programs/${id}/versions`, owner()).send({ baseVersion: 1, document: documentWithRungs(3) })));
+    expect(saves.map((r) => r.status)).toEqual([201, 201]);
+    expect((await draftOf(ids[0]!)).body).toEqual({ draft: null });
+    expect((await draftOf(ids[1]!)).body).toEqual({ draft: null });
+    expect((await draftOf(ids[2]!)).body.draft.baseVersion).toBe(1);
+  });
+
   it('is not cleared by a save that was refused (a conflict)', async () => {
     const id = await createProgramAs(t, cast.studentA, 'Conflicted');
     await call(t, 'post', `/api/programs/${id}/versions`, owner()).send({ baseVersion: 1, document: documentWithRungs(2) });

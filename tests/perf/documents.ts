@@ -1,5 +1,5 @@
 /**
- * Documents the benchmarks send: a realistic student program of 20 rungs (about 8.5 kB of JSON,
+ * Documents the benchmarks send: a realistic student program of 20 rungs (8,912 bytes of JSON,
  * the size of a finished lab with tags and rung comments), built from the simulator's three-wire
  * demo and the kinds of rungs the labs ask for. Demo data (Larch Hollow Timber Co., invented).
  */

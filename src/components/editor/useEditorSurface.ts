@@ -8,14 +8,13 @@
  * double-click) or inserted (its operand is to be typed next), and back to the panel when the
  * simulation starts running: editing shows the element, running shows what the student operates.
  */
-import { computed, onBeforeUnmount, onMounted, ref, watch, type Ref } from 'vue';
+import { computed, getCurrentScope, onBeforeUnmount, onMounted, ref, watch, type Ref } from 'vue';
 import { allIds } from '@shared/ladder/walk';
 import { command, commandForKey } from '@/editor/commands/registry';
 import type { EditorEffects } from '@/editor/commands/types';
 import type RungCanvas from '@/components/editor/RungCanvas.vue';
 import type InspectorPanel from '@/components/editor/InspectorPanel.vue';
 import { useEditorStore } from '@/stores/editor';
-import { useSimulationStore } from '@/stores/simulation';
 
 /** The effects that differ between the two surfaces, and what Ctrl/Cmd+S does on each. */
 export interface EditorSurfaceOptions {
@@ -40,7 +39,6 @@ export type DockTab = 'panel' | 'io' | 'inspector' | 'tags' | 'proof';
 export function useEditorSurface(options: EditorSurfaceOptions) {
   const editor = useEditorStore();
   const { canvas, inspector } = options;
-  const simulation = useSimulationStore();
   const dockTab = ref<DockTab>('panel');
   const errorCount = computed(() => editor.diagnostics.filter((d) => d.severity === 'error').length);
 
@@ -57,12 +55,29 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
     },
     { flush: 'sync' },
   );
-  watch(
-    () => simulation.mode,
-    (mode) => {
-      if (mode === 'running' && (dockTab.value === 'inspector' || dockTab.value === 'tags')) dockTab.value = 'panel';
-    },
-  );
+  const scope = getCurrentScope();
+  let following: Promise<void> | null = null;
+  /**
+   * From now on the dock tab follows the simulation. Its store brings the engine and the field
+   * models with it (over 130 kB of code, evaluated before the first rungs when it was imported
+   * here statically, or even lazily at setup), so the surface calls this once its rungs are on
+   * screen: the workbench does with the rest of its chrome, which holds the dock that runs one.
+   */
+  function followSimulation(): Promise<void> {
+    following ??= import('@/stores/simulation').then(({ useSimulationStore }) => {
+      if (!scope?.active) return;
+      scope.run(() => {
+        const simulation = useSimulationStore();
+        watch(
+          () => simulation.mode,
+          (mode) => {
+            if (mode === 'running' && (dockTab.value === 'inspector' || dockTab.value === 'tags')) dockTab.value = 'panel';
+          },
+        );
+      });
+    });
+    return following;
+  }
 
   editor.setEffects({
     zoomBy: (f) => canvas.value?.zoomBy(f),
@@ -96,5 +111,5 @@ export function useEditorSurface(options: EditorSurfaceOptions) {
   onMounted(() => window.addEventListener('keydown', onPageKey));
   onBeforeUnmount(() => window.removeEventListener('keydown', onPageKey));
 
-  return { dockTab, errorCount };
+  return { dockTab, errorCount, followSimulation };
 }

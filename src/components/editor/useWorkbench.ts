@@ -56,7 +56,7 @@ export function useWorkbench(options: WorkbenchOptions) {
     saveOpen.value = true;
   }
 
-  const { dockTab, errorCount } = useEditorSurface({
+  const { dockTab, errorCount, followSimulation } = useEditorSurface({
     canvas: options.canvas,
     inspector: options.inspector,
     effects: {
@@ -195,6 +195,7 @@ export function useWorkbench(options: WorkbenchOptions) {
     doc,
     dockTab,
     errorCount,
+    followSimulation,
     messagesOpen,
     historyOpen,
     stOpen,

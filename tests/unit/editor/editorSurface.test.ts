@@ -21,7 +21,7 @@ function mountSurface() {
     },
   });
   const wrapper = mount(Host, { global: { plugins: [pinia] } });
-  return { wrapper, dockTab: surface!.dockTab, editor: useEditorStore(), simulation: useSimulationStore() };
+  return { wrapper, dockTab: surface!.dockTab, followSimulation: surface!.followSimulation, editor: useEditorStore(), simulation: useSimulationStore() };
 }
 
 describe('the dock tab of an editing surface', () => {
@@ -55,7 +55,8 @@ describe('the dock tab of an editing surface', () => {
   });
 
   it('turns back to the panel when the simulation starts running', async () => {
-    const { wrapper, dockTab, editor, simulation } = mountSurface();
+    const { wrapper, dockTab, followSimulation, editor, simulation } = mountSurface();
+    await followSimulation();
     const program = threeWireProgram();
     editor.load(program);
     simulation.load(program);

@@ -44,6 +44,14 @@ describe('parseProgram', () => {
     expect(error(withRungs(rungOf('r1', 42)))).toBe('rungs[0].network.items[0]: expected a network node (an object with a "kind"), got 42');
   });
 
+  it('says what is wrong with a node whose kind is missing or not a name, or that is not an object', () => {
+    const inBranch = (node: unknown) => withRungs(rungOf('r1', { kind: 'parallel', id: 'p', branches: [contact('c1'), node] }));
+    expect(error(inBranch({ id: 'x' }))).toBe('rungs[0].network.items[0].branches[1]: a network node needs a "kind" (contact, coil, block, series or parallel)');
+    expect(error(inBranch({ kind: 7, id: 'x' }))).toBe('rungs[0].network.items[0].branches[1]: a network node needs a "kind" (contact, coil, block, series or parallel)');
+    expect(error(inBranch([contact('c2')]))).toBe('rungs[0].network.items[0].branches[1]: expected a network node (an object with a "kind"), got a list');
+    expect(error(inBranch(null))).toBe('rungs[0].network.items[0].branches[1]: expected a network node (an object with a "kind"), got null');
+  });
+
   it('says when the document is not a Rungwright program or another version', () => {
     expect(error([])).toBe('the document is not a Rungwright program: expected a JSON object, got a list');
     expect(error({ ...base, format: 'other', rungs: [] })).toBe('format: not a Rungwright program (expected "rungwright.program")');
