@@ -62,11 +62,15 @@ function replaySteps(path: readonly SearchNode[], from: number, to: number, ctx:
 
 const keysOf = (...conditions: (Condition | undefined)[]): string[] => [...new Set(conditions.flatMap((c) => (c ? Object.keys(c) : [])))];
 
+/** A check script's title and step labels hold 200 characters; a property's label may itself be 200 long. */
+const MAX_SCRIPT_TEXT = 200;
+const words = (text: string): string => (text.length <= MAX_SCRIPT_TEXT ? text : `${text.slice(0, MAX_SCRIPT_TEXT - 1)}…`);
+
 /** The check script that reproduces the path to `hit` for `property` (its label names the property). */
 export function counterexampleScript(property: Property, label: string, hit: SearchNode, goalIndex: number, ctx: ScriptContext): CheckScript {
   const path = pathTo(hit);
   const last = path.length - 1;
-  const base = { panel: ctx.panelId, scanMs: ctx.scanMs, settleMs: 0, title: `Counterexample: ${label}` };
+  const base = { panel: ctx.panelId, scanMs: ctx.scanMs, settleMs: 0, title: words(`Counterexample: ${label}`) };
   if ('after' in property) {
     // Back from the violation to the scan where the oldest waiting trigger became true.
     // The hit is the first scan past the window: the script covers the window up to the scan before.
@@ -74,11 +78,11 @@ export function counterexampleScript(property: Property, label: string, hit: Sea
     let trigger = end;
     while (trigger > 0 && monitorAge(path[trigger]!.monitors[goalIndex]!) !== 0) trigger -= 1;
     const steps: Step[] = replaySteps(path, 0, trigger, ctx);
-    steps.push({ expect: ctx.actual(path[trigger]!, keysOf(property.after, property.expect)), label: `the trigger becomes true: ${label}` });
+    steps.push({ expect: ctx.actual(path[trigger]!, keysOf(property.after, property.expect)), label: words(`the trigger becomes true: ${label}`) });
     // Then every scan of the window, where the expectation must never hold; moves split the span.
     let scans = 0;
     const flush = (): void => {
-      if (scans > 0) steps.push({ during: scans * ctx.scanMs, never: property.expect, label: `still not as expected: ${label}` });
+      if (scans > 0) steps.push({ during: scans * ctx.scanMs, never: property.expect, label: words(`still not as expected: ${label}`) });
       scans = 0;
     };
     for (let i = trigger + 1; i <= end; i += 1) {
@@ -95,6 +99,6 @@ export function counterexampleScript(property: Property, label: string, hit: Sea
   const steps = replaySteps(path, 0, last, ctx);
   const expect =
     'never' in property ? property.never : 'reachable' in property ? property.reachable : ctx.actual(hit, keysOf(property.always, property.when));
-  steps.push({ expect, label: 'reachable' in property ? `reached: ${label}` : `violated: ${label}` });
+  steps.push({ expect, label: words('reachable' in property ? `reached: ${label}` : `violated: ${label}`) });
   return { ...base, steps };
 }

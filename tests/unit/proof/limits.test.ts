@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { CheckScriptSchema } from '@shared/checks';
 import { REVERSING_CONVEYOR } from '@shared/field';
 import { standardLab } from '@shared/labs';
 import { prove, type Property } from '@shared/proof';
@@ -28,5 +29,15 @@ describe('a cut search never claims a proof', () => {
     if (!result.ok) throw new Error(result.errors.join('\n'));
     expect(result.results[0]).toMatchObject({ verdict: 'reached', depth: 0 });
     expect(result.results[0]!.counterexample!.steps).toEqual([{ press: 'S2' }, { wait: 10 }, { expect: { H1: 'sounding' }, label: 'reached: reachable H1 sounding' }]);
+  });
+
+  it('keeps a counterexample a valid check script when the property’s label is as long as a label may be', () => {
+    const long = 'K1 and K2 '.repeat(20); // 200 characters
+    const result = prove({ program: standardLab('forward-reverse')!.solution, panel: REVERSING_CONVEYOR, properties: [{ reachable: { K1: 'closed' }, label: long }] });
+    if (!result.ok) throw new Error(result.errors.join('\n'));
+    const script = result.results[0]!.counterexample!;
+    expect(CheckScriptSchema.safeParse(script).success).toBe(true);
+    expect(script.title).toHaveLength(200);
+    expect(script.title!.endsWith('…')).toBe(true);
   });
 });
