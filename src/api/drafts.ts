@@ -7,6 +7,7 @@
 import { DraftResponseSchema, type SaveDraftRequest } from '@shared/api/drafts';
 import { createHttp, type Http } from './http';
 import { SESSION_EXPIRED_EVENT } from './instance';
+import { putOnLeave } from './sendOnLeave';
 
 const enc = encodeURIComponent;
 export const DRAFT_ENDPOINT = (programId: string) => `/api/programs/${enc(programId)}/draft`;
@@ -17,21 +18,8 @@ export function createDraftsApi(http: Http, fetchImpl: typeof fetch = (input, in
     save: (programId: string, body: SaveDraftRequest) =>
       http.json(DRAFT_ENDPOINT(programId), DraftResponseSchema, { method: 'PUT', body }).then((r) => r.draft),
     discard: (programId: string) => http.raw(DRAFT_ENDPOINT(programId), { method: 'DELETE' }).then(() => undefined),
-    /**
-     * The draft sent while the page is hidden or closing: `keepalive` lets the request outlive the
-     * page (browsers cap such bodies at 64 KB; a bigger document relies on the last autosave).
-     */
-    sendOnLeave: (programId: string, body: SaveDraftRequest): void => {
-      const text = JSON.stringify(body);
-      if (text.length > 60_000) return;
-      void fetchImpl(DRAFT_ENDPOINT(programId), {
-        method: 'PUT',
-        keepalive: true,
-        credentials: 'same-origin',
-        headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
-        body: text,
-      }).catch(() => undefined);
-    },
+    /** The draft sent while the page is hidden or closing (`sendOnLeave.ts`; a bigger document relies on the last autosave). */
+    sendOnLeave: (programId: string, body: SaveDraftRequest): void => putOnLeave(fetchImpl, DRAFT_ENDPOINT(programId), body),
   };
 }
 

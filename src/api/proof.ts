@@ -7,6 +7,7 @@
 import { ProofSheetResponseSchema, type ProofSheet } from '@shared/api/proof';
 import { createHttp, type Http } from './http';
 import { SESSION_EXPIRED_EVENT } from './instance';
+import { putOnLeave } from './sendOnLeave';
 
 const enc = encodeURIComponent;
 export const PROOF_ENDPOINT = (programId: string) => `/api/programs/${enc(programId)}/proof`;
@@ -15,18 +16,8 @@ export function createProofApi(http: Http, fetchImpl: typeof fetch = (input, ini
   return {
     get: (programId: string) => http.json(PROOF_ENDPOINT(programId), ProofSheetResponseSchema),
     save: (programId: string, sheet: ProofSheet) => http.json(PROOF_ENDPOINT(programId), ProofSheetResponseSchema, { method: 'PUT', body: sheet }),
-    /** The sheet sent while the page is hidden or closing: `keepalive` lets the request outlive the page (browsers cap such bodies at 64 KB). */
-    sendOnLeave: (programId: string, sheet: ProofSheet): void => {
-      const text = JSON.stringify(sheet);
-      if (text.length > 60_000) return;
-      void fetchImpl(PROOF_ENDPOINT(programId), {
-        method: 'PUT',
-        keepalive: true,
-        credentials: 'same-origin',
-        headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
-        body: text,
-      }).catch(() => undefined);
-    },
+    /** The sheet sent while the page is hidden or closing (`sendOnLeave.ts`). */
+    sendOnLeave: (programId: string, sheet: ProofSheet): void => putOnLeave(fetchImpl, PROOF_ENDPOINT(programId), sheet),
   };
 }
 
