@@ -10,7 +10,9 @@
  * comments) ever enters it, and it can touch nothing but its own memory.
  *
  * With `recordFlow`, every node also stores the power on its left and right into the flow record:
- * the variant a live view runs. Without it, nothing is recorded (grading, the command line).
+ * the variant a live view runs. Without it, nothing is recorded (grading, the command line). With
+ * `forces`, every write into a bit goes through its force masks; without, it is a plain store,
+ * right while nothing is forced (the machine picks the variant, see `machine.ts`).
  */
 import { BLOCK_SPECS } from '../ladder/blocks';
 import type { BlockEmit } from './blocks/blockEmit';
@@ -29,6 +31,7 @@ const CHUNK_ELEMENTS = 400;
 const FLOW_TEMP = 0;
 const COIL_POWER = 1;
 const EDGE_VALUE = 2;
+const FIELD_WORD = 3;
 /** A block call's BOOL inputs, the power-flow input first (CTUD has the most: 4). */
 const BLOCK_BOOLS = 4;
 const BLOCK_SCRATCH_I32 = 8;
@@ -41,6 +44,14 @@ interface Emitting {
   readonly plan: Plan;
   readonly layout: StateLayout;
   readonly recordFlow: boolean;
+  readonly forces: boolean;
+}
+
+export interface KernelOptions {
+  /** Store the power on both sides of every node (a live view). */
+  readonly recordFlow: boolean;
+  /** Let forced bits keep their forced value (needed only while a bit is forced). */
+  readonly forces: boolean;
 }
 
 function checkedAddress(n: number): number {
@@ -94,6 +105,10 @@ function pushNumber(e: Emitting, source: PlanSource): void {
  */
 function endStoreBit(e: Emitting, bit: number): void {
   const { code, layout } = e;
+  if (!e.forces) {
+    code.endStoreCell(bitAt(bit));
+    return;
+  }
   code.loadCell(bitAt(bit, layout.keep));
   code.op(OP.i32And);
   code.loadCell(bitAt(bit, layout.forced));
@@ -225,12 +240,26 @@ function chunkRungs(rungs: readonly PlanRung[]): PlanRung[][] {
   return chunks;
 }
 
-/** Input image: each input bit = its field value, or its forced value (step 1 of the scan cycle). */
+/**
+ * Input image: each input bit = its field value (bit `i % 32` of field word `i / 32`), or its
+ * forced value (step 1 of the scan cycle).
+ */
 function emitInputImage(e: Emitting): void {
   const { code, plan, layout } = e;
+  const word = code.i32Temp(FIELD_WORD);
   for (let i = 0; i < plan.space.inputs; i += 1) {
+    if (i % 32 === 0) {
+      code.loadCell(bitAt(i / 32, layout.field));
+      code.set(word);
+    }
     code.storeBase();
-    code.loadCell(bitAt(i, layout.field));
+    code.get(word);
+    if (i % 32 !== 0) {
+      code.i32(i % 32);
+      code.op(OP.i32ShrU);
+    }
+    code.i32(1);
+    code.op(OP.i32And);
     endStoreBit(e, plan.layout.inputs + i);
   }
 }
@@ -239,7 +268,7 @@ function emitInputImage(e: Emitting): void {
  * The module's bytes. Each rung is solved from a left rail that is ON (IEC 61131-3 clause 8.2.7
  * [memory for the sub-number]); a coil's write is visible at once to every later element.
  */
-export function kernelModule(plan: Plan, layout: StateLayout, options: { recordFlow: boolean }): Uint8Array {
+export function kernelModule(plan: Plan, layout: StateLayout, options: KernelOptions): Uint8Array {
   const emitRungs = (e: Emitting, rungs: readonly PlanRung[]): void => {
     for (const rung of rungs) {
       e.code.i32(1);
@@ -248,12 +277,12 @@ export function kernelModule(plan: Plan, layout: StateLayout, options: { recordF
     }
   };
   const chunks = chunkRungs(plan.rungs);
-  const scan: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow };
+  const scan: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow, forces: options.forces };
   emitInputImage(scan);
   // A small program is solved inside `scan` itself: a call costs as much as a few rungs.
   if (chunks.length === 1) emitRungs(scan, chunks[0]!);
   const functions = chunks.length === 1 ? [] : chunks.map((rungs) => {
-    const e: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow };
+    const e: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow, forces: options.forces };
     emitRungs(e, rungs);
     return e.code;
   });

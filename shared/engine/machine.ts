@@ -1,8 +1,10 @@
 /**
  * A machine: one runtime's WebAssembly memory (laid out by `stateLayout.ts`) and the kernels that
  * scan it. Kernel modules are compiled once per plan and shared by every machine of that plan (a
- * grading server runs many side by side); the variant that records power flow is compiled only
- * when someone watches.
+ * grading server runs many side by side). There are four variants, each compiled on first use:
+ * with or without the power-flow record (only when someone watches), and with or without forces
+ * (a write into a forced bit must not take effect; checking that on every write cost the 3-rung
+ * demo a third of its scan in Chromium, so the check is compiled in only while a bit is forced).
  */
 import type { BlockState } from './blocks/behaviours';
 import { BLOCK_BEHAVIOURS } from './blocks/behaviours';
@@ -23,15 +25,20 @@ export interface Machine {
   readonly cells: Int32Array;
   /** The whole memory as doubles (a record's number at byte address `a` is `numbers[a / 8]`). */
   readonly numbers: Float64Array;
-  /** The kernel that records power flow, or the one that does not (instantiated on first use). */
-  kernel(recordFlow: boolean): ScanKernel;
+  /**
+   * The kernel that records power flow or not, and that honours forces or not (instantiated on
+   * first use). The one without forces is right only while no bit is forced.
+   */
+  kernel(recordFlow: boolean, forces: boolean): ScanKernel;
 }
 
 interface PlanModules {
   readonly layout: StateLayout;
-  plain: WasmModule | null;
-  flow: WasmModule | null;
+  /** By variant: 1 = records power flow, 2 = honours forces. */
+  readonly variants: Array<WasmModule | undefined>;
 }
+
+const variantOf = (recordFlow: boolean, forces: boolean): number => (recordFlow ? 1 : 0) | (forces ? 2 : 0);
 
 /** Compiled modules by plan: plans are immutable, so a plan's modules never change. */
 const modulesByPlan = new WeakMap<Plan, PlanModules>();
@@ -39,17 +46,16 @@ const modulesByPlan = new WeakMap<Plan, PlanModules>();
 function modulesOf(plan: Plan): PlanModules {
   let modules = modulesByPlan.get(plan);
   if (modules === undefined) {
-    modules = { layout: stateLayout(plan), plain: null, flow: null };
+    modules = { layout: stateLayout(plan), variants: [] };
     modulesByPlan.set(plan, modules);
   }
   return modules;
 }
 
-function moduleOf(plan: Plan, recordFlow: boolean): WasmModule {
-  const modules = modulesOf(plan);
-  const key = recordFlow ? 'flow' : 'plain';
-  modules[key] ??= compileWasm(kernelModule(plan, modules.layout, { recordFlow }));
-  return modules[key];
+function moduleOf(plan: Plan, recordFlow: boolean, forces: boolean): WasmModule {
+  const { layout, variants } = modulesOf(plan);
+  const variant = variantOf(recordFlow, forces);
+  return (variants[variant] ??= compileWasm(kernelModule(plan, layout, { recordFlow, forces })));
 }
 
 /** WebAssembly memory is little-endian, and the runtime reads it through typed arrays, which follow the host. */
@@ -63,21 +69,33 @@ export function createMachine(plan: Plan): Machine {
   const bytes = new Uint8Array(memory.buffer);
   const cells = new Int32Array(memory.buffer);
   const numbers = new Float64Array(memory.buffer);
-  const kernels: [ScanKernel | null, ScanKernel | null] = [null, null];
+  const kernels: Array<ScanKernel | undefined> = [];
   const machine: Machine = {
     plan,
     layout,
     bytes,
     cells,
     numbers,
-    kernel(recordFlow) {
-      const at = recordFlow ? 1 : 0;
-      return (kernels[at] ??= instantiateKernel(moduleOf(plan, recordFlow), memory));
+    kernel(recordFlow, forces) {
+      return (kernels[variantOf(recordFlow, forces)] ??= instantiateKernel(moduleOf(plan, recordFlow, forces), memory));
     },
   };
   cells.fill(1, layout.keep / 4, layout.keep / 4 + plan.layout.size);
   plan.instances.forEach((instance, i) => writeRecord(machine, i, BLOCK_BEHAVIOURS[instance.type].initial));
   return machine;
+}
+
+/** The field value of input `i` (0-based), 0 or 1. */
+export function readField(machine: Machine, i: number): number {
+  return (machine.cells[(machine.layout.field >> 2) + (i >> 5)]! >>> (i & 31)) & 1;
+}
+
+/** Set the field value of input `i` (0-based). */
+export function writeField(machine: Machine, i: number, value: boolean): void {
+  const at = (machine.layout.field >> 2) + (i >> 5);
+  const bit = 1 << (i & 31);
+  const cells = machine.cells;
+  cells[at] = value ? cells[at]! | bit : cells[at]! & ~bit;
 }
 
 /** An instance's state as the plain object its step function takes (fields in the initial state's order). */

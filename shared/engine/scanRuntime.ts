@@ -8,7 +8,7 @@
 import { formatAddress } from '../ladder/addresses';
 import { ok, type Result } from '../ladder/result';
 import type { ForcedBit, RuntimeCore } from './core';
-import { createMachine, type Machine, type ScanKernel } from './machine';
+import { createMachine, writeField, type Machine, type ScanKernel } from './machine';
 import { resolveBit, resolveReader, type Reader } from './operandAccess';
 import type { Plan } from './plan';
 import { createPowerFlowView, type PowerFlowView } from './powerFlow';
@@ -40,17 +40,17 @@ class ScanRuntime implements Runtime {
   /** The running timers' ET cells found by the last `quietScans`. */
   private running: readonly number[] = [];
   private readonly readers = new Map<string, Reader | null>();
-  /** The field value cells, one per input (index 0 = %IX1). */
-  private readonly field: Int32Array;
+  /** The cell index of the first field word (inputs %IX1..%IX32; %IX33..%IX64 in the next). */
+  private readonly fieldCell: number;
 
   constructor(plan: Plan, scanMs: number, recordFlow: boolean) {
     this.plan = plan;
     this.scanMs = scanMs;
     this.machine = createMachine(plan);
-    this.field = this.machine.cells.subarray(this.machine.layout.field / 4, this.machine.layout.field / 4 + plan.space.inputs);
+    this.fieldCell = this.machine.layout.field >> 2;
     this.core = { plan, scanMs, machine: this.machine, forces: new Map(), scanCount: 0, timeMs: 0 };
     this.recording = recordFlow;
-    this.kernel = this.machine.kernel(recordFlow);
+    this.kernel = this.machine.kernel(recordFlow, false);
   }
 
   get scanCount(): number {
@@ -64,13 +64,27 @@ class ScanRuntime implements Runtime {
   setInput(index: number, value: boolean): void {
     const inputs = this.plan.space.inputs;
     if (!(index >= 1 && index <= inputs && Number.isInteger(index))) checkIndex(index, inputs, 'setInput', '%IX');
-    this.field[index - 1] = value ? 1 : 0;
+    writeField(this.machine, index - 1, value);
   }
 
+  // The inputs are packed into words here and given in one store per 32 (the kernel unpacks
+  // them): a store per input into the WebAssembly memory cost the 3-rung demo a fifth of its scan.
   setInputs(values: ArrayLike<boolean>): void {
-    const field = this.field;
-    const n = values.length < field.length ? values.length : field.length;
-    for (let i = 0; i < n; i += 1) field[i] = values[i] ? 1 : 0;
+    const inputs = this.plan.space.inputs;
+    const n = values.length < inputs ? values.length : inputs;
+    const cells = this.machine.cells;
+    const low = n < 32 ? n : 32;
+    let word = 0;
+    for (let i = 0; i < low; i += 1) word |= (values[i] ? 1 : 0) << i;
+    // Inputs past the end of `values` keep their field value.
+    const unchanged = low === 32 ? 0 : -1 << low;
+    cells[this.fieldCell] = (cells[this.fieldCell]! & unchanged) | word;
+    if (n > 32) {
+      word = 0;
+      for (let i = 32; i < n; i += 1) word |= (values[i] ? 1 : 0) << (i - 32);
+      const unchangedHigh = n === 64 ? 0 : -1 << (n - 32);
+      cells[this.fieldCell + 1] = (cells[this.fieldCell + 1]! & unchangedHigh) | word;
+    }
   }
 
   getOutput(index: number): boolean {
@@ -155,7 +169,7 @@ class ScanRuntime implements Runtime {
     const core = this.core;
     if (!this.recording) {
       this.recording = true;
-      this.kernel = this.machine.kernel(true);
+      this.chooseKernel();
     }
     const cached = this.flowCache;
     if (cached !== null && cached.scanCount === core.scanCount && cached.recorded === this.flowValid) return cached;
@@ -173,6 +187,7 @@ class ScanRuntime implements Runtime {
 
   restore(snapshot: RuntimeSnapshot): RestoreReport {
     const report = applySnapshot(this.core, snapshot, (bit, value) => this.forceBit(bit, value));
+    this.chooseKernel();
     this.stateReplaced();
     return report;
   }
@@ -196,6 +211,7 @@ class ScanRuntime implements Runtime {
     core.timeMs = state.timeMs;
     // Force maps are never changed once made (see setForces), so sharing one is safe.
     core.forces = state.forces as Map<string, ForcedBit>;
+    this.chooseKernel();
     this.stateReplaced();
   }
 
@@ -218,6 +234,12 @@ class ScanRuntime implements Runtime {
   /** Forces are replaced, never changed in place, so a saved state can share its map. */
   private setForces(forces: Map<string, ForcedBit>): void {
     this.core.forces = forces;
+    this.chooseKernel();
+  }
+
+  /** The kernel for what the runtime now needs: power flow if someone watches, forces if any. */
+  private chooseKernel(): void {
+    this.kernel = this.machine.kernel(this.recording, this.core.forces.size > 0);
   }
 
   private stateReplaced(): void {

@@ -10,7 +10,7 @@ import type { BlockType } from '../ladder/schema';
 import { BLOCK_BEHAVIOURS, isStateOf, type BlockState } from './blocks/behaviours';
 import type { RuntimeCore } from './core';
 import { bitIndex } from './lower';
-import { readRecord, writeRecord } from './machine';
+import { readField, readRecord, writeField, writeRecord } from './machine';
 import type { Plan } from './plan';
 
 export const SNAPSHOT_FORMAT = 'rungwright.runtime-snapshot';
@@ -59,7 +59,7 @@ export function takeSnapshot(core: RuntimeCore): RuntimeSnapshot {
     scanCount: core.scanCount,
     timeMs: core.timeMs,
     space: { ...plan.space },
-    field: area(0, plan.space.inputs, at.field),
+    field: Array.from({ length: plan.space.inputs }, (_, i) => readField(machine, i)),
     bits: {
       inputs: area(layout.inputs, layout.outputs),
       outputs: area(layout.outputs, layout.memory),
@@ -88,7 +88,6 @@ export function applySnapshot(
   const { layout } = plan;
   const { cells } = machine;
   const at = machine.layout;
-  const field = at.field / 4;
   const kept: string[] = [];
   const dropped: string[] = [];
 
@@ -100,8 +99,8 @@ export function applySnapshot(
     });
   };
   cells.fill(0, 0, layout.size);
-  cells.fill(0, field, field + plan.space.inputs);
-  copyBits(snapshot.field, plan.space.inputs, (i, v) => (cells[field + i] = v), '%IX');
+  cells.fill(0, at.field / 4, at.field / 4 + at.fieldWords);
+  copyBits(snapshot.field, plan.space.inputs, (i, v) => writeField(machine, i, v === 1), '%IX');
   copyBits(snapshot.bits?.inputs, plan.space.inputs, (i, v) => (cells[layout.inputs + i] = v), '%IX');
   copyBits(snapshot.bits?.outputs, plan.space.outputs, (i, v) => (cells[layout.outputs + i] = v), '%QX');
   copyBits(snapshot.bits?.memory, plan.space.memory, (i, v) => (cells[layout.memory + i] = v), '%MX');

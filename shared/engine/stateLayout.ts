@@ -8,7 +8,9 @@
  *   bits         the image: inputs, outputs, memory, from byte 0 (see `BitLayout`). The output
  *                bits are the output image: between scans only a force changes them, and a force
  *                changes the output image alike
- *   field        the field value of each input, as last given
+ *   field        the field value of each input, as last given: one bit per input in i32 words
+ *                (input `i` is bit `i % 32` of word `i / 32`), so a runtime gives a scan all its
+ *                inputs with one or two stores; the kernel spreads them into the input image
  *   edges        one cell per edge memory
  *   keep         one cell per bit: 1 where a write takes effect, 0 where the bit is forced
  *   forced       one cell per bit: the forced value of a forced bit, 0 elsewhere; a write stores
@@ -41,6 +43,8 @@ export interface RecordLayout {
 
 export interface StateLayout {
   readonly field: number;
+  /** Words of the field area (32 inputs each). */
+  readonly fieldWords: number;
   readonly edges: number;
   readonly keep: number;
   readonly forced: number;
@@ -87,7 +91,8 @@ export function recordLayoutOf(type: BlockType): RecordLayout {
 export function stateLayout(plan: Plan): StateLayout {
   const { size } = plan.layout;
   const field = align8(CELL * size);
-  const edges = field + CELL * plan.space.inputs;
+  const fieldWords = Math.ceil(plan.space.inputs / 32);
+  const edges = field + CELL * fieldWords;
   const keep = edges + CELL * plan.edges.length;
   const forced = keep + CELL * size;
   let at = align8(forced + CELL * size);
@@ -102,5 +107,5 @@ export function stateLayout(plan: Plan): StateLayout {
   const flowLeft = stateBytes;
   const flowRight = flowLeft + CELL * nodes;
   const end = flowRight + CELL * nodes;
-  return { field, edges, keep, forced, records, recordLayouts, stateBytes, flowLeft, flowRight, pages: Math.max(1, Math.ceil(end / PAGE_BYTES)) };
+  return { field, fieldWords, edges, keep, forced, records, recordLayouts, stateBytes, flowLeft, flowRight, pages: Math.max(1, Math.ceil(end / PAGE_BYTES)) };
 }

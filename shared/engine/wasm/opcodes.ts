@@ -28,6 +28,7 @@ export const OP = {
   i32And: 0x71,
   i32Or: 0x72,
   i32Xor: 0x73,
+  i32ShrU: 0x76,
   f64Trunc: 0x9d,
   f64Add: 0xa0,
   f64Sub: 0xa1,
