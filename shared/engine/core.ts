@@ -1,5 +1,6 @@
 /**
- * The mutable heart of a runtime, shared by the runtime (`scanRuntime.ts`) and the snapshot code.
+ * The mutable heart of a runtime, what the snapshot code reads and writes; the runtime
+ * (`scanRuntime.ts`) is one, so a scan updates its own fields and nothing else.
  */
 import type { Machine } from './machine';
 import type { Plan } from './plan';
@@ -15,7 +16,7 @@ export interface RuntimeCore {
   readonly scanMs: number;
   readonly machine: Machine;
   /** Forced bits by canonical address (`%IX1`). */
-  forces: Map<string, ForcedBit>;
+  forcedBits: Map<string, ForcedBit>;
   scanCount: number;
   timeMs: number;
 }

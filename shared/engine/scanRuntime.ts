@@ -25,15 +25,20 @@ export function createRuntime(plan: Plan, options: RuntimeOptions = {}): Runtime
   return new ScanRuntime(plan, scanMs, options.recordPowerFlow === true);
 }
 
-class ScanRuntime implements Runtime {
+class ScanRuntime implements Runtime, RuntimeCore {
   readonly plan: Plan;
   readonly scanMs: number;
-  private readonly core: RuntimeCore;
-  private readonly machine: Machine;
+  scanCount = 0;
+  timeMs = 0;
+  forcedBits = new Map<string, ForcedBit>();
+  readonly machine: Machine;
   private kernel: ScanKernel;
   private recording: boolean;
-  /** The last scan ran the recording kernel, and nothing has replaced the state since. */
-  private flowValid = false;
+  /**
+   * The flow record is valid after a later scan than this one: the scan count when recording
+   * began or the state was last replaced. (Kept as a number, so a scan itself writes nothing.)
+   */
+  private flowSince = 0;
   private flowCache: PowerFlowView | null = null;
   /** What the retained variables held when power was lost; null while the controller has power. */
   private kept: RetainedValues | null = null;
@@ -42,23 +47,19 @@ class ScanRuntime implements Runtime {
   private readonly readers = new Map<string, Reader | null>();
   /** The cell index of the first field word (inputs %IX1..%IX32; %IX33..%IX64 in the next). */
   private readonly fieldCell: number;
+  /** The machine's memory as cells, and the panel's input count (read on every `setInputs`). */
+  private readonly cells: Int32Array;
+  private readonly inputs: number;
 
   constructor(plan: Plan, scanMs: number, recordFlow: boolean) {
     this.plan = plan;
     this.scanMs = scanMs;
     this.machine = createMachine(plan);
     this.fieldCell = this.machine.layout.field >> 2;
-    this.core = { plan, scanMs, machine: this.machine, forces: new Map(), scanCount: 0, timeMs: 0 };
+    this.cells = this.machine.cells;
+    this.inputs = plan.space.inputs;
     this.recording = recordFlow;
     this.kernel = this.machine.kernel(recordFlow, false);
-  }
-
-  get scanCount(): number {
-    return this.core.scanCount;
-  }
-
-  get timeMs(): number {
-    return this.core.timeMs;
   }
 
   setInput(index: number, value: boolean): void {
@@ -70,21 +71,22 @@ class ScanRuntime implements Runtime {
   // The inputs are packed into words here and given in one store per 32 (the kernel unpacks
   // them): a store per input into the WebAssembly memory cost the 3-rung demo a fifth of its scan.
   setInputs(values: ArrayLike<boolean>): void {
-    const inputs = this.plan.space.inputs;
+    const inputs = this.inputs;
     const n = values.length < inputs ? values.length : inputs;
-    const cells = this.machine.cells;
-    const low = n < 32 ? n : 32;
+    const cells = this.cells;
+    const at = this.fieldCell;
     let word = 0;
-    for (let i = 0; i < low; i += 1) word |= (values[i] ? 1 : 0) << i;
-    // Inputs past the end of `values` keep their field value.
-    const unchanged = low === 32 ? 0 : -1 << low;
-    cells[this.fieldCell] = (cells[this.fieldCell]! & unchanged) | word;
-    if (n > 32) {
-      word = 0;
-      for (let i = 32; i < n; i += 1) word |= (values[i] ? 1 : 0) << (i - 32);
-      const unchangedHigh = n === 64 ? 0 : -1 << (n - 32);
-      cells[this.fieldCell + 1] = (cells[this.fieldCell + 1]! & unchangedHigh) | word;
+    if (n <= 32) {
+      for (let i = 0; i < n; i += 1) word |= (values[i] ? 1 : 0) << i;
+      // Inputs past the end of `values` keep their field value.
+      cells[at] = n === inputs || n === 32 ? word : (cells[at]! & (-1 << n)) | word;
+      return;
     }
+    for (let i = 0; i < 32; i += 1) word |= (values[i] ? 1 : 0) << i;
+    cells[at] = word;
+    word = 0;
+    for (let i = 32; i < n; i += 1) word |= (values[i] ? 1 : 0) << (i - 32);
+    cells[at + 1] = n === inputs || n === 64 ? word : (cells[at + 1]! & (-1 << (n - 32))) | word;
   }
 
   getOutput(index: number): boolean {
@@ -124,10 +126,8 @@ class ScanRuntime implements Runtime {
 
   scan(): void {
     if (this.kept === null) this.kernel(this.scanMs);
-    this.flowValid = this.recording && this.kept === null;
-    const core = this.core;
-    core.scanCount += 1;
-    core.timeMs += this.scanMs;
+    this.scanCount += 1;
+    this.timeMs += this.scanMs;
   }
 
   run(ms: number): void {
@@ -139,7 +139,7 @@ class ScanRuntime implements Runtime {
   force(operand: string, value: boolean): Result<void> {
     const bit = resolveBit(this.plan, operand);
     if (!bit.ok) return bit;
-    this.setForces(new Map(this.core.forces).set(formatAddress(bit.value.address), { bit: bit.value.bit, value }));
+    this.setForces(new Map(this.forcedBits).set(formatAddress(bit.value.address), { bit: bit.value.bit, value }));
     this.forceBit(bit.value.bit, value);
     return ok(undefined);
   }
@@ -148,45 +148,46 @@ class ScanRuntime implements Runtime {
     const bit = resolveBit(this.plan, operand);
     if (!bit.ok) return;
     const key = formatAddress(bit.value.address);
-    if (!this.core.forces.has(key)) return;
-    const forces = new Map(this.core.forces);
+    if (!this.forcedBits.has(key)) return;
+    const forces = new Map(this.forcedBits);
     forces.delete(key);
     this.setForces(forces);
     this.releaseBit(bit.value.bit);
   }
 
   clearForces(): void {
-    if (this.core.forces.size === 0) return;
-    for (const { bit } of this.core.forces.values()) this.releaseBit(bit);
+    if (this.forcedBits.size === 0) return;
+    for (const { bit } of this.forcedBits.values()) this.releaseBit(bit);
     this.setForces(new Map());
   }
 
   forces(): ReadonlyMap<string, boolean> {
-    return new Map([...this.core.forces].map(([key, { value }]) => [key, value]));
+    return new Map([...this.forcedBits].map(([key, { value }]) => [key, value]));
   }
 
   powerFlow(): PowerFlowView {
-    const core = this.core;
     if (!this.recording) {
       this.recording = true;
+      this.flowSince = this.scanCount;
       this.chooseKernel();
     }
+    const valid = this.kept === null && this.scanCount > this.flowSince;
     const cached = this.flowCache;
-    if (cached !== null && cached.scanCount === core.scanCount && cached.recorded === this.flowValid) return cached;
+    if (cached !== null && cached.scanCount === this.scanCount && cached.recorded === valid) return cached;
     const { cells, layout } = this.machine;
     const nodes = this.plan.flowIds.length;
     const side = (at: number): Uint8Array => Uint8Array.from(cells.subarray(at / 4, at / 4 + nodes));
-    const record = this.flowValid ? { left: side(layout.flowLeft), right: side(layout.flowRight) } : { left: new Uint8Array(nodes), right: new Uint8Array(nodes) };
-    this.flowCache = createPowerFlowView(this.plan, record, core.scanCount, this.flowValid);
+    const record = valid ? { left: side(layout.flowLeft), right: side(layout.flowRight) } : { left: new Uint8Array(nodes), right: new Uint8Array(nodes) };
+    this.flowCache = createPowerFlowView(this.plan, record, this.scanCount, valid);
     return this.flowCache;
   }
 
   snapshot(): RuntimeSnapshot {
-    return takeSnapshot(this.core);
+    return takeSnapshot(this);
   }
 
   restore(snapshot: RuntimeSnapshot): RestoreReport {
-    const report = applySnapshot(this.core, snapshot, (bit, value) => this.forceBit(bit, value));
+    const report = applySnapshot(this, snapshot, (bit, value) => this.forceBit(bit, value));
     this.chooseKernel();
     this.stateReplaced();
     return report;
@@ -194,23 +195,21 @@ class ScanRuntime implements Runtime {
 
   saveState(into?: SavedState): SavedState {
     const { bytes, layout } = this.machine;
-    const core = this.core;
-    const state = into ?? { bytes: new Uint8Array(layout.stateBytes), scanCount: 0, timeMs: 0, forces: core.forces };
+    const state = into ?? { bytes: new Uint8Array(layout.stateBytes), scanCount: 0, timeMs: 0, forces: this.forcedBits };
     state.bytes.set(bytes.subarray(0, layout.stateBytes));
-    state.scanCount = core.scanCount;
-    state.timeMs = core.timeMs;
-    state.forces = core.forces;
+    state.scanCount = this.scanCount;
+    state.timeMs = this.timeMs;
+    state.forces = this.forcedBits;
     return state;
   }
 
   loadState(state: SavedState): void {
-    const core = this.core;
     if (state.bytes.length !== this.machine.layout.stateBytes) throw new RangeError('loadState: a state of another plan');
     this.machine.bytes.set(state.bytes);
-    core.scanCount = state.scanCount;
-    core.timeMs = state.timeMs;
+    this.scanCount = state.scanCount;
+    this.timeMs = state.timeMs;
     // Force maps are never changed once made (see setForces), so sharing one is safe.
-    core.forces = state.forces as Map<string, ForcedBit>;
+    this.forcedBits = state.forces as Map<string, ForcedBit>;
     this.chooseKernel();
     this.stateReplaced();
   }
@@ -224,26 +223,25 @@ class ScanRuntime implements Runtime {
   leap(scans: number): void {
     if (!(Number.isInteger(scans) && scans >= 0)) throw new RangeError(`leap: a whole number of scans ≥ 0, not ${String(scans)}`);
     leapTimers(this.machine, this.running, scans, this.scanMs);
-    const core = this.core;
-    core.scanCount += scans;
-    core.timeMs += scans * this.scanMs;
+    this.scanCount += scans;
+    this.timeMs += scans * this.scanMs;
     // The power flow of a quiet scan is the last one's; only its scan number moves on.
     this.flowCache = null;
   }
 
   /** Forces are replaced, never changed in place, so a saved state can share its map. */
   private setForces(forces: Map<string, ForcedBit>): void {
-    this.core.forces = forces;
+    this.forcedBits = forces;
     this.chooseKernel();
   }
 
   /** The kernel for what the runtime now needs: power flow if someone watches, forces if any. */
   private chooseKernel(): void {
-    this.kernel = this.machine.kernel(this.recording, this.core.forces.size > 0);
+    this.kernel = this.machine.kernel(this.recording, this.forcedBits.size > 0);
   }
 
   private stateReplaced(): void {
-    this.flowValid = false;
+    this.flowSince = this.scanCount;
     this.flowCache = null;
   }
 

@@ -68,7 +68,7 @@ export function takeSnapshot(core: RuntimeCore): RuntimeSnapshot {
     outputImage: area(layout.outputs, layout.memory),
     edges: plan.edges.map((edge, i) => ({ elementId: edge.elementId, operand: edge.operand, value: cells[at.edges / 4 + i]! })),
     instances: plan.instances.map((instance, i) => ({ name: instance.name, type: instance.type, state: readRecord(machine, i) })),
-    forces: [...core.forces].map(([address, { value }]) => ({ address, value })),
+    forces: [...core.forcedBits].map(([address, { value }]) => ({ address, value })),
   };
 }
 
@@ -126,14 +126,14 @@ export function applySnapshot(
 
   cells.fill(1, at.keep / 4, at.keep / 4 + layout.size);
   cells.fill(0, at.forced / 4, at.forced / 4 + layout.size);
-  core.forces = new Map();
+  core.forcedBits = new Map();
   for (const { address, value } of snapshot.forces ?? []) {
     const bit = bitOfAddress(address, plan);
     if (bit === null) {
       dropped.push(`force ${address}`);
       continue;
     }
-    core.forces.set(address, { bit, value: value === true });
+    core.forcedBits.set(address, { bit, value: value === true });
     forceBit(bit, value === true);
   }
 
