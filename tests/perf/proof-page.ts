@@ -13,14 +13,9 @@
  * timer meanwhile. Wall times: the worker's CPU time is not readable from DevTools here, so on a
  * shared machine every moment the worker waited for a core is counted.
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
-import type { AddressInfo } from 'node:net';
 import path from 'node:path';
-import express from 'express';
-import { build } from 'vite';
-import { securityHeaders } from '../../server/http/security';
 import { missingChromiumHint } from '../e2e/support/chromium';
-import { launchBenchBrowser } from './benchBrowser';
+import { openPolicyPage } from './policyPage';
 import type { ProofRun } from './proof-page-main';
 import type { BenchCase } from './run';
 import { median, round } from './stats';
@@ -39,35 +34,6 @@ export interface PageProof {
   mainThreadMaxGapMs: number;
 }
 
-async function buildPage(): Promise<string> {
-  mkdirSync(ROOT, { recursive: true });
-  writeFileSync(
-    path.join(ROOT, 'main.ts'),
-    [
-      `import { installProofBench } from ${JSON.stringify(path.resolve('tests/perf/proof-page-main.ts'))};`,
-      'installProofBench((text) => (window as unknown as { reportViolation(t: string): void }).reportViolation(text));',
-      '',
-    ].join('\n'),
-  );
-  writeFileSync(
-    path.join(ROOT, 'index.html'),
-    '<!doctype html><html><head><title>proof bench</title><script src="/zod-jitless.js"></script><script type="module" src="./main.ts"></script></head><body></body></html>\n',
-  );
-  const outDir = path.join(ROOT, 'dist');
-  await build({
-    root: ROOT,
-    configFile: false,
-    mode: 'production',
-    logLevel: 'warn',
-    publicDir: path.resolve('public'),
-    resolve: { alias: { '@shared': path.resolve('shared'), '@': path.resolve('src') } },
-    // A module worker may import chunks of its own, as the app's will.
-    worker: { format: 'es' },
-    build: { outDir, emptyOutDir: true, chunkSizeWarningLimit: 100_000 },
-  });
-  return outDir;
-}
-
 /**
  * Every key's proof in the page: one first run each, then `runs` timed runs each. Resolves with
  * the per-program figures and a summary row; `skipped` when Chromium is missing.
@@ -75,26 +41,18 @@ async function buildPage(): Promise<string> {
 export async function proofPageRuns(keys: readonly string[], runs: number): Promise<{ proofs: PageProof[]; summary: BenchCase }> {
   const hint = missingChromiumHint();
   if (hint) return { proofs: [], summary: { case: 'proof chromium', skipped: hint } };
-  const dist = await buildPage();
-  const app = express();
-  app.use(securityHeaders());
-  app.use(express.static(dist));
-  const server = app.listen(0, '127.0.0.1');
-  await new Promise((resolve) => server.once('listening', resolve));
-  const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}/`;
-  const { browser, name } = await launchBenchBrowser();
-  const violations: string[] = [];
+  const opened = await openPolicyPage({
+    root: ROOT,
+    title: 'proof bench',
+    entry: [
+      `import { installProofBench } from ${JSON.stringify(path.resolve('tests/perf/proof-page-main.ts'))};`,
+      'installProofBench((text) => (window as unknown as { reportViolation(t: string): void }).reportViolation(text));',
+    ],
+    appScripts: true,
+    moduleWorker: true,
+  });
+  const { page, violations, errors } = opened;
   try {
-    const page = await browser.newPage();
-    await page.exposeFunction('reportViolation', (text: string) => violations.push(text));
-    await page.addInitScript(`document.addEventListener('securitypolicyviolation', (e) => window.reportViolation('page: ' + e.violatedDirective + ' ' + e.blockedURI));`);
-    const errors: string[] = [];
-    page.on('pageerror', (e) => errors.push(e.message));
-    const response = await page.goto(url);
-    const csp = response?.headers()['content-security-policy'] ?? '';
-    await page.waitForFunction(`document.title === 'proof bench ready'`, undefined, { timeout: 60_000 }).catch(() => {
-      throw new Error(`the proof bench page did not start: ${errors.join('; ') || 'no error reported'}`);
-    });
     const workerStartMs = (await page.evaluate('proofBench.ready()')) as number;
     const inPage = (await page.evaluate('proofBench.keys()')) as string[];
     const missing = keys.filter((k) => !inPage.includes(k));
@@ -130,8 +88,8 @@ export async function proofPageRuns(keys: readonly string[], runs: number): Prom
       proofs,
       summary: {
         case: 'proof chromium summary',
-        browser: name,
-        csp,
+        browser: opened.browserName,
+        csp: opened.csp,
         cspViolations: violations.length,
         programs: proofs.length,
         workerStartMs: round(workerStartMs, 1),
@@ -145,7 +103,6 @@ export async function proofPageRuns(keys: readonly string[], runs: number): Prom
       },
     };
   } finally {
-    await browser.close();
-    server.close();
+    await opened.close();
   }
 }
