@@ -17,6 +17,20 @@ import { COIL_KINDS, CONTACT_KINDS } from './elements';
 import { bitLayout, type BitLayout, type Plan, type PlanBlockInput, type PlanEdge, type PlanInstance } from './plan';
 import type { PlanNode, PlanOp, PlanRung, PlanSeries, PlanSource } from './plan';
 
+/** What a contact's operand text reads: a source, or the message that says why it cannot. */
+interface ContactOperand {
+  readonly source: PlanSource | string;
+  /** The operand's canonical text, for an edge memory (null when it did not resolve). */
+  readonly key: string | null;
+}
+
+/** What a coil's operand text writes: a bit, or the message that says why it cannot. */
+interface CoilOperand {
+  readonly bit: number | string;
+  /** The operand's canonical text, for an edge memory (null when it is no writable bit). */
+  readonly key: string | null;
+}
+
 /** The outcome of lowering: a plan, or the diagnostics that stopped it. */
 export type LowerResult = { ok: true; plan: Plan } | { ok: false; diagnostics: Diagnostic[] };
 
@@ -32,8 +46,10 @@ interface Lowering {
   readonly diagnostics: Diagnostic[];
   /** Operand text → its resolution, once per distinct text. */
   readonly resolved: Map<string, Result<Operand>>;
-  /** Operand text → what a contact reads (or why it cannot), once per distinct text. */
-  readonly contactSources: Map<string, PlanSource | string>;
+  /** Operand text → what a contact with it reads (or why it cannot), once per distinct text. */
+  readonly contactOperands: Map<string, ContactOperand>;
+  /** Operand text → the bit a coil with it writes (or why it cannot), once per distinct text. */
+  readonly coilOperands: Map<string, CoilOperand>;
   /** Index path of the node being lowered (copied only into a diagnostic). */
   readonly path: number[];
   rungId: string;
@@ -55,7 +71,8 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
     flowIds: [],
     diagnostics: [],
     resolved: new Map(),
-    contactSources: new Map(),
+    contactOperands: new Map(),
+    coilOperands: new Map(),
     path: [],
     rungId: '',
     elementCount: 0,
@@ -118,19 +135,24 @@ function lowerChildren(children: readonly NetworkNode[], context: Lowering): Pla
 function lowerNode(node: NetworkNode, context: Lowering): PlanNode {
   const flow = context.flowIds.length;
   context.flowIds.push(node.id);
-  context.nodeCounts[node.kind] += 1;
+  const { nodeCounts } = context;
   switch (node.kind) {
     case 'series':
+      nodeCounts.series += 1;
       return { op: 'series', id: node.id, flow, items: lowerChildren(node.items, context) };
     case 'parallel':
+      nodeCounts.parallel += 1;
       return { op: 'parallel', id: node.id, flow, branches: lowerChildren(node.branches, context) };
     case 'contact':
+      nodeCounts.contact += 1;
       context.elementCount += 1;
       return lowerContact(node, flow, context);
     case 'coil':
+      nodeCounts.coil += 1;
       context.elementCount += 1;
       return lowerCoil(node, flow, context);
     case 'block':
+      nodeCounts.block += 1;
       context.elementCount += 1;
       return lowerBlock(node, flow, context);
   }
@@ -154,44 +176,51 @@ function resolve(text: string, context: Lowering): Result<Operand> {
 const UNUSABLE: PlanSource = { kind: 'constant', value: 0 };
 
 function lowerContact(contact: Contact, flow: number, context: Lowering): PlanNode {
-  const resolved = resolve(contact.operand, context);
+  let known = context.contactOperands.get(contact.operand);
+  if (known === undefined) {
+    const resolved = resolve(contact.operand, context);
+    known = resolved.ok ? { source: sourceFor(resolved.value, 'BOOL', context), key: operandKey(resolved.value) } : { source: resolved.error, key: null };
+    context.contactOperands.set(contact.operand, known);
+  }
   let source = UNUSABLE;
   let edge = -1;
-  if (!resolved.ok) report(context, contact, resolved.error);
-  else {
-    let found = context.contactSources.get(contact.operand);
-    if (found === undefined) {
-      found = sourceFor(resolved.value, 'BOOL', context);
-      context.contactSources.set(contact.operand, found);
-    }
-    if (typeof found === 'string') report(context, contact, found);
-    else source = found;
-    if (CONTACT_KINDS[contact.variant].edge) {
-      edge = context.edges.length;
-      context.edges.push({ elementId: contact.id, operand: operandKey(resolved.value) });
-    }
+  if (typeof known.source === 'string') report(context, contact, known.source);
+  else source = known.source;
+  if (known.key !== null && CONTACT_KINDS[contact.variant].edge) {
+    edge = context.edges.length;
+    context.edges.push({ elementId: contact.id, operand: known.key });
   }
   return { op: 'contact', id: contact.id, flow, variant: contact.variant, source, edge };
 }
 
 function lowerCoil(coil: Coil, flow: number, context: Lowering): PlanNode {
-  const resolved = resolve(coil.operand, context);
+  let known = context.coilOperands.get(coil.operand);
+  if (known === undefined) {
+    known = coilOperand(coil.operand, context);
+    context.coilOperands.set(coil.operand, known);
+  }
   let bit = -1;
   let edge = -1;
-  if (!resolved.ok) report(context, coil, resolved.error);
-  else if (resolved.value.kind !== 'bit') report(context, coil, `a coil writes a bit (%QX or %MX); "${coil.operand.trim()}" is not one`);
-  else if (resolved.value.address.area === 'I') {
-    report(context, coil, `a coil cannot write the input ${formatAddress(resolved.value.address)}: inputs come from the field`);
-  } else {
-    const range = addressInRange(resolved.value.address, context.space);
-    if (range !== null) report(context, coil, range);
-    else bit = bitIndex(resolved.value, context.layout);
-    if (COIL_KINDS[coil.variant].edge) {
-      edge = context.edges.length;
-      context.edges.push({ elementId: coil.id, operand: operandKey(resolved.value) });
-    }
+  if (typeof known.bit === 'string') report(context, coil, known.bit);
+  else bit = known.bit;
+  if (known.key !== null && COIL_KINDS[coil.variant].edge) {
+    edge = context.edges.length;
+    context.edges.push({ elementId: coil.id, operand: known.key });
   }
   return { op: 'coil', id: coil.id, flow, variant: coil.variant, bit, edge };
+}
+
+/** The bit a coil's operand text writes, or why it cannot; a bit out of range still has its edge key. */
+function coilOperand(text: string, context: Lowering): CoilOperand {
+  const resolved = resolve(text, context);
+  if (!resolved.ok) return { bit: resolved.error, key: null };
+  const operand = resolved.value;
+  if (operand.kind !== 'bit') return { bit: `a coil writes a bit (%QX or %MX); "${text.trim()}" is not one`, key: null };
+  if (operand.address.area === 'I') {
+    return { bit: `a coil cannot write the input ${formatAddress(operand.address)}: inputs come from the field`, key: null };
+  }
+  const range = addressInRange(operand.address, context.space);
+  return { bit: range ?? bitIndex(operand, context.layout), key: operandKey(operand) };
 }
 
 function lowerBlock(block: Block, flow: number, context: Lowering): PlanNode {

@@ -12,8 +12,8 @@
  * change, which the tests check against the schema on generated and mutated documents.
  */
 import { BlockTypeSchema, CoilVariantSchema, ContactVariantSchema, DOCUMENT_LIMITS as BOUNDS, PROGRAM_FORMAT, PROGRAM_VERSION, type Program } from '../ladder/schema';
+import { IdSet } from './idSet';
 
-const ID = /^[A-Za-z0-9_-]+$/;
 const TAG_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
 const CONTACT_VARIANTS: ReadonlySet<unknown> = new Set(ContactVariantSchema.options);
 const COIL_VARIANTS: ReadonlySet<unknown> = new Set(CoilVariantSchema.options);
@@ -48,10 +48,17 @@ function isRecord(value: unknown): value is Plain {
   return proto === Object.prototype || proto === null;
 }
 
+/**
+ * `hasOwnProperty` called on the key a for-in loop gives is turned into a check of the object's
+ * shape by V8's optimising compiler; `Object.hasOwn` there cost three times as much (0.4 ms of
+ * 18,000 nodes).
+ */
+const hasOwn = Object.prototype.hasOwnProperty;
+
 function keysWithin(value: Plain, required: number, optional: string | null): boolean {
   let count = 0;
   for (const key in value) {
-    if (!Object.hasOwn(value, key)) return false;
+    if (!hasOwn.call(value, key)) return false;
     count += 1;
   }
   return count === required || (optional !== null && count === required + 1 && Object.hasOwn(value, optional));
@@ -59,13 +66,11 @@ function keysWithin(value: Plain, required: number, optional: string | null): bo
 
 /** A string of at most `max` characters without NUL (which `checkDocumentBounds` refuses everywhere). */
 const text = (value: unknown, max: number): boolean => typeof value === 'string' && value.length <= max && (value.length === 0 || value.indexOf('\u0000') < 0);
-// The id pattern admits no NUL.
-const id = (value: unknown): boolean => typeof value === 'string' && value.length >= 1 && value.length <= L.id && ID.test(value);
 const comment = (node: Plain): boolean => node.comment === undefined ? !Object.hasOwn(node, 'comment') : text(node.comment, L.elementComment);
 
 function isInputs(value: unknown): boolean {
   if (!isRecord(value)) return false;
-  for (const key in value) if (!Object.hasOwn(value, key) || key.indexOf('\u0000') >= 0 || !text(value[key], L.operand)) return false;
+  for (const key in value) if (!hasOwn.call(value, key) || key.indexOf('\u0000') >= 0 || !text(value[key], L.operand)) return false;
   return true;
 }
 
@@ -74,7 +79,8 @@ function isInputs(value: unknown): boolean {
  * as `checkDocumentBounds` counts them, so the schema's bounds pass need not walk again).
  */
 interface Walk {
-  readonly ids: Set<string>;
+  /** Ids seen; adding one also checks its spelling (the id pattern admits no NUL). */
+  readonly ids: IdSet;
   /** Nodes in the rung being walked, and in the rungs before it. */
   rungNodes: number;
   programNodes: number;
@@ -82,8 +88,7 @@ interface Walk {
 
 /** A network node at nesting `depth` (series and parallel above it, the root series 1); false on a repeated id or a limit passed. */
 function isNode(value: unknown, depth: number, walk: Walk): boolean {
-  if (!isRecord(value) || !id(value.id) || walk.ids.has(value.id as string)) return false;
-  walk.ids.add(value.id as string);
+  if (!isRecord(value) || !walk.ids.addNew(value.id)) return false;
   walk.rungNodes += 1;
   walk.programNodes += 1;
   if (walk.rungNodes > BOUNDS.nodesPerRung || walk.programNodes > BOUNDS.nodesPerProgram) return false;
@@ -132,12 +137,11 @@ export function isParsedProgram(value: unknown): value is Program {
   if (!Array.isArray(rungs) || rungs.length > L.rungs) return false;
   // One walk checks the schema's fields and the size limits `parseProgram` checks first (depth,
   // nodes per rung and per program, no NUL anywhere); the depth limit also bounds its recursion.
-  const walk: Walk = { ids: new Set<string>(), rungNodes: 0, programNodes: 0 };
+  const walk: Walk = { ids: new IdSet(L.id), rungNodes: 0, programNodes: 0 };
   const { ids } = walk;
   for (let r = 0; r < rungs.length; r += 1) {
     const rung: unknown = rungs[r];
-    if (!isRecord(rung) || !keysWithin(rung, 3, null) || !id(rung.id) || ids.has(rung.id as string) || !text(rung.comment, L.rungComment)) return false;
-    ids.add(rung.id as string);
+    if (!isRecord(rung) || !keysWithin(rung, 3, null) || !text(rung.comment, L.rungComment) || !ids.addNew(rung.id)) return false;
     walk.rungNodes = 0;
     if (!isRecord(rung.network) || rung.network.kind !== 'series' || !isNode(rung.network, 0, walk)) return false;
   }

@@ -24,18 +24,42 @@ import {
   type SymbolTable,
 } from './operands';
 import type { Result } from './result';
-import type { Block, Coil, Contact, Program, Rung } from './schema';
-import { checkRungShape } from './shape';
+import type { Block, Coil, Contact, NetworkNode, Program } from './schema';
+import { reportRungShape } from './shape';
 import { looksLikeTimeLiteral } from './time';
 import { nameProblem, validateTags } from './validateTags';
-import { elementsOf } from './walk';
 
+/** A bit a plain coil writes: its canonical address, and how to name it in a message. */
+interface Written {
+  address: string;
+  shown: string;
+}
+
+/**
+ * The state of one validation. It runs on every edit of a running program, so a program without
+ * mistakes costs no allocation per element: the place of the element being checked is one object
+ * whose `path` the walk pushes and pops (`createDiagnostic` copies it), and what an operand text
+ * was found to be is kept per distinct text (a long program repeats a few hundred texts thousands
+ * of times).
+ */
 interface Context {
-  symbols: SymbolTable;
-  space: AddressSpace;
-  found: Diagnostic[];
-  /** Each distinct operand text resolved once (a long program repeats a few hundred texts thousands of times). */
-  resolved: Map<string, Result<Operand>>;
+  readonly symbols: SymbolTable;
+  readonly space: AddressSpace;
+  readonly found: Diagnostic[];
+  /** Each distinct operand text resolved once. */
+  readonly resolved: Map<string, Result<Operand>>;
+  /** Contact operand texts already found to be usable (a bit in range). */
+  readonly goodContacts: Set<string>;
+  /** Coil operand texts already found to be writable, with the bit each writes. */
+  readonly coilTargets: Map<string, Written>;
+  /** The element being checked. */
+  readonly place: Place;
+  /** 1-based number of the rung being checked. */
+  rungNumber: number;
+  /** The first call of each block instance, by symbol key. */
+  readonly firstInstance: Map<string, { type: Block['type']; rung: number }>;
+  /** The rung whose plain coil last wrote each address. */
+  readonly lastWriter: Map<string, number>;
 }
 
 interface Place {
@@ -44,6 +68,9 @@ interface Place {
   elementId: string;
   field?: string;
 }
+
+/** The place of the element being checked, naming one of its fields. */
+const fieldOf = (place: Place, field: string): Place => ({ ...place, field });
 
 /** Which code a failed resolution gets, from the shape of the text. */
 function resolveErrorCode(text: string, symbols: SymbolTable): DiagnosticCode {
@@ -105,7 +132,9 @@ function shownOperand(text: string, operand: Operand): string {
     : text.trim();
 }
 
-function checkContact(contact: Contact, place: Place, ctx: Context): void {
+function checkContact(contact: Contact, ctx: Context): void {
+  if (ctx.goodContacts.has(contact.operand)) return;
+  const { place } = ctx;
   if (contact.operand.trim() === '') {
     ctx.found.push(createDiagnostic('operand-missing', { what: 'contact' }, place));
     return;
@@ -114,10 +143,14 @@ function checkContact(contact: Contact, place: Place, ctx: Context): void {
   if (operand === null) return;
   const { type, said } = typeOf(operand, ctx.symbols);
   if (type !== 'BOOL') ctx.found.push(createDiagnostic('contact-not-bool', { operand: contact.operand.trim(), type: said }, place));
+  else ctx.goodContacts.add(contact.operand);
 }
 
 /** A writable bit a plain coil writes, as its canonical address, or null. */
-function checkCoil(coil: Coil, place: Place, ctx: Context): { address: string; shown: string } | null {
+function checkCoil(coil: Coil, ctx: Context): Written | null {
+  const known = ctx.coilTargets.get(coil.operand);
+  if (known !== undefined) return known;
+  const { place } = ctx;
   if (coil.operand.trim() === '') {
     ctx.found.push(createDiagnostic('operand-missing', { what: 'coil' }, place));
     return null;
@@ -137,7 +170,9 @@ function checkCoil(coil: Coil, place: Place, ctx: Context): { address: string; s
     ctx.found.push(createDiagnostic('coil-on-input', { operand: text, address: formatAddress(operand.address) }, place));
     return null;
   }
-  return { address: formatAddress(operand.address), shown: shownOperand(coil.operand, operand) };
+  const written: Written = { address: formatAddress(operand.address), shown: shownOperand(coil.operand, operand) };
+  ctx.coilTargets.set(coil.operand, written);
+  return written;
 }
 
 function checkBlockInput(block: Block, spec: BlockSpec, input: string, text: string, place: Place, ctx: Context): void {
@@ -171,18 +206,19 @@ function checkBlockInput(block: Block, spec: BlockSpec, input: string, text: str
   }
 }
 
-function checkBlock(block: Block, place: Place, ctx: Context): void {
+function checkBlock(block: Block, ctx: Context): void {
+  const { place } = ctx;
   const spec: BlockSpec = BLOCK_SPECS[block.type];
   const name = block.instance.trim();
   if (name === '') {
-    ctx.found.push(createDiagnostic('instance-missing', { type: block.type }, { ...place, field: 'instance' }));
+    ctx.found.push(createDiagnostic('instance-missing', { type: block.type }, fieldOf(place, 'instance')));
   } else {
     const problem = nameProblem(name);
-    if (problem !== null) ctx.found.push(createDiagnostic('instance-bad-name', { name, reason: problem }, { ...place, field: 'instance' }));
+    if (problem !== null) ctx.found.push(createDiagnostic('instance-bad-name', { name, reason: problem }, fieldOf(place, 'instance')));
   }
   const inputNames = spec.inputs.map((p) => p.name);
   for (const input of Object.keys(block.inputs)) {
-    const at = { ...place, field: input };
+    const at = fieldOf(place, input);
     if (input === spec.powerIn) {
       if (block.inputs[input]!.trim() !== '') ctx.found.push(createDiagnostic('block-input-power-flow', { name: name || block.type, input }, at));
     } else if (!inputNames.includes(input) && block.inputs[input]!.trim() !== '') {
@@ -192,7 +228,7 @@ function checkBlock(block: Block, place: Place, ctx: Context): void {
   }
   for (const param of spec.inputs) {
     if (param.name === spec.powerIn) continue;
-    checkBlockInput(block, spec, param.name, block.inputs[param.name] ?? '', { ...place, field: param.name }, ctx);
+    checkBlockInput(block, spec, param.name, block.inputs[param.name] ?? '', fieldOf(place, param.name), ctx);
   }
 }
 
@@ -218,51 +254,80 @@ export function validateProgram(program: Program, space: AddressSpace = DEFAULT_
 }
 
 function findProblems(program: Program, space: AddressSpace): Diagnostic[] {
-  const symbols = buildSymbolTable(program);
-  const ctx: Context = { symbols, space, found: validateTags(program.tags, space), resolved: new Map() };
-  const firstInstance = new Map<string, { type: Block['type']; rung: number }>();
-  const lastWriter = new Map<string, number>();
-
-  program.rungs.forEach((rung: Rung, rungIndex) => {
-    ctx.found.push(...checkRungShape(rung));
-    const rungNumber = rungIndex + 1;
-    const writtenHere = new Set<string>();
-    for (const { element, path } of elementsOf(rung)) {
-      const place: Place = { rungId: rung.id, path, elementId: element.id };
-      if (element.kind === 'contact') checkContact(element, place, ctx);
-      else if (element.kind === 'block') {
-        checkBlock(element, place, ctx);
-        checkInstanceUse(element, rungNumber, place, ctx, firstInstance);
-      } else {
-        const written = checkCoil(element, place, ctx);
-        // Coils that write every scan (the transition-sensing ones too) clash with each other; set and reset do not.
-        if (written === null || element.variant === 'set' || element.variant === 'reset') continue;
-        const previous = lastWriter.get(written.address);
-        if (previous !== undefined && previous !== rungNumber && !writtenHere.has(written.address)) {
-          ctx.found.push(createDiagnostic('duplicate-coil', { operand: written.shown, otherRung: previous, thisRung: rungNumber }, place));
-        }
-        writtenHere.add(written.address);
-        lastWriter.set(written.address, rungNumber);
-      }
-    }
-  });
+  const ctx: Context = {
+    symbols: buildSymbolTable(program),
+    space,
+    found: validateTags(program.tags, space),
+    resolved: new Map(),
+    goodContacts: new Set(),
+    coilTargets: new Map(),
+    place: { rungId: '', path: [], elementId: '' },
+    rungNumber: 0,
+    firstInstance: new Map(),
+    lastWriter: new Map(),
+  };
+  const { rungs } = program;
+  for (let r = 0; r < rungs.length; r += 1) {
+    const rung = rungs[r]!;
+    reportRungShape(rung, ctx.found);
+    ctx.place.rungId = rung.id;
+    ctx.rungNumber = r + 1;
+    checkChildren(rung.network.items, ctx);
+  }
   return ctx.found;
 }
 
-function checkInstanceUse(
-  block: Block,
-  rungNumber: number,
-  place: Place,
-  ctx: Context,
-  firstInstance: Map<string, { type: Block['type']; rung: number }>,
-): void {
+/** Check the elements below a node's children, left to right (branches top to bottom). */
+function checkChildren(children: readonly NetworkNode[], ctx: Context): void {
+  const { path } = ctx.place;
+  for (let i = 0; i < children.length; i += 1) {
+    path.push(i);
+    checkNode(children[i]!, ctx);
+    path.pop();
+  }
+}
+
+function checkNode(node: NetworkNode, ctx: Context): void {
+  switch (node.kind) {
+    case 'series':
+      checkChildren(node.items, ctx);
+      return;
+    case 'parallel':
+      checkChildren(node.branches, ctx);
+      return;
+    case 'contact':
+      ctx.place.elementId = node.id;
+      checkContact(node, ctx);
+      return;
+    case 'block':
+      ctx.place.elementId = node.id;
+      checkBlock(node, ctx);
+      checkInstanceUse(node, ctx);
+      return;
+    case 'coil': {
+      ctx.place.elementId = node.id;
+      const written = checkCoil(node, ctx);
+      // Coils that write every scan (the transition-sensing ones too) clash with each other; set and reset do not.
+      if (written === null || node.variant === 'set' || node.variant === 'reset') return;
+      const { lastWriter, rungNumber } = ctx;
+      // An earlier rung's write clashes; another write in this same rung is left alone.
+      const previous = lastWriter.get(written.address);
+      if (previous !== undefined && previous !== rungNumber) {
+        ctx.found.push(createDiagnostic('duplicate-coil', { operand: written.shown, otherRung: previous, thisRung: rungNumber }, ctx.place));
+      }
+      lastWriter.set(written.address, rungNumber);
+    }
+  }
+}
+
+function checkInstanceUse(block: Block, ctx: Context): void {
   const name = block.instance.trim();
   if (name === '') return;
   const key = symbolKey(name);
-  const at = { ...place, field: 'instance' };
-  const first = firstInstance.get(key);
+  const at = fieldOf(ctx.place, 'instance');
+  const first = ctx.firstInstance.get(key);
   if (first === undefined) {
-    firstInstance.set(key, { type: block.type, rung: rungNumber });
+    ctx.firstInstance.set(key, { type: block.type, rung: ctx.rungNumber });
     if (ctx.symbols.tags.has(key) || ctx.symbols.invalidTags.has(key)) ctx.found.push(createDiagnostic('name-clash', { name }, at));
     return;
   }

@@ -170,6 +170,19 @@ describe('coils driven twice', () => {
     expect(d.message).toMatch(/^%QX1 is also written by a coil in rung 1: .*last write wins, so rung 2 decides the output/);
   });
 
+  it('warns once per rung, naming the rung that wrote the output last, and not for two coils of one rung', () => {
+    const doc = withTags(
+      rung('r1', no('c1', 'S2'), coil('k1', 'K1')),
+      rung('r2', no('c2', 'S3'), parallel('p2', coil('k2', 'K1'), coil('k3', 'K1'))),
+      rung('r3', no('c3', 'S2'), coil('k4', 'K1')),
+      rung('r4', no('c4', 'S3'), parallel('p4', coil('k5', '%QX2'), coil('k6', '%QX2'))),
+    );
+    const found = check(doc).filter((d) => d.code === 'duplicate-coil');
+    expect(found.map((d) => [d.elementId, d.path])).toEqual([['k2', [1, 0]], ['k4', [1]]]);
+    expect(found[0]!.message).toMatch(/in rung 1: .*rung 2 decides/);
+    expect(found[1]!.message).toMatch(/in rung 2: .*rung 3 decides/);
+  });
+
   it('does not warn for one coil per rung or set/reset pairs', () => {
     const doc = withTags(rung('r1', no('c1', 'S2'), coil('k1', 'K1', 'set')), rung('r2', no('c2', 'S3'), coil('k2', 'K1', 'set')));
     expect(check(doc)).toEqual([]);
