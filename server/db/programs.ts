@@ -102,7 +102,8 @@ export interface NewVersion {
   now: Date;
 }
 
-export type AppendResult = { ok: true; version: ProgramVersion } | { ok: false; head: VersionSummary | null };
+/** `documentJson`: the document as the JSON text written to the database (an answer can reuse it). */
+export type AppendResult = { ok: true; version: ProgramVersion; documentJson: string } | { ok: false; head: VersionSummary | null };
 
 /**
  * Appends version `baseVersion + 1` if the head is still `baseVersion`, deleting the author's draft
@@ -110,10 +111,11 @@ export type AppendResult = { ok: true; version: ProgramVersion } | { ok: false; 
  * `versionBatches.ts`, which also groups concurrent saves into one statement).
  */
 export async function appendVersion(db: Db, v: NewVersion): Promise<AppendResult> {
+  const documentJson = JSON.stringify(v.document);
   const number = await appendVersionBatched(db, {
     programId: v.programId,
     baseVersion: v.baseVersion,
-    documentJson: JSON.stringify(v.document),
+    documentJson,
     message: v.message,
     authorId: v.authorId,
     now: v.now,
@@ -129,7 +131,7 @@ export async function appendVersion(db: Db, v: NewVersion): Promise<AppendResult
   if (cachedProgram) caches?.programs.put(v.programId, { ...cachedProgram, headVersion: number, updatedAt: v.now });
   else caches?.programs.drop(v.programId);
   caches?.versions.put(versionKey(v.programId, number), version);
-  return { ok: true, version };
+  return { ok: true, version, documentJson };
 }
 
 /** The head version's summary (what a refused save reports), or null when there is no such program. */

@@ -58,8 +58,32 @@ export function refuseDeepJson(_req: unknown, _res: unknown, body: Buffer): void
   }
 }
 
+/**
+ * Whether any string or key in `root` holds U+0000, walked without recursion and without building
+ * a path per value: a save's document has about a thousand values, and the paths (a string and an
+ * object each) cost more than the check. The path is built only once a NUL is known to be there.
+ */
+function holdsNulCharacter(root: unknown): boolean {
+  const stack: unknown[] = [root];
+  while (stack.length > 0) {
+    const value = stack.pop();
+    if (typeof value === 'string') {
+      if (value.includes('\u0000')) return true;
+    } else if (Array.isArray(value)) {
+      for (const item of value) stack.push(item);
+    } else if (value !== null && typeof value === 'object') {
+      for (const key of Object.keys(value)) {
+        if (key.includes('\u0000')) return true;
+        stack.push((value as Record<string, unknown>)[key]);
+      }
+    }
+  }
+  return false;
+}
+
 /** The dotted path of the first string or key holding U+0000 in `root`, walked without recursion. */
 export function findNulCharacter(root: unknown): string | null {
+  if (!holdsNulCharacter(root)) return null;
   const stack: { value: unknown; path: string }[] = [{ value: root, path: '' }];
   const join = (path: string, key: string | number): string => (path === '' ? String(key) : `${path}.${key}`);
   while (stack.length > 0) {

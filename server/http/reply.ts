@@ -27,6 +27,20 @@ export function reply<T>(res: Response, outcome: Outcome<T>, status = 200, body:
   else res.status(status).json(body(outcome.value));
 }
 
+/**
+ * Sends `{ [key]: { ...summary, document } }` with `status` (or the failure), the document being JSON
+ * text already at hand (the text a save just stored): the bytes `res.json` would send for the same
+ * object, without serialising a whole document again. `summary` holds plain JSON values.
+ */
+export function replyWithDocument(res: Response, outcome: Outcome<{ summary: object; documentJson: string }>, status: number, key: string): void {
+  if (!outcome.ok) return sendFailure(res, outcome.failure);
+  const summary = JSON.stringify(outcome.value.summary);
+  const fields = summary === '{}' ? '{' : `${summary.slice(0, -1)},`;
+  // As `res.json` does: the type unless one is set, then `send` (which adds the charset and length).
+  if (!res.get('Content-Type')) res.set('Content-Type', 'application/json');
+  res.status(status).send(`{${JSON.stringify(key)}:${fields}"document":${outcome.value.documentJson}}}`);
+}
+
 /** True when the request carries no body at all (no Transfer-Encoding, no or a zero Content-Length). */
 function hasNoBody(req: Parameters<RequestHandler>[0]): boolean {
   const length = req.headers['content-length'];

@@ -13,7 +13,7 @@ import {
 } from '@shared/api';
 import type { AppContext } from '../context';
 import { currentUser, requireUser } from '../http/authenticate';
-import { parse, parseId, reply } from '../http/reply';
+import { parse, parseId, reply, replyWithDocument } from '../http/reply';
 import * as programs from '../services/programs';
 import { exportVersion } from '../services/programFiles';
 
@@ -67,7 +67,7 @@ export function programsRouter(ctx: AppContext): Router {
     if (!id.ok) return reply(res, id);
     const body = parse(SaveVersionRequestSchema, req.body);
     if (!body.ok) return reply(res, body);
-    reply(res, await programs.saveVersion(ctx, currentUser(req), id.value, body.value), 201, (version) => ({ version }));
+    replyWithDocument(res, await programs.saveVersion(ctx, currentUser(req), id.value, body.value), 201, 'version');
   });
 
   router.get('/programs/:id/versions/:number', async (req, res) => {
@@ -107,7 +107,7 @@ export function programsRouter(ctx: AppContext): Router {
     if (!id.ok) return reply(res, id);
     const body = parse(RestoreVersionRequestSchema, req.body);
     if (!body.ok) return reply(res, body);
-    reply(res, await programs.restoreVersion(ctx, currentUser(req), id.value, body.value), 201, (version) => ({ version }));
+    replyWithDocument(res, await programs.restoreVersion(ctx, currentUser(req), id.value, body.value), 201, 'version');
   });
 
   return router;

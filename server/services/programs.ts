@@ -92,20 +92,29 @@ export async function deleteProgram(ctx: AppContext, actor: User, programId: str
   return success(null);
 }
 
-async function append(ctx: AppContext, actor: User, programId: string, baseVersion: number, document: unknown, message: string): Promise<Outcome<VersionDetail>> {
+/**
+ * A version just saved, as its answer needs it: the summary, and the document as the JSON text
+ * written to the database, so the answer (a whole document) is not serialised a second time.
+ */
+export interface SavedVersion {
+  summary: VersionSummary;
+  documentJson: string;
+}
+
+async function append(ctx: AppContext, actor: User, programId: string, baseVersion: number, document: unknown, message: string): Promise<Outcome<SavedVersion>> {
   const checked = checkProgramDocument(document);
   if (!checked.ok) return checked;
   const result = await db.appendVersion(ctx.orm, { programId, baseVersion, document: checked.value, message, authorId: actor.id, now: ctx.clock.now() });
   // The saved version holds what the draft kept, so the same statement deleted the actor's draft:
   // a draft left behind would be offered back as newer work.
-  if (result.ok) return success(versionDetailView(result.version));
+  if (result.ok) return success({ summary: versionView(result.version), documentJson: result.documentJson });
   if (!result.head) return failure('not_found', 'This program does not exist or is not open to you');
   return failure('version_conflict', `Version ${result.head.number} was saved after version ${baseVersion}; load it and apply your change again`, {
     details: { head: versionView(result.head) },
   });
 }
 
-export async function saveVersion(ctx: AppContext, actor: User, programId: string, req: SaveVersionRequest): Promise<Outcome<VersionDetail>> {
+export async function saveVersion(ctx: AppContext, actor: User, programId: string, req: SaveVersionRequest): Promise<Outcome<SavedVersion>> {
   const found = await authorised(ctx, actor, programId, 'write');
   if (!found.ok) return found;
   return append(ctx, actor, programId, req.baseVersion, req.document, req.message || `Saved on version ${req.baseVersion}`);
@@ -152,7 +161,7 @@ export async function diffVersions(ctx: AppContext, actor: User, programId: stri
   return success({ from, to, rungs: diffProgramDocuments(before.value, after.value) });
 }
 
-export async function restoreVersion(ctx: AppContext, actor: User, programId: string, req: RestoreVersionRequest): Promise<Outcome<VersionDetail>> {
+export async function restoreVersion(ctx: AppContext, actor: User, programId: string, req: RestoreVersionRequest): Promise<Outcome<SavedVersion>> {
   const found = await authorised(ctx, actor, programId, 'write');
   if (!found.ok) return found;
   const old = await loadVersion(ctx, programId, req.version);

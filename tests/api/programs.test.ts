@@ -80,6 +80,11 @@ describe('saving versions', () => {
     const v2 = await call(t, 'post', `/api/programs/${program.id}/versions`, as()).send({ baseVersion: 1, document: documentWithRungs(2), message: 'add rung 2' });
     expect(v2.status).toBe(201);
     expect(v2.body.version).toMatchObject({ number: 2, message: 'add rung 2' });
+    // The answer splices in the document text the save stored: the same bytes as res.json of the object.
+    expect(v2.headers['content-type']).toBe('application/json; charset=utf-8');
+    expect(Object.keys(v2.body.version)).toEqual(['number', 'message', 'authorId', 'createdAt', 'document']);
+    expect(v2.body.version.document).toEqual(documentWithRungs(2));
+    expect(v2.text).toBe(JSON.stringify(v2.body));
 
     const stale = await call(t, 'post', `/api/programs/${program.id}/versions`, as()).send({ baseVersion: 1, document: documentWithRungs(3) });
     expect(stale.status).toBe(409);
@@ -138,6 +143,7 @@ describe('diff, restore, rename, delete, export', () => {
     expect(res.body.version.number).toBe(3);
     expect(res.body.version.message).toBe('Restored version 1');
     expect(res.body.version.document).toEqual(documentWithRungs(1));
+    expect(res.text).toBe(JSON.stringify(res.body));
   });
 
   it('renames and deletes a program', async () => {
