@@ -84,9 +84,10 @@ export interface RungLayout {
   comment: string;
   /** The one-line text form when shown, else `null`. */
   text: string | null;
-  elements: ElementBox[];
-  wires: WireSegment[];
-  slots: DropSlot[];
+  /** The rung's drawing: placed when first read (`layout.ts`), the same arrays on every read. */
+  readonly elements: ElementBox[];
+  readonly wires: WireSegment[];
+  readonly slots: DropSlot[];
 }
 
 /** The whole program's drawing. */

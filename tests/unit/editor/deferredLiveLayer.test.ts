@@ -6,6 +6,12 @@ import { threeWireProgram } from '@/simulation/demoPrograms';
 import { DARK_PALETTE, LIGHT_PALETTE } from '@/theme';
 import { useDeferredLiveLayer } from '@/components/editor/useDeferredLiveLayer';
 
+/**
+ * The first import of the live layer's modules (the engine, the field models) is compiled cold by
+ * the test runner: on a loaded machine it took over the 1 s `vi.waitFor` allows by default.
+ */
+const LOADED = { timeout: 10_000 };
+
 function deferredLayer() {
   setActivePinia(createPinia());
   const layout = layoutProgram(threeWireProgram());
@@ -21,7 +27,7 @@ describe('the rung canvas’s deferred live layer', () => {
     expect(live.shape()).toBeUndefined();
     live.request();
     live.request();
-    await vi.waitFor(() => expect(live.shape()?.sceneFunc).toBeTypeOf('function'));
+    await vi.waitFor(() => expect(live.shape()?.sceneFunc).toBeTypeOf('function'), LOADED);
     scope.stop();
   });
 
@@ -30,7 +36,7 @@ describe('the rung canvas’s deferred live layer', () => {
     const draw = vi.fn();
     live.setLayer({ getNode: () => ({ draw }) });
     live.request();
-    await vi.waitFor(() => expect(live.shape()).toBeDefined());
+    await vi.waitFor(() => expect(live.shape()).toBeDefined(), LOADED);
     expect(draw).not.toHaveBeenCalled();
     // A change of colours redraws the live layer: through the handle given before the code was there.
     palette.value = DARK_PALETTE;

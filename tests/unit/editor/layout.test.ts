@@ -62,6 +62,21 @@ describe('the layout of a three-wire start/stop rung', () => {
     expect(layoutProgram(doc)).toEqual(layoutProgram(doc));
     expect(JSON.stringify(doc)).toBe(frozen);
   });
+
+  it('places a rung\'s drawing when first read, the same arrays on every later read, whichever rung is read first', () => {
+    const doc = threeWire();
+    const readFirst = layoutProgram(doc);
+    const rung = readFirst.rungs[0]!;
+    const { elements, wires, slots } = rung;
+    expect(rung.elements).toBe(elements);
+    expect(rung.wires).toBe(wires);
+    expect(rung.slots).toBe(slots);
+    // Read in another order (a box looked up before the wires), the drawing is the same.
+    const readLater = layoutProgram(doc);
+    expect(box(readLater, 'seal')).toEqual(box(readFirst, 'seal'));
+    expect(readLater.rungs[0]!.wires).toEqual(wires);
+    expect(readLater).toEqual(readFirst);
+  });
 });
 
 describe('the layout of blocks, lone branches and empty rungs', () => {
