@@ -12,7 +12,7 @@ import { engineDiagnostic, type Diagnostic } from './diagnostic';
 import { MAX_MODULE_BYTES, moduleBytesBound } from './kernel';
 import { lowerProgram } from './lower';
 import type { Plan } from './plan';
-import { isParsedProgram } from './wellFormed';
+import { isParsedProgram } from '../ladder/wellFormed';
 
 export type CompileResult =
   | { ok: true; plan: Plan; /** warnings only */ diagnostics: Diagnostic[] }

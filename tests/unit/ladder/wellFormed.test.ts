@@ -1,14 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { compile } from '@shared/engine';
-import { SCHEMA_LIMITS, isParsedProgram } from '@shared/engine/wellFormed';
+import { SCHEMA_LIMITS, isParsedProgram } from '@shared/ladder/wellFormed';
 import { DOCUMENT_LIMITS } from '@shared/ladder/schema';
 import { createEmptyProgram, parseProgram } from '@shared/ladder/restore';
 import type { Program } from '@shared/ladder/schema';
 import { benchProgram } from '../../perf/engine-programs';
 import { demoCases } from '../../perf/engine-demo';
-import { programBuilder } from './build';
-import { randomProgram } from './oracle/randomProgram';
+import { programBuilder } from '../engine/build';
+import { randomProgram } from '../engine/oracle/randomProgram';
 
 /** The one property that matters: the fast check never accepts what the schema refuses or changes. */
 function expectSound(value: unknown): void {

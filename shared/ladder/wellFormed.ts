@@ -11,7 +11,7 @@
  * schema runs, with its located messages); it must never accept one the schema would refuse or
  * change, which the tests check against the schema on generated and mutated documents.
  */
-import { BlockTypeSchema, CoilVariantSchema, ContactVariantSchema, DOCUMENT_LIMITS as BOUNDS, PROGRAM_FORMAT, PROGRAM_VERSION, type Program } from '../ladder/schema';
+import { BlockTypeSchema, CoilVariantSchema, ContactVariantSchema, DOCUMENT_LIMITS as BOUNDS, PROGRAM_FORMAT, PROGRAM_VERSION, type Program } from './schema';
 import { IdSet } from './idSet';
 
 const TAG_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;

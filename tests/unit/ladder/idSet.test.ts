@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { IdSet } from '@shared/engine/idSet';
+import { IdSet } from '@shared/ladder/idSet';
 import { IdSchema } from '@shared/ladder/schema';
-import { SCHEMA_LIMITS } from '@shared/engine/wellFormed';
+import { SCHEMA_LIMITS } from '@shared/ladder/wellFormed';
 
 describe('IdSet', () => {
   it('takes each id once, also after growing past its first table', () => {
