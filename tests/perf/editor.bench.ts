@@ -5,7 +5,13 @@
  *
  * - First render: navigation start → the User Timing mark the canvas sets when it first paints a
  *   rung (`rungwright:rungs-painted`, RungCanvas.vue); median and worst of a few cold page loads.
- *   Target < 500 ms.
+ *   Target < 500 ms. Each load is a new tab with a fresh document and JavaScript heap, whose
+ *   renderer process for the site is already running: the tab first opens a small file of the same
+ *   site (`/favicon.svg`), as a browser has a renderer ready for a new tab. Without that, every
+ *   load also waited for the operating system to start the tab's process: 100-130 ms on this
+ *   machine between the document's arrival and the page's first request, which is not the page's
+ *   work and which neither a reload nor a link within the app pays. That figure is reported too
+ *   (`newProcess…`), from loads alternating with the others.
  * - Scroll frame time: the canvas is scrolled from top to bottom, one step per animation frame;
  *   the frame time is the interval between animation frames (`performance.now` in the page). The
  *   browser runs with its frame-rate cap off (`--disable-frame-rate-limit --disable-gpu-vsync`), so
@@ -149,12 +155,18 @@ export default async function (): Promise<BenchCase[]> {
     // over the same span say how much of the wall time is the page's own work: on a shared, loaded
     // machine wall time and CPU time differ a lot.
     const firstRenders: number[] = [];
+    const newProcessRenders: number[] = [];
     const readyAt: number[] = [];
     const busy: number[] = [];
     const cpu: number[] = [];
     let workbenchJs = { kb: 0, files: 0, rawKb: 0 };
     for (let load = 0; load < LOADS; load += 1) {
+      const coldTab = await context.newPage();
+      await coldTab.goto(`${server.url}/programs/${programId}`);
+      newProcessRenders.push(await markMs(coldTab));
+      await coldTab.close();
       const page = await context.newPage();
+      await page.goto(`${server.url}/favicon.svg`);
       const cdp = await context.newCDPSession(page);
       await cdp.send('Performance.enable');
       const metric = async (name: string): Promise<number> =>
@@ -195,6 +207,8 @@ export default async function (): Promise<BenchCase[]> {
         loads: LOADS,
         firstRenderMedianMs: round(firstRenderMedian, 1),
         firstRenderMaxMs: round(Math.max(...firstRenders), 1),
+        newProcessFirstRenderMedianMs: round(median(newProcessRenders), 1),
+        newProcessFirstRenderMaxMs: round(Math.max(...newProcessRenders), 1),
         mainThreadBusyMedianMs: round(median(busy) * 1000, 1),
         mainThreadCpuMedianMs: round(median(cpu) * 1000, 1),
         workbenchReadyMedianMs: round(median(readyAt), 1),
