@@ -83,8 +83,12 @@ export default async function (): Promise<BenchCase[]> {
     const student = DEMO_STUDENTS[0];
     const { cookie } = await post(server.url, '/api/auth/sign-in', { email: student.email, password: student.password });
     const document = documentWithRungs(12, 'Bench conveyor');
+    // Twice as many programs as connections, so a save always finds a program with no save in
+    // flight: autocannon may ask for a connection's next request before it hands back the answer
+    // to its last one, and with one program per connection a request then had none idle and
+    // saved on a program already being saved, which the server rightly answered with a 409.
     const programIds: string[] = [];
-    for (let i = 0; i < CONNECTIONS; i += 1) {
+    for (let i = 0; i < 2 * CONNECTIONS; i += 1) {
       const created = await post(server.url, '/api/programs', { title: `Bench ${i}`, document }, cookie);
       if (created.status !== 201) throw new Error(`setup failed: ${created.status} ${JSON.stringify(created.body)}`);
       programIds.push(created.body.program.id);
@@ -131,7 +135,8 @@ export default async function (): Promise<BenchCase[]> {
             method: 'POST',
             setupRequest: (req, ctx) => {
               const context = ctx as { programId?: string };
-              const programId = idle.pop() ?? programIds[0];
+              const programId = idle.pop();
+              if (programId === undefined) throw new Error('the bench ran out of idle programs: every program has a save in flight');
               context.programId = programId;
               return { ...req, path: `/api/programs/${programId}/versions`, body: JSON.stringify({ baseVersion: heads.get(programId), document: body, message: 'bench' }) };
             },
