@@ -7,7 +7,7 @@
  * sharing the database. A caller whose attempt succeeds clears the counter (`clearCounter`), which
  * also lifts the back-off it set in advance.
  */
-import { and, eq, inArray, isNull, like, lt, lte, or } from 'drizzle-orm';
+import { and, eq, inArray, isNull, like, lt, lte, or, sql } from 'drizzle-orm';
 import type { Db } from './client';
 import { rateCounters } from './schema';
 
@@ -37,10 +37,16 @@ export function backoffAfter(count: number, policy: BackoffPolicy): number | nul
  */
 export async function takeAttempt(db: Db, key: string, now: Date, policy: BackoffPolicy): Promise<AttemptVerdict> {
   return db.transaction(async (tx) => {
-    // A first attempt needs a row to lock; count 0 so that it is counted like any other below.
-    await tx.insert(rateCounters).values({ key, windowStart: now, count: 0 }).onConflictDoNothing();
-    const [row] = await tx.select().from(rateCounters).where(eq(rateCounters.key, key)).for('update');
-    if (!row) throw new Error(`rate counter ${key} vanished inside its transaction`);
+    // The row, created (count 0, so that it is counted like any other below) or found, and locked,
+    // in one statement. An insert that did nothing on a conflict and then a SELECT … FOR UPDATE
+    // found no row on PostgreSQL when a successful sign-in cleared the counter in between (READ
+    // COMMITTED: the fuzz test saw a 500); ON CONFLICT DO UPDATE always inserts or locks a row.
+    const [row] = await tx
+      .insert(rateCounters)
+      .values({ key, windowStart: now, count: 0 })
+      .onConflictDoUpdate({ target: rateCounters.key, set: { key: sql`excluded.key` } })
+      .returning();
+    if (!row) throw new Error(`rate counter ${key}: the upsert returned no row`);
     if (row.blockedUntil && row.blockedUntil > now) return { allowed: false, blockedUntil: row.blockedUntil };
     const fresh = row.windowStart.getTime() <= now.getTime() - policy.windowMs;
     const count = fresh ? 1 : row.count + 1;
