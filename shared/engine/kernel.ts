@@ -32,6 +32,7 @@ const FLOW_TEMP = 0;
 const COIL_POWER = 1;
 const EDGE_VALUE = 2;
 const FIELD_WORD = 3;
+const FIELD_STALE = 4;
 /** A block call's BOOL inputs, the power-flow input first (CTUD has the most: 4). */
 const BLOCK_BOOLS = 4;
 const BLOCK_SCRATCH_I32 = 8;
@@ -242,20 +243,54 @@ function chunkRungs(rungs: readonly PlanRung[]): PlanRung[][] {
 
 /**
  * Input image: each input bit = its field value (bit `i % 32` of field word `i / 32`), or its
- * forced value (step 1 of the scan cycle).
+ * forced value (step 1 of the scan cycle). Without forces, a field word the image already holds
+ * (see `copied` in `stateLayout.ts`) is not spread again: inputs change far less often than the
+ * controller scans, and on a small program the spreading was most of the scan. With forces it is
+ * spread on every scan, and the runtime marks the copy stale whenever a force comes or goes.
  */
 function emitInputImage(e: Emitting): void {
   const { code, plan, layout } = e;
   const word = code.i32Temp(FIELD_WORD);
-  for (let i = 0; i < plan.space.inputs; i += 1) {
-    if (i % 32 === 0) {
-      code.loadCell(bitAt(i / 32, layout.field));
-      code.set(word);
+  const stale = code.i32Temp(FIELD_STALE);
+  if (!e.forces && plan.space.inputs > 0) {
+    code.loadCell(layout.copiedValid);
+    code.op(OP.i32Eqz);
+    code.set(stale);
+  }
+  for (let from = 0; from < plan.space.inputs; from += 32) {
+    const w = from / 32;
+    const to = Math.min(from + 32, plan.space.inputs);
+    code.loadCell(bitAt(w, layout.field));
+    code.set(word);
+    if (e.forces) {
+      spreadWord(e, word, from, to);
+      continue;
     }
+    code.when(
+      () => {
+        code.get(word);
+        code.loadCell(bitAt(w, layout.copied));
+        code.op(OP.i32Ne);
+        code.get(stale);
+        code.op(OP.i32Or);
+      },
+      () => {
+        code.storeCell(bitAt(w, layout.copied), () => code.get(word));
+        code.storeCell(layout.copiedValid, () => code.i32(1));
+        spreadWord(e, word, from, to);
+      },
+    );
+  }
+}
+
+/** Inputs `[from, to)` of the image from the field word in local `word` (bit 0 = input `from`). */
+function spreadWord(e: Emitting, word: number, from: number, to: number): void {
+  const { code, plan } = e;
+  for (let i = from; i < to; i += 1) {
     code.storeBase();
     code.get(word);
-    if (i % 32 !== 0) {
-      code.i32(i % 32);
+    if (i !== from) {
+      code.i32(i - from);
       code.op(OP.i32ShrU);
     }
     code.i32(1);

@@ -117,6 +117,7 @@ class ScanRuntime implements Runtime, RuntimeCore {
   powerOn(): void {
     if (this.kept === null) return;
     warmRestart(this.machine, this.kept);
+    this.inputImageChanged();
     this.kept = null;
     this.stateReplaced();
   }
@@ -185,6 +186,7 @@ class ScanRuntime implements Runtime, RuntimeCore {
 
   restore(snapshot: RuntimeSnapshot): RestoreReport {
     const report = applySnapshot(this, snapshot, (bit, value) => this.forceBit(bit, value));
+    this.inputImageChanged();
     this.chooseKernel();
     this.stateReplaced();
     return report;
@@ -242,18 +244,28 @@ class ScanRuntime implements Runtime, RuntimeCore {
     this.flowCache = null;
   }
 
+  /**
+   * The input image was written outside the kernel (a force, a restore, a restart), so it may no
+   * longer be the field words it was last spread from: the next scan spreads them again.
+   */
+  private inputImageChanged(): void {
+    this.cells[this.machine.layout.copiedValid / 4] = 0;
+  }
+
   private forceBit(bit: number, value: boolean): void {
     const { cells, layout } = this.machine;
     const v = value ? 1 : 0;
     cells[layout.keep / 4 + bit] = 0;
     cells[layout.forced / 4 + bit] = v;
     cells[bit] = v;
+    this.inputImageChanged();
   }
 
   private releaseBit(bit: number): void {
     const { cells, layout } = this.machine;
     cells[layout.keep / 4 + bit] = 1;
     cells[layout.forced / 4 + bit] = 0;
+    this.inputImageChanged();
   }
 }
 

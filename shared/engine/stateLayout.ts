@@ -11,6 +11,11 @@
  *   field        the field value of each input, as last given: one bit per input in i32 words
  *                (input `i` is bit `i % 32` of word `i / 32`), so a runtime gives a scan all its
  *                inputs with one or two stores; the kernel spreads them into the input image
+ *   copied       the field words the input image was last spread from, then one cell that is 1
+ *                while the input image still holds exactly them (the runtime clears it when it
+ *                writes the image itself: a force, a restore, a power cycle), so a scan whose
+ *                field is unchanged skips the spreading: on the 3-rung demo that was a third of
+ *                the kernel
  *   edges        one cell per edge memory
  *   keep         one cell per bit: 1 where a write takes effect, 0 where the bit is forced
  *   forced       one cell per bit: the forced value of a forced bit, 0 elsewhere; a write stores
@@ -45,6 +50,9 @@ export interface StateLayout {
   readonly field: number;
   /** Words of the field area (32 inputs each). */
   readonly fieldWords: number;
+  /** The field words last spread into the input image (`fieldWords` cells), then the cell that says the image still holds them. */
+  readonly copied: number;
+  readonly copiedValid: number;
   readonly edges: number;
   readonly keep: number;
   readonly forced: number;
@@ -92,7 +100,9 @@ export function stateLayout(plan: Plan): StateLayout {
   const { size } = plan.layout;
   const field = align8(CELL * size);
   const fieldWords = Math.ceil(plan.space.inputs / 32);
-  const edges = field + CELL * fieldWords;
+  const copied = field + CELL * fieldWords;
+  const copiedValid = copied + CELL * fieldWords;
+  const edges = copiedValid + CELL;
   const keep = edges + CELL * plan.edges.length;
   const forced = keep + CELL * size;
   let at = align8(forced + CELL * size);
@@ -107,5 +117,5 @@ export function stateLayout(plan: Plan): StateLayout {
   const flowLeft = stateBytes;
   const flowRight = flowLeft + CELL * nodes;
   const end = flowRight + CELL * nodes;
-  return { field, fieldWords, edges, keep, forced, records, recordLayouts, stateBytes, flowLeft, flowRight, pages: Math.max(1, Math.ceil(end / PAGE_BYTES)) };
+  return { field, fieldWords, copied, copiedValid, edges, keep, forced, records, recordLayouts, stateBytes, flowLeft, flowRight, pages: Math.max(1, Math.ceil(end / PAGE_BYTES)) };
 }

@@ -2,6 +2,8 @@
  * The field values are kept as one bit per input in 32-bit words (stateLayout.ts); these tests
  * cover the word edges: a panel of 64 inputs (two words), `setInputs` with fewer values than
  * inputs (the rest keep their value), `setInput` on either side of a word boundary, and snapshots.
+ * A scan spreads a field word into the input image only when the word changed since the last
+ * spread; the last block covers everything else that writes the image (forces, restore, restart).
  */
 import { describe, expect, it } from 'vitest';
 import { compile, createRuntime, type Plan, type Runtime } from '@shared/engine';
@@ -93,5 +95,48 @@ describe('the field inputs', () => {
     other.restore(snapshot);
     other.scan();
     expect(outputs(other).flatMap((on, i) => (on ? [i + 1] : []))).toEqual([2, 35]);
+  });
+
+  describe('are spread into the input image again when the image was written from outside', () => {
+    const first = (rt: Runtime): boolean => rt.getOutput(1);
+
+    it('after a force on an input is released, scanned in between or not', () => {
+      for (const scanWhileForced of [true, false]) {
+        const rt = createRuntime(widePlan());
+        rt.scan();
+        rt.force('%IX1', true);
+        if (scanWhileForced) {
+          rt.scan();
+          expect(first(rt)).toBe(true);
+        }
+        rt.unforce('%IX1');
+        rt.scan();
+        expect(first(rt)).toBe(false);
+      }
+    });
+
+    it('after a restore whose image the field had not reached yet', () => {
+      const plan = widePlan();
+      const given = createRuntime(plan);
+      given.setInput(1, true);
+      const taken = given.snapshot();
+      expect(taken.bits.inputs[0]).toBe(0);
+      const rt = createRuntime(plan);
+      rt.setInput(1, true);
+      rt.scan();
+      rt.restore(taken);
+      rt.scan();
+      expect(first(rt)).toBe(true);
+    });
+
+    it('after a power cycle, which clears the image', () => {
+      const rt = createRuntime(widePlan());
+      rt.setInput(1, true);
+      rt.scan();
+      rt.powerOff();
+      rt.powerOn();
+      rt.scan();
+      expect(first(rt)).toBe(true);
+    });
   });
 });
