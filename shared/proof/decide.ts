@@ -64,24 +64,43 @@ export interface ProveOptions {
 
 export type ProveResult =
   | { ok: true; results: PropertyResult[]; abstractions: readonly string[]; ignoredDevices: readonly string[]; warnings: Diagnostic[] }
-  | { ok: false; errors: string[]; diagnostics?: Diagnostic[] };
+  | {
+      ok: false;
+      errors: string[];
+      diagnostics?: Diagnostic[];
+      /**
+       * When every error is about a property (a key not on the panel, a name the program lacks):
+       * which ones (0-based), so a caller may ask the others alone.
+       */
+      refusedProperties?: number[];
+    };
+
+/** An error about one property: its index (0-based) and the message, which names it. */
+interface PropertyError {
+  readonly index: number;
+  readonly message: string;
+}
+
+function refusal(errors: readonly PropertyError[]): ProveResult {
+  return { ok: false, errors: errors.map((e) => e.message), refusedProperties: [...new Set(errors.map((e) => e.index))] };
+}
 
 export const DEFAULT_MAX_STATES = 200_000;
 
 /** Every reason a property cannot be asked of this panel, each naming the property. */
-function propertyErrors(properties: readonly Property[], panel: PanelLayout, scanMs: number): string[] {
-  const errors: string[] = [];
+function propertyErrors(properties: readonly Property[], panel: PanelLayout, scanMs: number): PropertyError[] {
+  const errors: PropertyError[] = [];
   const byId = new Map(panel.devices.map((d) => [d.id, d] as const));
   properties.forEach((p, i) => {
     const at = `property ${i + 1} (${propertyLabel(p)})`;
     const steps = conditionsOf(p).map((c) => ({ expect: c }));
     const script = { panel: panel.id, scanMs, settleMs: 0, steps };
-    for (const e of checkScriptAgainstPanel(script, panel)) errors.push(e.replace(/^step \d+/, at));
+    for (const e of checkScriptAgainstPanel(script, panel)) errors.push({ index: i, message: e.replace(/^step \d+/, at) });
     for (const c of conditionsOf(p)) {
       for (const key of Object.keys(c)) {
         const device = byId.get(key);
         const why = device ? UNOBSERVABLE_KINDS[device.kind] : undefined;
-        if (device && why) errors.push(`${at}: "${key}" is ${modelOf(device.kind).noun}: ${why}`);
+        if (device && why) errors.push({ index: i, message: `${at}: "${key}" is ${modelOf(device.kind).noun}: ${why}` });
       }
     }
   });
@@ -89,12 +108,12 @@ function propertyErrors(properties: readonly Property[], panel: PanelLayout, sca
 }
 
 /** Keys that are neither devices nor values this program has (a tag it does not define…). */
-function unknownKeys(model: ProofModel, properties: readonly Property[]): string[] {
-  const errors: string[] = [];
+function unknownKeys(model: ProofModel, properties: readonly Property[]): PropertyError[] {
+  const errors: PropertyError[] = [];
   properties.forEach((p, i) => {
     for (const c of conditionsOf(p)) {
       for (const key of Object.keys(c)) {
-        if (readKey(model.sim, key) === null) errors.push(`property ${i + 1} (${propertyLabel(p)}): "${key}" names nothing in this program or on panel ${model.wiring.panel.id}`);
+        if (readKey(model.sim, key) === null) errors.push({ index: i, message: `property ${i + 1} (${propertyLabel(p)}): "${key}" names nothing in this program or on panel ${model.wiring.panel.id}` });
       }
     }
   });
@@ -110,13 +129,15 @@ export function decideProperties(options: ProveOptions, replay: Replay): ProveRe
   if (!scan.ok) return { ok: false, errors: [scan.error] };
   const scanMs = scan.value;
   const { program, panel, properties } = options;
+  // Every property's errors at once (those the panel refuses are not looked up in the program),
+  // so a caller that leaves the refused ones out is answered for the rest.
   const errors = propertyErrors(properties, panel, scanMs);
-  if (errors.length > 0) return { ok: false, errors };
-  const readKeys = [...new Set(properties.flatMap((p) => conditionsOf(p).flatMap((c) => Object.keys(c))))];
+  const panelRefused = new Set(errors.map((e) => e.index));
+  const readKeys = [...new Set(properties.flatMap((p, i) => (panelRefused.has(i) ? [] : conditionsOf(p).flatMap((c) => Object.keys(c)))))];
   const built = buildModel(program, panel, scanMs, readKeys);
   if (!built.ok) return { ok: false, errors: [built.error], diagnostics: built.diagnostics };
-  const missing = unknownKeys(built.model, properties);
-  if (missing.length > 0) return { ok: false, errors: missing };
+  errors.push(...unknownKeys(built.model, properties).filter((e) => !panelRefused.has(e.index)));
+  if (errors.length > 0) return refusal(errors.sort((a, b) => a.index - b.index));
 
   const maxStates = options.maxStates ?? DEFAULT_MAX_STATES;
   const results: PropertyResult[] = new Array<PropertyResult>(properties.length);

@@ -4,7 +4,8 @@
  * runs it, gets the shortest counterexample, plays it step by step until both contactors are
  * commanded on the panel, keeps it as a check; after a reload the property and the check are
  * still there; the program fixed, the property is proved. A long search stopped is unknown, never
- * proved; a second student in the same browser does not see the first one's sheet; and no
+ * proved; a property naming something the program lacks is listed as not decided while the others
+ * run; a second student in the same browser does not see the first one's sheet; and no
  * Content Security Policy violation happens on the way (the prover runs in a module worker).
  * Needs the server's proof-sheet routes (`GET/PUT /api/programs/:id/proof`).
  */
@@ -212,6 +213,27 @@ describe('the Proof tab', () => {
     expect(await other.getByTestId('property').count()).toBe(0);
     const answer = await other.evaluate(async (programId) => (await fetch(`/api/programs/${programId}/proof`)).status, id);
     expect([403, 404]).toContain(answer);
+    await context.close();
+  }, 120_000);
+
+  it('runs the other properties when one names something the program lacks, and says which one was not decided', async () => {
+    const context = await suite.browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await signInThroughPage(context, suite.server.url, DEMO_STUDENTS[1]!);
+    const violations = await watchViolations(page);
+    const id = await createProgram(page, { ...FORWARD_REVERSE.solution, title: 'Forward / reverse, one stray property' });
+    await openProofTab(page, id);
+    await addJsonProperty(page, { never: { '%QX1': true, '%QX2': true }, label: 'the interlock holds' });
+    await addJsonProperty(page, { never: { Old_Lamp: true }, label: 'a tag since deleted' });
+    await expect.poll(() => page.getByTestId('property').count()).toBe(2);
+    await page.getByTestId('run-all').click();
+    const good = page.getByTestId('property').filter({ hasText: 'the interlock holds' });
+    await expect.poll(() => good.getByTestId('verdict').innerText(), { timeout: 15_000 }).toBe('Proved');
+    expect(await verdicts(page)).toEqual(['Proved']);
+    const refused = await page.getByTestId('run-refused').innerText();
+    expect(refused).toMatch(/^Not decided \(the other properties were\):/);
+    expect(refused).toMatch(/property 2 \(a tag since deleted\): "Old_Lamp" names nothing in this program/);
+    await page.screenshot({ path: `${SHOTS}/proof-one-refused-1280.png` });
+    expect(violations).toEqual([]);
     await context.close();
   }, 120_000);
 

@@ -23,7 +23,7 @@ export interface ShownResult {
 export type RunSummary =
   | { kind: 'done'; results: Map<string, PropertyResult>; abstractions: readonly string[]; ignoredDevices: readonly string[]; ms: number }
   /** The prover refused the inputs: what and where (a key not on the panel, a program that does not compile). */
-  | { kind: 'refused'; errors: string[] }
+  | { kind: 'refused'; errors: string[]; /** When only some properties were refused: which (0-based); the rest may run alone. */ only?: readonly number[] }
   | { kind: 'failed'; message: string };
 
 /** Turn a worker outcome into results per property key. */
@@ -39,7 +39,10 @@ export function summarise(properties: readonly Property[], outcome: ProverOutcom
     return { kind: 'done', results, abstractions: [], ignoredDevices: [], ms: 0 };
   }
   const { result, ms } = outcome.answer;
-  if (!result.ok) return { kind: 'refused', errors: result.errors };
+  if (!result.ok) {
+    const only = result.refusedProperties;
+    return only !== undefined && only.length < properties.length ? { kind: 'refused', errors: result.errors, only } : { kind: 'refused', errors: result.errors };
+  }
   const results = new Map<string, PropertyResult>();
   properties.forEach((property, i) => {
     const r = result.results[i];

@@ -78,6 +78,25 @@ describe('the prover client', () => {
     expect(playable(r)).toBe(false);
   });
 
+  it('names the properties it refuses, so the others can be asked alone', () => {
+    const unknownName: Property = { never: { NOPE: true }, label: 'a name this program lacks' };
+    const offPanel: Property = { never: { '%QX99': true }, label: 'an output the panel lacks' };
+    const properties = [interlock, unknownName, offPanel];
+    const refused = prove({ program: FORWARD_REVERSE.solution, panel: REVERSING_CONVEYOR, properties: [interlock, unknownName] });
+    if (refused.ok) throw new Error('expected a refusal');
+    expect(refused.refusedProperties).toEqual([1]);
+    expect(refused.errors).toEqual(['property 2 (a name this program lacks): "NOPE" names nothing in this program or on panel reversing-conveyor']);
+    const both = prove({ program: FORWARD_REVERSE.solution, panel: REVERSING_CONVEYOR, properties });
+    if (both.ok) throw new Error('expected a refusal');
+    expect(both.refusedProperties).toEqual([1, 2]);
+    expect(both.errors.map((e) => e.slice(0, 10))).toEqual(['property 2', 'property 3']);
+    const outcome = (result: typeof both) => ({ kind: 'done' as const, answer: { type: 'done' as const, runId: 1, ms: 1, result } });
+    expect(summarise(properties, outcome(both))).toEqual({ kind: 'refused', errors: both.errors, only: [1, 2] });
+    // Every property refused: nothing is left to ask.
+    expect(summarise([offPanel], outcome(prove({ program: FORWARD_REVERSE.solution, panel: REVERSING_CONVEYOR, properties: [offPanel] })))).toMatchObject({ kind: 'refused' });
+    expect(summarise([offPanel], outcome(prove({ program: FORWARD_REVERSE.solution, panel: REVERSING_CONVEYOR, properties: [offPanel] })))).not.toHaveProperty('only');
+  });
+
   it('passes on what the prover refused, in its words', () => {
     const outcome = { kind: 'done' as const, answer: { type: 'done' as const, runId: 1, ms: 1, result: { ok: false as const, errors: ['property 1: "K9" names nothing'] } } };
     expect(summarise([interlock], outcome)).toEqual({ kind: 'refused', errors: ['property 1: "K9" names nothing'] });
