@@ -63,7 +63,7 @@ class ScanRuntime implements Runtime, RuntimeCore {
   }
 
   setInput(index: number, value: boolean): void {
-    const inputs = this.plan.space.inputs;
+    const inputs = this.inputs;
     if (!(index >= 1 && index <= inputs && Number.isInteger(index))) checkIndex(index, inputs, 'setInput', '%IX');
     writeField(this.machine, index - 1, value);
   }
