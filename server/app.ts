@@ -105,12 +105,15 @@ export function createApp(deps: AppDependencies): Express {
   api.use(requireJsonBody);
   api.use(express.json({ limit: '1mb', verify: refuseDeepJson }));
   api.use(refuseNulCharacters);
+  // Programs first among the JSON routers: loads and saves are most of the traffic, and every
+  // router ahead of them is one more stack of paths each request is matched against. No router
+  // before or after shares a path with it (drafts and proof sheets have their own sub-paths).
+  api.use(programsRouter(ctx));
   api.use(authRouter(ctx));
   api.use(signUpRouter(ctx));
   api.use(invitationsRouter(ctx));
   api.use(adminRouter(ctx));
   api.use(adminStatusRouter(ctx));
-  api.use(programsRouter(ctx));
   api.use(draftsRouter(ctx));
   api.use(proofSheetsRouter(ctx));
   api.use(classesRouter(ctx));

@@ -13,6 +13,7 @@ import type { SQL } from 'drizzle-orm';
 import * as schema from './schema';
 import { enableRowCaches } from './rowCache';
 import { createPool, drizzleOnPool, migratePostgres, withSchemaLock } from './postgres';
+import { pgliteSerializers } from './jsonbParameter';
 
 /** The Drizzle handle every db-layer function takes; driver-agnostic on purpose. */
 export type Db = PgDatabase<PgQueryResultHKT, typeof schema>;
@@ -109,11 +110,11 @@ async function createClient(source: Exclude<DatabaseSource, { kind: 'postgres' }
       const dir = pgliteDirectory(source.dataDir);
       // PGlite needs the parent to exist, else ENOENT (STACK.md).
       mkdirSync(path.dirname(dir), { recursive: true });
-      return PGlite.create({ dataDir: dir });
+      return PGlite.create({ dataDir: dir, serializers: pgliteSerializers });
     }
     case 'memory':
-      return PGlite.create();
+      return PGlite.create({ serializers: pgliteSerializers });
     case 'dump':
-      return PGlite.create({ loadDataDir: source.dump });
+      return PGlite.create({ loadDataDir: source.dump, serializers: pgliteSerializers });
   }
 }

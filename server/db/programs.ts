@@ -9,12 +9,19 @@
 import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Db } from './client';
 import { labs, programs, programVersions, type ProgramRow, type ProgramVersionRow } from './schema';
-import { readThrough, rowCachesOf, versionKey } from './rowCache';
+import { readThrough, rowCachesOf, versionKey, type CachedVersionRow } from './rowCache';
 import { appendVersionBatched } from './versionBatches';
 
 export type Program = ProgramRow;
 export type ProgramVersion = ProgramVersionRow;
 export type VersionSummary = Omit<ProgramVersionRow, 'document' | 'programId'>;
+/** A version with its document as JSON text (what the row cache keeps, and what answers send). */
+export type ProgramVersionJson = CachedVersionRow;
+
+/** `version` with its document as the JSON text `res.json` would send for it. */
+function withDocumentJson({ document, ...rest }: ProgramVersion): ProgramVersionJson {
+  return { ...rest, documentJson: JSON.stringify(document) };
+}
 
 const summaryColumns = {
   number: programVersions.number,
@@ -49,7 +56,7 @@ export async function insertProgram(db: Db, p: NewProgram): Promise<{ program: P
   });
   const caches = rowCachesOf(db);
   caches?.programs.put(created.program.id, created.program);
-  caches?.versions.put(versionKey(created.program.id, 1), created.version);
+  caches?.versions.put(versionKey(created.program.id, 1), withDocumentJson(created.version));
   return created;
 }
 
@@ -87,9 +94,25 @@ export async function listVersions(db: Db, programId: string): Promise<VersionSu
   return db.select(summaryColumns).from(programVersions).where(eq(programVersions.programId, programId)).orderBy(desc(programVersions.number));
 }
 
+async function selectVersion(db: Db, programId: string, number: number): Promise<ProgramVersion | null> {
+  return (await db.select().from(programVersions).where(and(eq(programVersions.programId, programId), eq(programVersions.number, number))).limit(1))[0] ?? null;
+}
+
+/** A version with its document as a tree (a fresh one each call: the caller may change it). */
 export async function findVersion(db: Db, programId: string, number: number): Promise<ProgramVersion | null> {
-  const load = async () =>
-    (await db.select().from(programVersions).where(and(eq(programVersions.programId, programId), eq(programVersions.number, number))).limit(1))[0] ?? null;
+  if (!rowCachesOf(db)) return selectVersion(db, programId, number);
+  const found = await findVersionJson(db, programId, number);
+  if (!found) return null;
+  const { documentJson, ...rest } = found;
+  return { ...rest, document: JSON.parse(documentJson) as unknown };
+}
+
+/** A version with its document as JSON text, for an answer that sends the document as it is. */
+export async function findVersionJson(db: Db, programId: string, number: number): Promise<ProgramVersionJson | null> {
+  const load = async () => {
+    const row = await selectVersion(db, programId, number);
+    return row && withDocumentJson(row);
+  };
   return readThrough(db, 'versions', versionKey(programId, number), load);
 }
 
@@ -102,8 +125,8 @@ export interface NewVersion {
   now: Date;
 }
 
-/** `documentJson`: the document as the JSON text written to the database (an answer can reuse it). */
-export type AppendResult = { ok: true; version: ProgramVersion; documentJson: string } | { ok: false; head: VersionSummary | null };
+/** The version written, its document as the JSON text written to the database (an answer can reuse it). */
+export type AppendResult = { ok: true; version: ProgramVersionJson } | { ok: false; head: VersionSummary | null };
 
 /**
  * Appends version `baseVersion + 1` if the head is still `baseVersion`, deleting the author's draft
@@ -126,12 +149,12 @@ export async function appendVersion(db: Db, v: NewVersion): Promise<AppendResult
     return { ok: false, head: await findHead(db, v.programId) };
   }
   // Only the head and the time changed; the document is not read back (parsing it costs more than the insert).
-  const version: ProgramVersion = { programId: v.programId, number, document: v.document, message: v.message, authorId: v.authorId, createdAt: v.now };
+  const version: ProgramVersionJson = { programId: v.programId, number, documentJson, message: v.message, authorId: v.authorId, createdAt: v.now };
   const cachedProgram = caches?.programs.peek(v.programId);
   if (cachedProgram) caches?.programs.put(v.programId, { ...cachedProgram, headVersion: number, updatedAt: v.now });
   else caches?.programs.drop(v.programId);
   caches?.versions.put(versionKey(v.programId, number), version);
-  return { ok: true, version, documentJson };
+  return { ok: true, version };
 }
 
 /** The head version's summary (what a refused save reports), or null when there is no such program. */

@@ -19,9 +19,7 @@ import type { ProgramRow, ProgramVersionRow, User } from './schema';
 
 /**
  * A bounded map, least recently used entry dropped first. Each row is frozen, so no caller can
- * change a shared row; the JSON inside it (a document) is not, because freezing walks the whole
- * document on every fill (about 30 µs of each save of a 12-rung program, measured in a profile).
- * What a row holds is shared read-only by convention, and only ever serialised.
+ * change a shared row (a version's document is kept as text, see `CachedVersionRow`).
  */
 export class RowCache<V> {
   private readonly entries = new Map<string, V>();
@@ -84,12 +82,22 @@ export class RowCache<V> {
   }
 }
 
+/**
+ * A version row as the cache keeps it: the document as its JSON text (`JSON.stringify` of the
+ * document, the bytes an answer sends), not as an object tree. Every save caches the version it
+ * wrote; as a tree of about a thousand objects each such document outlived the young generation
+ * and was copied into the old one, which made each scavenge under a stream of saves 15–20 ms
+ * (`--trace-gc`); one string is one object to copy. Answers splice the text in; the few readers
+ * that need the tree parse it.
+ */
+export type CachedVersionRow = Omit<ProgramVersionRow, 'document'> & { documentJson: string };
+
 /** The caches of one database; capacities bound memory (a version holds a whole document, a few kB to ~1 MB). */
 export interface RowCaches {
   users: RowCache<User>;
   programs: RowCache<ProgramRow>;
   /** Keyed by `versionKey`. */
-  versions: RowCache<ProgramVersionRow>;
+  versions: RowCache<CachedVersionRow>;
 }
 
 export const versionKey = (programId: string, number: number): string => `${programId}#${number}`;

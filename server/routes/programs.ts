@@ -39,7 +39,7 @@ export function programsRouter(ctx: AppContext): Router {
   router.get('/programs/:id', async (req, res) => {
     const id = parseId(req.params.id, 'program');
     if (!id.ok) return reply(res, id);
-    reply(res, await programs.getProgram(ctx, currentUser(req), id.value));
+    replyWithDocument(res, await programs.getProgram(ctx, currentUser(req), id.value), 200, ({ program, head }) => ({ fields: { program }, key: 'head', ...head }));
   });
 
   router.patch('/programs/:id', async (req, res) => {
@@ -67,7 +67,7 @@ export function programsRouter(ctx: AppContext): Router {
     if (!id.ok) return reply(res, id);
     const body = parse(SaveVersionRequestSchema, req.body);
     if (!body.ok) return reply(res, body);
-    replyWithDocument(res, await programs.saveVersion(ctx, currentUser(req), id.value, body.value), 201, 'version');
+    replyWithDocument(res, await programs.saveVersion(ctx, currentUser(req), id.value, body.value), 201, (version) => ({ key: 'version', ...version }));
   });
 
   router.get('/programs/:id/versions/:number', async (req, res) => {
@@ -75,7 +75,7 @@ export function programsRouter(ctx: AppContext): Router {
     if (!id.ok) return reply(res, id);
     const number = parse(VersionNumberSchema, req.params.number);
     if (!number.ok) return reply(res, { ok: false, failure: { code: 'not_found', message: 'No such version' } });
-    reply(res, await programs.getVersion(ctx, currentUser(req), id.value, number.value), 200, (version) => ({ version }));
+    replyWithDocument(res, await programs.getVersionJson(ctx, currentUser(req), id.value, number.value), 200, (version) => ({ key: 'version', ...version }));
   });
 
   router.get('/programs/:id/versions/:number/export', async (req, res) => {
@@ -107,7 +107,7 @@ export function programsRouter(ctx: AppContext): Router {
     if (!id.ok) return reply(res, id);
     const body = parse(RestoreVersionRequestSchema, req.body);
     if (!body.ok) return reply(res, body);
-    replyWithDocument(res, await programs.restoreVersion(ctx, currentUser(req), id.value, body.value), 201, 'version');
+    replyWithDocument(res, await programs.restoreVersion(ctx, currentUser(req), id.value, body.value), 201, (version) => ({ key: 'version', ...version }));
   });
 
   return router;

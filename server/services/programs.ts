@@ -70,12 +70,18 @@ export async function createProgram(ctx: AppContext, actor: User, req: CreatePro
   }
 }
 
-export async function getProgram(ctx: AppContext, actor: User, programId: string): Promise<Outcome<ProgramDetail>> {
+/** A program and its head version (a `ProgramDetail` once the document is spliced in, see `replyWithDocument`). */
+export interface ProgramWithHead {
+  program: ProgramSummary;
+  head: VersionWithJson;
+}
+
+export async function getProgram(ctx: AppContext, actor: User, programId: string): Promise<Outcome<ProgramWithHead>> {
   const found = await authorised(ctx, actor, programId, 'read');
   if (!found.ok) return found;
-  const head = await db.findVersion(ctx.orm, programId, found.value.headVersion);
+  const head = await db.findVersionJson(ctx.orm, programId, found.value.headVersion);
   if (!head) return failure('internal', 'The program has no head version');
-  return success({ program: programView(found.value), head: versionDetailView(head) });
+  return success({ program: programView(found.value), head: { summary: versionView(head), documentJson: head.documentJson } });
 }
 
 export async function renameProgram(ctx: AppContext, actor: User, programId: string, title: string): Promise<Outcome<ProgramSummary>> {
@@ -93,28 +99,28 @@ export async function deleteProgram(ctx: AppContext, actor: User, programId: str
 }
 
 /**
- * A version just saved, as its answer needs it: the summary, and the document as the JSON text
- * written to the database, so the answer (a whole document) is not serialised a second time.
+ * A version as an answer needs it: the summary, and the document as JSON text (the text a save
+ * wrote to the database, or the row cache's), so the answer does not serialise a whole document.
  */
-export interface SavedVersion {
+export interface VersionWithJson {
   summary: VersionSummary;
   documentJson: string;
 }
 
-async function append(ctx: AppContext, actor: User, programId: string, baseVersion: number, document: unknown, message: string): Promise<Outcome<SavedVersion>> {
+async function append(ctx: AppContext, actor: User, programId: string, baseVersion: number, document: unknown, message: string): Promise<Outcome<VersionWithJson>> {
   const checked = checkProgramDocument(document);
   if (!checked.ok) return checked;
   const result = await db.appendVersion(ctx.orm, { programId, baseVersion, document: checked.value, message, authorId: actor.id, now: ctx.clock.now() });
   // The saved version holds what the draft kept, so the same statement deleted the actor's draft:
   // a draft left behind would be offered back as newer work.
-  if (result.ok) return success({ summary: versionView(result.version), documentJson: result.documentJson });
+  if (result.ok) return success({ summary: versionView(result.version), documentJson: result.version.documentJson });
   if (!result.head) return failure('not_found', 'This program does not exist or is not open to you');
   return failure('version_conflict', `Version ${result.head.number} was saved after version ${baseVersion}; load it and apply your change again`, {
     details: { head: versionView(result.head) },
   });
 }
 
-export async function saveVersion(ctx: AppContext, actor: User, programId: string, req: SaveVersionRequest): Promise<Outcome<SavedVersion>> {
+export async function saveVersion(ctx: AppContext, actor: User, programId: string, req: SaveVersionRequest): Promise<Outcome<VersionWithJson>> {
   const found = await authorised(ctx, actor, programId, 'write');
   if (!found.ok) return found;
   return append(ctx, actor, programId, req.baseVersion, req.document, req.message || `Saved on version ${req.baseVersion}`);
@@ -136,6 +142,15 @@ export async function getVersion(ctx: AppContext, actor: User, programId: string
   if (!found.ok) return found;
   const version = await loadVersion(ctx, programId, number);
   return version.ok ? success(versionDetailView(version.value)) : version;
+}
+
+/** A version as its answer sends it (the document as JSON text). */
+export async function getVersionJson(ctx: AppContext, actor: User, programId: string, number: number): Promise<Outcome<VersionWithJson>> {
+  const found = await authorised(ctx, actor, programId, 'read');
+  if (!found.ok) return found;
+  const version = await db.findVersionJson(ctx.orm, programId, number);
+  if (!version) return failure('not_found', `This program has no version ${number}`);
+  return success({ summary: versionView(version), documentJson: version.documentJson });
 }
 
 /** The version itself, for export. */
@@ -161,7 +176,7 @@ export async function diffVersions(ctx: AppContext, actor: User, programId: stri
   return success({ from, to, rungs: diffProgramDocuments(before.value, after.value) });
 }
 
-export async function restoreVersion(ctx: AppContext, actor: User, programId: string, req: RestoreVersionRequest): Promise<Outcome<SavedVersion>> {
+export async function restoreVersion(ctx: AppContext, actor: User, programId: string, req: RestoreVersionRequest): Promise<Outcome<VersionWithJson>> {
   const found = await authorised(ctx, actor, programId, 'write');
   if (!found.ok) return found;
   const old = await loadVersion(ctx, programId, req.version);

@@ -52,6 +52,23 @@ describe('row caches', () => {
     expect(await programs.findVersion(database.orm, id, 1)).toBeNull();
   });
 
+  it('keep a version\'s document as its JSON text, and hand each reader a tree of its own', async () => {
+    const id = await newProgram();
+    expect((await save(id, 1, 3)).ok).toBe(true);
+    const cached = rowCachesOf(database.orm)!.versions.peek(`${id}#2`);
+    expect(cached?.documentJson).toBe(JSON.stringify(documentWithRungs(3)));
+    expect(cached).not.toHaveProperty('document');
+    const first = await programs.findVersion(database.orm, id, 2);
+    (first!.document as { rungs: unknown[] }).rungs.length = 0;
+    expect((await programs.findVersion(database.orm, id, 2))?.document).toEqual(documentWithRungs(3));
+    // Read from the database (jsonb orders keys its own way): the text is what res.json sends for the row.
+    rowCachesOf(database.orm)!.versions.clear();
+    const loaded = await programs.findVersionJson(database.orm, id, 2);
+    const [stored] = await database.orm.execute(sql`select document from program_versions where program_id = ${id} and number = 2`).then((r) => (r as unknown as { rows: { document: unknown }[] }).rows);
+    expect(loaded?.documentJson).toBe(JSON.stringify(stored!.document));
+    expect(JSON.parse(loaded!.documentJson)).toEqual(documentWithRungs(3));
+  });
+
   it('answer the same program the database holds after every save', async () => {
     const id = await newProgram();
     for (let base = 1; base <= 5; base += 1) expect((await save(id, base)).ok).toBe(true);

@@ -28,6 +28,14 @@ describe('creating and loading programs', () => {
     expect(res.status).toBe(200);
     expect(res.body.head.document).toEqual(documentWithRungs(1, 'Three-wire'));
     expect(res.body.program.ownerId).toBe(cast.studentA.user.id);
+    // The answer splices in the document text the row cache keeps: the same bytes as res.json of the object.
+    expect(res.headers['content-type']).toBe('application/json; charset=utf-8');
+    expect(Object.keys(res.body)).toEqual(['program', 'head']);
+    expect(Object.keys(res.body.head)).toEqual(['number', 'message', 'authorId', 'createdAt', 'document']);
+    expect(res.text).toBe(JSON.stringify(res.body));
+    const one = await call(t, 'get', `/api/programs/${created.program.id}/versions/1`, as());
+    expect(Object.keys(one.body.version)).toEqual(['number', 'message', 'authorId', 'createdAt', 'document']);
+    expect(one.text).toBe(JSON.stringify({ version: res.body.head }));
   });
 
   it('starts an empty program when no document is given', async () => {
