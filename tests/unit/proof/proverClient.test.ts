@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { REVERSING_CONVEYOR } from '@shared/field';
-import { prove, type Property } from '@shared/proof';
+import { prove, type Property, type ProveResult } from '@shared/proof';
 import { FORWARD_REVERSE } from '@shared/labs';
 import type { ProveRequest, WarmRequest, WorkerAnswer } from '@/proof/messages';
 import { createProver, type WorkerLike } from '@/proof/proverClient';
@@ -90,7 +90,7 @@ describe('the prover client', () => {
     if (both.ok) throw new Error('expected a refusal');
     expect(both.refusedProperties).toEqual([1, 2]);
     expect(both.errors.map((e) => e.slice(0, 10))).toEqual(['property 2', 'property 3']);
-    const outcome = (result: typeof both) => ({ kind: 'done' as const, answer: { type: 'done' as const, runId: 1, ms: 1, result } });
+    const outcome = (result: ProveResult) => ({ kind: 'done' as const, answer: { type: 'done' as const, runId: 1, ms: 1, result } });
     expect(summarise(properties, outcome(both))).toEqual({ kind: 'refused', errors: both.errors, only: [1, 2] });
     // Every property refused: nothing is left to ask.
     expect(summarise([offPanel], outcome(prove({ program: FORWARD_REVERSE.solution, panel: REVERSING_CONVEYOR, properties: [offPanel] })))).toMatchObject({ kind: 'refused' });
