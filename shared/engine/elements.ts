@@ -175,3 +175,12 @@ export const COIL_KINDS = {
     },
   },
 } as const satisfies Record<CoilVariant, CoilKind>;
+
+/** The contact variants by number: a plan's node table holds the number (`PlanNodes`). */
+export const CONTACT_VARIANTS = Object.keys(CONTACT_KINDS) as ContactVariant[];
+/** The coil variants by number. */
+export const COIL_VARIANTS = Object.keys(COIL_KINDS) as CoilVariant[];
+
+/** Each variant's number, the other way round. */
+export const CONTACT_VARIANT_NUMBER = Object.fromEntries(CONTACT_VARIANTS.map((v, i) => [v, i])) as Record<ContactVariant, number>;
+export const COIL_VARIANT_NUMBER = Object.fromEntries(COIL_VARIANTS.map((v, i) => [v, i])) as Record<CoilVariant, number>;

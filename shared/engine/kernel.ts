@@ -17,8 +17,8 @@
 import { BLOCK_SPECS } from '../ladder/blocks';
 import type { BlockEmit } from './blocks/blockEmit';
 import { BLOCK_BEHAVIOURS } from './blocks/behaviours';
-import { COIL_KINDS, CONTACT_KINDS } from './elements';
-import type { Plan, PlanBlock, PlanCoil, PlanContact, PlanNode, PlanOp, PlanRung, PlanSource } from './plan';
+import { COIL_KINDS, COIL_VARIANTS, CONTACT_KINDS, CONTACT_VARIANTS, type CoilKind, type ContactKind } from './elements';
+import { NODE_OP, NODE_STRIDE, type Plan, type PlanBlock, type PlanOp, type PlanSource } from './plan';
 import type { StateLayout } from './stateLayout';
 import { Code, DT } from './wasm/code';
 import { assembleModule } from './wasm/module';
@@ -43,6 +43,8 @@ const BLOCK_SCRATCH_F64 = 2;
 interface Emitting {
   readonly code: Code;
   readonly plan: Plan;
+  /** The plan's node table (`PlanNodes.data`). */
+  readonly nodes: Int32Array;
   readonly layout: StateLayout;
   readonly recordFlow: boolean;
   readonly forces: boolean;
@@ -117,51 +119,60 @@ function endStoreBit(e: Emitting, bit: number): void {
   code.endStoreCell(bitAt(bit));
 }
 
-type Emitter<N extends PlanNode> = (node: N, depth: number, e: Emitting) => void;
+const CONTACTS: readonly ContactKind[] = CONTACT_VARIANTS.map((variant) => CONTACT_KINDS[variant]);
+const COILS: readonly CoilKind[] = COIL_VARIANTS.map((variant) => COIL_KINDS[variant]);
 
-/** Each emitter finds the power on its left on the stack and leaves the power on its right. */
-const EMITTERS = {
-  series: (node, depth, e) => {
-    for (const item of node.items) emitNode(item, depth, e);
-  },
-  parallel: (node, depth, e) => {
-    const { code } = e;
-    if (node.branches.length === 0) {
-      code.op(OP.drop);
-      code.i32(0);
-      return;
-    }
-    const left = code.depthLocal(depth);
-    code.set(left);
-    node.branches.forEach((branch, k) => {
-      code.get(left);
-      emitNode(branch, depth + 1, e);
-      if (k > 0) code.op(OP.i32Or);
-    });
-  },
-  contact: (node: PlanContact, _depth, e) => {
-    const kind = CONTACT_KINDS[node.variant];
-    pushBool(e, node.source);
-    kind.emit({ code: e.code, edge: kind.edge ? bitAt(node.edge, e.layout.edges) : -1, temp: e.code.i32Temp(EDGE_VALUE) });
-  },
-  coil: (node: PlanCoil, _depth, e) => {
-    const { code } = e;
-    const kind = COIL_KINDS[node.variant];
-    const power = code.i32Temp(COIL_POWER);
-    const edge = kind.edge ? bitAt(node.edge, e.layout.edges) : -1;
-    code.set(power);
+/**
+ * The emitters, one per kind of node (see `PlanNodes` for what `a`, `b` and `edge` are). Each
+ * finds the power on its left on the stack and leaves the power on its right; a series or
+ * parallel emits its children and returns the index of the node after them.
+ */
+function emitSeries(at: number, count: number, depth: number, e: Emitting): number {
+  let next = at + 1;
+  for (let k = 0; k < count; k += 1) next = emitNode(next, depth, e);
+  return next;
+}
+
+function emitParallel(at: number, count: number, depth: number, e: Emitting): number {
+  const { code } = e;
+  if (count === 0) {
+    code.op(OP.drop);
+    code.i32(0);
+    return at + 1;
+  }
+  const left = code.depthLocal(depth);
+  code.set(left);
+  let next = at + 1;
+  for (let k = 0; k < count; k += 1) {
+    code.get(left);
+    next = emitNode(next, depth + 1, e);
+    if (k > 0) code.op(OP.i32Or);
+  }
+  return next;
+}
+
+function emitContact(variant: number, source: number, edge: number, e: Emitting): void {
+  const kind = CONTACTS[variant]!;
+  pushBool(e, e.plan.sources[source]!);
+  kind.emit({ code: e.code, edge: kind.edge ? bitAt(edge, e.layout.edges) : -1, temp: e.code.i32Temp(EDGE_VALUE) });
+}
+
+function emitCoil(variant: number, bit: number, edgeIndex: number, e: Emitting): void {
+  const { code } = e;
+  const kind = COILS[variant]!;
+  const power = code.i32Temp(COIL_POWER);
+  const edge = kind.edge ? bitAt(edgeIndex, e.layout.edges) : -1;
+  code.set(power);
+  code.storeBase();
+  kind.emit({ code, power, bit: bitAt(bit), edge });
+  endStoreBit(e, bit);
+  if (kind.edge) {
     code.storeBase();
-    kind.emit({ code, power, bit: bitAt(node.bit), edge });
-    endStoreBit(e, node.bit);
-    if (kind.edge) {
-      code.storeBase();
-      code.get(power);
-      code.endStoreCell(edge);
-    }
     code.get(power);
-  },
-  block: (node: PlanBlock, _depth, e) => emitBlock(node, e),
-} as const satisfies { [K in PlanOp]: Emitter<Extract<PlanNode, { op: K }>> };
+    code.endStoreCell(edge);
+  }
+  code.get(power);
+}
 
 function emitBlock(node: PlanBlock, e: Emitting): void {
   const { code } = e;
@@ -211,33 +222,55 @@ function recordFlow(e: Emitting, address: number): void {
   code.get(temp);
 }
 
-function emitNode(node: PlanNode, depth: number, e: Emitting): void {
-  if (e.recordFlow) recordFlow(e, bitAt(node.flow, e.layout.flowLeft));
-  (EMITTERS[node.op] as Emitter<PlanNode>)(node, depth, e);
-  if (e.recordFlow) recordFlow(e, bitAt(node.flow, e.layout.flowRight));
+/** Emit node `at` (its power-flow index too) with everything below it; the index of the node after them. */
+function emitNode(at: number, depth: number, e: Emitting): number {
+  const { nodes } = e;
+  const base = NODE_STRIDE * at;
+  const a = nodes[base + 1]!;
+  let next = at + 1;
+  if (e.recordFlow) recordFlow(e, bitAt(at, e.layout.flowLeft));
+  switch (nodes[base]) {
+    case NODE_OP.series:
+      next = emitSeries(at, a, depth, e);
+      break;
+    case NODE_OP.parallel:
+      next = emitParallel(at, a, depth, e);
+      break;
+    case NODE_OP.contact:
+      emitContact(a, nodes[base + 2]!, nodes[base + 3]!, e);
+      break;
+    case NODE_OP.coil:
+      emitCoil(a, nodes[base + 2]!, nodes[base + 3]!, e);
+      break;
+    default:
+      emitBlock(e.plan.blocks[a]!, e);
+  }
+  if (e.recordFlow) recordFlow(e, bitAt(at, e.layout.flowRight));
+  return next;
 }
 
-function countElements(node: PlanNode): number {
-  if (node.op === 'series') return node.items.reduce((sum, item) => sum + countElements(item), 0);
-  if (node.op === 'parallel') return node.branches.reduce((sum, branch) => sum + countElements(branch), 0);
-  return 1;
-}
-
-function chunkRungs(rungs: readonly PlanRung[]): PlanRung[][] {
-  const chunks: PlanRung[][] = [];
-  let current: PlanRung[] = [];
+/**
+ * The rungs split into runs of about `CHUNK_ELEMENTS` elements (a rung counts its elements plus
+ * one), as `[first, end)` rung ranges; a rung is never split.
+ */
+function chunkRungs(plan: Plan): Array<[number, number]> {
+  const { data, roots } = plan.nodes;
+  const nodeCount = data.length / NODE_STRIDE;
+  const chunks: Array<[number, number]> = [];
+  let first = 0;
   let size = 0;
-  for (const rung of rungs) {
-    const n = countElements(rung.network) + 1;
-    if (current.length > 0 && size + n > CHUNK_ELEMENTS) {
-      chunks.push(current);
-      current = [];
+  for (let r = 0; r < roots.length; r += 1) {
+    const end = r + 1 < roots.length ? roots[r + 1]! : nodeCount;
+    let n = 1;
+    for (let at = roots[r]!; at < end; at += 1) if (data[NODE_STRIDE * at]! >= NODE_OP.contact) n += 1;
+    if (r > first && size + n > CHUNK_ELEMENTS) {
+      chunks.push([first, r]);
+      first = r;
       size = 0;
     }
-    current.push(rung);
     size += n;
   }
-  if (current.length > 0) chunks.push(current);
+  if (roots.length > first) chunks.push([first, roots.length]);
   return chunks;
 }
 
@@ -304,20 +337,22 @@ function spreadWord(e: Emitting, word: number, from: number, to: number): void {
  * [memory for the sub-number]); a coil's write is visible at once to every later element.
  */
 export function kernelModule(plan: Plan, layout: StateLayout, options: KernelOptions): Uint8Array {
-  const emitRungs = (e: Emitting, rungs: readonly PlanRung[]): void => {
-    for (const rung of rungs) {
+  const { roots } = plan.nodes;
+  const emitRungs = (e: Emitting, [first, end]: [number, number]): void => {
+    for (let r = first; r < end; r += 1) {
       e.code.i32(1);
-      emitNode(rung.network, 0, e);
+      emitNode(roots[r]!, 0, e);
       e.code.op(OP.drop);
     }
   };
-  const chunks = chunkRungs(plan.rungs);
-  const scan: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow, forces: options.forces };
+  const emitting = (): Emitting => ({ code: new Code(), plan, nodes: plan.nodes.data, layout, recordFlow: options.recordFlow, forces: options.forces });
+  const chunks = chunkRungs(plan);
+  const scan = emitting();
   emitInputImage(scan);
   // A small program is solved inside `scan` itself: a call costs as much as a few rungs.
   if (chunks.length === 1) emitRungs(scan, chunks[0]!);
   const functions = chunks.length === 1 ? [] : chunks.map((rungs) => {
-    const e: Emitting = { code: new Code(), plan, layout, recordFlow: options.recordFlow, forces: options.forces };
+    const e = emitting();
     emitRungs(e, rungs);
     return e.code;
   });

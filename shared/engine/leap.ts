@@ -14,7 +14,7 @@
  */
 import { clockOf } from './blocks/behaviours';
 import type { Machine } from './machine';
-import type { Plan, PlanNode } from './plan';
+import type { Plan } from './plan';
 
 /** A clock block of the plan whose elapsed time may run during a leap. */
 interface ClockField {
@@ -32,12 +32,6 @@ interface LeapPlan {
 
 const leapPlans = new WeakMap<Plan, LeapPlan>();
 
-function walk(node: PlanNode, visit: (node: PlanNode) => void): void {
-  visit(node);
-  if (node.op === 'series') for (const item of node.items) walk(item, visit);
-  else if (node.op === 'parallel') for (const branch of node.branches) walk(branch, visit);
-}
-
 function leapPlanOf(machine: Machine): LeapPlan {
   const { plan } = machine;
   let known = leapPlans.get(plan);
@@ -45,18 +39,15 @@ function leapPlanOf(machine: Machine): LeapPlan {
   /** Each instance's preset: a constant seen at every call, or NaN when not provably constant. */
   const presets = new Map<number, number>();
   const etRead = new Set<number>();
-  for (const rung of plan.rungs) {
-    walk(rung.network, (node) => {
-      if (node.op !== 'block') return;
-      const clock = clockOf(node.type);
-      for (const input of node.inputs) {
-        if (input.source.kind === 'member' && input.source.member === 'ET') etRead.add(input.source.instance);
-        if (clock === undefined || input.name !== clock.preset) continue;
-        const value = input.source.kind === 'constant' ? input.source.value : Number.NaN;
-        const seen = presets.get(node.instance);
-        presets.set(node.instance, seen === undefined || seen === value ? value : Number.NaN);
-      }
-    });
+  for (const node of plan.blocks) {
+    const clock = clockOf(node.type);
+    for (const input of node.inputs) {
+      if (input.source.kind === 'member' && input.source.member === 'ET') etRead.add(input.source.instance);
+      if (clock === undefined || input.name !== clock.preset) continue;
+      const value = input.source.kind === 'constant' ? input.source.value : Number.NaN;
+      const seen = presets.get(node.instance);
+      presets.set(node.instance, seen === undefined || seen === value ? value : Number.NaN);
+    }
   }
   const clocks: ClockField[] = [];
   plan.instances.forEach((instance, i) => {

@@ -13,13 +13,15 @@ import { buildSymbolTable, operandKey, resolveOperand, symbolKey, type Operand, 
 import type { Result } from '../ladder/result';
 import type { Block, Coil, Contact, NetworkNode, Program } from '../ladder/schema';
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
-import { COIL_KINDS, CONTACT_KINDS } from './elements';
-import { bitLayout, type BitLayout, type Plan, type PlanBlockInput, type PlanEdge, type PlanInstance } from './plan';
-import type { PlanNode, PlanOp, PlanRung, PlanSeries, PlanSource } from './plan';
+import { COIL_KINDS, COIL_VARIANT_NUMBER, CONTACT_KINDS, CONTACT_VARIANT_NUMBER } from './elements';
+import { bitLayout, NODE_OP, NODE_STRIDE, rungsFromNodes, type BitLayout, type Plan, type PlanBlockInput, type PlanEdge, type PlanInstance } from './plan';
+import type { PlanBlock, PlanNodes, PlanOp, PlanRung, PlanSource } from './plan';
 
 /** What a contact's operand text reads: a source, or the message that says why it cannot. */
 interface ContactOperand {
   readonly source: PlanSource | string;
+  /** The source's index in the plan's `sources`; -1 when it did not resolve. */
+  readonly index: number;
   /** The operand's canonical text, for an edge memory (null when it did not resolve). */
   readonly key: string | null;
 }
@@ -55,7 +57,14 @@ interface Lowering {
   rungId: string;
   elementCount: number;
   readonly nodeCounts: Record<PlanOp, number>;
+  /** The node table being written (see `PlanNodes`), replaced by one twice as long when full. */
+  data: Int32Array;
+  readonly sources: PlanSource[];
+  readonly blocks: PlanBlock[];
 }
+
+/** Nodes the node table first has room for, per rung (it grows when a program has more). */
+const NODES_PER_RUNG_GUESS = 16;
 
 /** Lower a program that validation passed. Never throws for anything in the document. */
 export function lowerProgram(program: Program, space: AddressSpace): LowerResult {
@@ -77,27 +86,31 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
     rungId: '',
     elementCount: 0,
     nodeCounts: { series: 0, parallel: 0, contact: 0, coil: 0, block: 0 },
+    data: new Int32Array(NODE_STRIDE * Math.max(256, NODES_PER_RUNG_GUESS * program.rungs.length)),
+    sources: [],
+    blocks: [],
   };
   for (const [key, type] of symbols.instances) {
     context.instanceIndex.set(key, context.instances.length);
     context.instances.push({ name: symbols.spellings.get(key) ?? key, key, type });
   }
-  const rungs: PlanRung[] = new Array<PlanRung>(program.rungs.length);
-  const rootFlows: number[] = new Array<number>(program.rungs.length);
+  const rootFlows = new Int32Array(program.rungs.length);
   for (let r = 0; r < program.rungs.length; r += 1) {
     const rung = program.rungs[r]!;
     context.rungId = rung.id;
-    const network = lowerNode(rung.network, context) as PlanSeries;
-    rootFlows[r] = network.flow;
-    rungs[r] = { id: rung.id, network };
+    rootFlows[r] = context.flowIds.length;
+    lowerNode(rung.network, context);
   }
   if (context.diagnostics.length > 0) return { ok: false, diagnostics: context.diagnostics };
-  const { flowIds } = context;
-  // Only a live view looks nodes up by id: the index is built on its first use, not on every compile.
+  const { flowIds, sources, blocks } = context;
+  const nodes: PlanNodes = { data: context.data.subarray(0, NODE_STRIDE * flowIds.length), roots: rootFlows };
+  // Only a live view looks nodes up by id, and only the tests and the reference interpreter walk
+  // the rungs as objects: each is built on its first use, not on every compile.
   let flowIndex: Map<string, number> | null = null;
+  let rungs: PlanRung[] | null = null;
   const indexFlows = (): Map<string, number> => {
     const index = new Map<string, number>();
-    for (let r = 0; r < rungs.length; r += 1) index.set(rungs[r]!.id, rootFlows[r]!);
+    for (let r = 0; r < rootFlows.length; r += 1) index.set(program.rungs[r]!.id, rootFlows[r]!);
     for (let at = 0; at < flowIds.length; at += 1) if (!index.has(flowIds[at]!)) index.set(flowIds[at]!, at);
     return index;
   };
@@ -108,7 +121,12 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
       space,
       layout: context.layout,
       symbols,
-      rungs,
+      get rungs() {
+        return (rungs ??= rungsFromNodes(program.rungs, nodes, flowIds, sources, blocks));
+      },
+      nodes,
+      sources,
+      blocks,
       instances: context.instances,
       edges: context.edges,
       flowIds,
@@ -121,40 +139,60 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
   };
 }
 
-function lowerChildren(children: readonly NetworkNode[], context: Lowering): PlanNode[] {
-  const lowered: PlanNode[] = new Array<PlanNode>(children.length);
+function lowerChildren(children: readonly NetworkNode[], context: Lowering): void {
   const { path } = context;
   for (let i = 0; i < children.length; i += 1) {
     path.push(i);
-    lowered[i] = lowerNode(children[i]!, context);
+    lowerNode(children[i]!, context);
     path.pop();
   }
-  return lowered;
 }
 
-function lowerNode(node: NetworkNode, context: Lowering): PlanNode {
+/** Write node `at` of the node table (see `PlanNodes`). */
+function putNode(context: Lowering, at: number, op: number, a: number, b: number, edge: number): void {
+  let { data } = context;
+  const base = NODE_STRIDE * at;
+  if (base + NODE_STRIDE > data.length) {
+    const grown = new Int32Array(2 * data.length);
+    grown.set(data);
+    context.data = data = grown;
+  }
+  data[base] = op;
+  data[base + 1] = a;
+  data[base + 2] = b;
+  data[base + 3] = edge;
+}
+
+function lowerNode(node: NetworkNode, context: Lowering): void {
   const flow = context.flowIds.length;
   context.flowIds.push(node.id);
   const { nodeCounts } = context;
   switch (node.kind) {
     case 'series':
       nodeCounts.series += 1;
-      return { op: 'series', id: node.id, flow, items: lowerChildren(node.items, context) };
+      putNode(context, flow, NODE_OP.series, node.items.length, 0, -1);
+      lowerChildren(node.items, context);
+      return;
     case 'parallel':
       nodeCounts.parallel += 1;
-      return { op: 'parallel', id: node.id, flow, branches: lowerChildren(node.branches, context) };
+      putNode(context, flow, NODE_OP.parallel, node.branches.length, 0, -1);
+      lowerChildren(node.branches, context);
+      return;
     case 'contact':
       nodeCounts.contact += 1;
       context.elementCount += 1;
-      return lowerContact(node, flow, context);
+      lowerContact(node, flow, context);
+      return;
     case 'coil':
       nodeCounts.coil += 1;
       context.elementCount += 1;
-      return lowerCoil(node, flow, context);
+      lowerCoil(node, flow, context);
+      return;
     case 'block':
       nodeCounts.block += 1;
       context.elementCount += 1;
-      return lowerBlock(node, flow, context);
+      putNode(context, flow, NODE_OP.block, context.blocks.length, 0, -1);
+      context.blocks.push(lowerBlock(node, flow, context));
   }
 }
 
@@ -175,25 +213,33 @@ function resolve(text: string, context: Lowering): Result<Operand> {
 
 const UNUSABLE: PlanSource = { kind: 'constant', value: 0 };
 
-function lowerContact(contact: Contact, flow: number, context: Lowering): PlanNode {
+/** What a contact with this operand text reads, with its index in the plan's sources. */
+function contactOperand(text: string, context: Lowering): ContactOperand {
+  const resolved = resolve(text, context);
+  if (!resolved.ok) return { source: resolved.error, index: -1, key: null };
+  const source = sourceFor(resolved.value, 'BOOL', context);
+  const key = operandKey(resolved.value);
+  if (typeof source === 'string') return { source, index: -1, key };
+  context.sources.push(source);
+  return { source, index: context.sources.length - 1, key };
+}
+
+function lowerContact(contact: Contact, flow: number, context: Lowering): void {
   let known = context.contactOperands.get(contact.operand);
   if (known === undefined) {
-    const resolved = resolve(contact.operand, context);
-    known = resolved.ok ? { source: sourceFor(resolved.value, 'BOOL', context), key: operandKey(resolved.value) } : { source: resolved.error, key: null };
+    known = contactOperand(contact.operand, context);
     context.contactOperands.set(contact.operand, known);
   }
-  let source = UNUSABLE;
   let edge = -1;
   if (typeof known.source === 'string') report(context, contact, known.source);
-  else source = known.source;
   if (known.key !== null && CONTACT_KINDS[contact.variant].edge) {
     edge = context.edges.length;
     context.edges.push({ elementId: contact.id, operand: known.key });
   }
-  return { op: 'contact', id: contact.id, flow, variant: contact.variant, source, edge };
+  putNode(context, flow, NODE_OP.contact, CONTACT_VARIANT_NUMBER[contact.variant], known.index, edge);
 }
 
-function lowerCoil(coil: Coil, flow: number, context: Lowering): PlanNode {
+function lowerCoil(coil: Coil, flow: number, context: Lowering): void {
   let known = context.coilOperands.get(coil.operand);
   if (known === undefined) {
     known = coilOperand(coil.operand, context);
@@ -207,7 +253,7 @@ function lowerCoil(coil: Coil, flow: number, context: Lowering): PlanNode {
     edge = context.edges.length;
     context.edges.push({ elementId: coil.id, operand: known.key });
   }
-  return { op: 'coil', id: coil.id, flow, variant: coil.variant, bit, edge };
+  putNode(context, flow, NODE_OP.coil, COIL_VARIANT_NUMBER[coil.variant], bit, edge);
 }
 
 /** The bit a coil's operand text writes, or why it cannot; a bit out of range still has its edge key. */
@@ -223,7 +269,7 @@ function coilOperand(text: string, context: Lowering): CoilOperand {
   return { bit: range ?? bitIndex(operand, context.layout), key: operandKey(operand) };
 }
 
-function lowerBlock(block: Block, flow: number, context: Lowering): PlanNode {
+function lowerBlock(block: Block, flow: number, context: Lowering): PlanBlock {
   const spec = BLOCK_SPECS[block.type];
   const key = symbolKey(block.instance);
   const instance = context.instanceIndex.get(key) ?? -1;

@@ -6,7 +6,8 @@
 import type { AddressSpace } from '../ladder/addresses';
 import type { ParamType } from '../ladder/blocks';
 import type { SymbolTable } from '../ladder/operands';
-import type { BlockType, CoilVariant, ContactVariant, Program } from '../ladder/schema';
+import type { BlockType, CoilVariant, ContactVariant, Program, Rung } from '../ladder/schema';
+import { COIL_VARIANTS, CONTACT_VARIANTS } from './elements';
 
 /** Where each area starts in the one bit image: inputs, then outputs, then memory. */
 export interface BitLayout {
@@ -93,6 +94,33 @@ export interface PlanRung {
   readonly network: PlanSeries;
 }
 
+/** A node's kind in `PlanNodes`, by number. */
+export const NODE_OP = { series: 0, parallel: 1, contact: 2, coil: 3, block: 4 } as const satisfies Record<PlanOp, number>;
+
+/** Numbers per node in `PlanNodes.data`. */
+export const NODE_STRIDE = 4;
+
+/**
+ * Every rung network as one table of numbers, the nodes in document order (depth first, a node
+ * before its children), node `i` at `data[NODE_STRIDE * i]`; `i` is its power-flow index. Per node:
+ *
+ *   +0  its kind (`NODE_OP`)
+ *   +1  series and parallel: how many children follow (each with its own children);
+ *       contact and coil: the variant's index in `CONTACT_VARIANTS` / `COIL_VARIANTS`;
+ *       block: its index in `Plan.blocks`
+ *   +2  contact: the index of what it examines in `Plan.sources`; coil: the bit it writes
+ *   +3  contact and coil: its edge memory, -1 without
+ *
+ * Why: lowering a long program made an object per node, and allocating them (and the garbage
+ * collector copying them while they were young) was the costliest part of compiling; a table of
+ * numbers is one allocation. `Plan.rungs` gives the same program as objects, built on first use.
+ */
+export interface PlanNodes {
+  readonly data: Int32Array;
+  /** Node index of each rung's root series, in rung order. */
+  readonly roots: Int32Array;
+}
+
 /** A block instance: one piece of memory, possibly called from several rungs. */
 export interface PlanInstance {
   /** The name as first written, e.g. `T1`. */
@@ -114,7 +142,14 @@ export interface Plan {
   readonly space: AddressSpace;
   readonly layout: BitLayout;
   readonly symbols: SymbolTable;
+  /** The rungs as objects (built from `nodes` on first use: the kernel reads `nodes`). */
   readonly rungs: readonly PlanRung[];
+  /** The rungs as one table of numbers (see `PlanNodes`). */
+  readonly nodes: PlanNodes;
+  /** What the contacts examine, each distinct source once (`PlanNodes`, +2). */
+  readonly sources: readonly PlanSource[];
+  /** The block calls, in document order (`PlanNodes`, +1). */
+  readonly blocks: readonly PlanBlock[];
   readonly instances: readonly PlanInstance[];
   readonly edges: readonly PlanEdge[];
   /** Node id by power-flow index. */
@@ -135,4 +170,44 @@ export function bitLayout(space: AddressSpace): BitLayout {
     memory: space.inputs + space.outputs,
     size: space.inputs + space.outputs + space.memory,
   };
+}
+
+/** The rungs as objects, from the node table (`Plan.rungs`); `rungs` are the program's. */
+export function rungsFromNodes(
+  rungs: readonly Rung[],
+  nodes: PlanNodes,
+  flowIds: readonly string[],
+  sources: readonly PlanSource[],
+  blocks: readonly PlanBlock[],
+): PlanRung[] {
+  const { data } = nodes;
+  let next = 0;
+  const children = (count: number): PlanNode[] => {
+    const list: PlanNode[] = [];
+    for (let k = 0; k < count; k += 1) list.push(node());
+    return list;
+  };
+  const node = (): PlanNode => {
+    const flow = next;
+    next += 1;
+    const base = NODE_STRIDE * flow;
+    const a = data[base + 1]!;
+    const id = flowIds[flow]!;
+    switch (data[base]) {
+      case NODE_OP.series:
+        return { op: 'series', id, flow, items: children(a) };
+      case NODE_OP.parallel:
+        return { op: 'parallel', id, flow, branches: children(a) };
+      case NODE_OP.contact:
+        return { op: 'contact', id, flow, variant: CONTACT_VARIANTS[a]!, source: sources[data[base + 2]!]!, edge: data[base + 3]! };
+      case NODE_OP.coil:
+        return { op: 'coil', id, flow, variant: COIL_VARIANTS[a]!, bit: data[base + 2]!, edge: data[base + 3]! };
+      default:
+        return blocks[a]!;
+    }
+  };
+  return rungs.map((rung, r): PlanRung => {
+    next = nodes.roots[r]!;
+    return { id: rung.id, network: node() as PlanSeries };
+  });
 }
