@@ -254,15 +254,12 @@ function emitNode(at: number, depth: number, e: Emitting): number {
  * one), as `[first, end)` rung ranges; a rung is never split.
  */
 function chunkRungs(plan: Plan): Array<[number, number]> {
-  const { data, roots } = plan.nodes;
-  const nodeCount = data.length / NODE_STRIDE;
+  const { elements } = plan.nodes;
   const chunks: Array<[number, number]> = [];
   let first = 0;
   let size = 0;
-  for (let r = 0; r < roots.length; r += 1) {
-    const end = r + 1 < roots.length ? roots[r + 1]! : nodeCount;
-    let n = 1;
-    for (let at = roots[r]!; at < end; at += 1) if (data[NODE_STRIDE * at]! >= NODE_OP.contact) n += 1;
+  for (let r = 0; r < elements.length; r += 1) {
+    const n = elements[r]! + 1;
     if (r > first && size + n > CHUNK_ELEMENTS) {
       chunks.push([first, r]);
       first = r;
@@ -270,7 +267,7 @@ function chunkRungs(plan: Plan): Array<[number, number]> {
     }
     size += n;
   }
-  if (roots.length > first) chunks.push([first, roots.length]);
+  if (elements.length > first) chunks.push([first, elements.length]);
   return chunks;
 }
 

@@ -95,15 +95,18 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
     context.instances.push({ name: symbols.spellings.get(key) ?? key, key, type });
   }
   const rootFlows = new Int32Array(program.rungs.length);
+  const rungElements = new Int32Array(program.rungs.length);
   for (let r = 0; r < program.rungs.length; r += 1) {
     const rung = program.rungs[r]!;
+    const before = context.elementCount;
     context.rungId = rung.id;
     rootFlows[r] = context.flowIds.length;
     lowerNode(rung.network, context);
+    rungElements[r] = context.elementCount - before;
   }
   if (context.diagnostics.length > 0) return { ok: false, diagnostics: context.diagnostics };
   const { flowIds, sources, blocks } = context;
-  const nodes: PlanNodes = { data: context.data.subarray(0, NODE_STRIDE * flowIds.length), roots: rootFlows };
+  const nodes: PlanNodes = { data: context.data.subarray(0, NODE_STRIDE * flowIds.length), roots: rootFlows, elements: rungElements };
   // Only a live view looks nodes up by id, and only the tests and the reference interpreter walk
   // the rungs as objects: each is built on its first use, not on every compile.
   let flowIndex: Map<string, number> | null = null;

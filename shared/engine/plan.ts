@@ -119,6 +119,8 @@ export interface PlanNodes {
   readonly data: Int32Array;
   /** Node index of each rung's root series, in rung order. */
   readonly roots: Int32Array;
+  /** Elements (contacts, coils, blocks) in each rung, in rung order. */
+  readonly elements: Int32Array;
 }
 
 /** A block instance: one piece of memory, possibly called from several rungs. */

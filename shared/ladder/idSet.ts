@@ -17,10 +17,20 @@ function isIdChar(c: number): boolean {
 export class IdSet {
   private ids: string[] = [];
   /** Index into `ids` + 1 per slot, 0 for an empty slot; its length is a power of two, at least twice the ids. */
-  private slots = new Int32Array(1024);
+  private slots: Int32Array;
 
-  /** `maxLength`: the longest id allowed. */
-  constructor(private readonly maxLength: number) {}
+  /**
+   * `maxLength`: the longest id allowed; `expected`: about how many ids will come (the table is
+   * sized for them at once: growing it rehashes every id so far).
+   */
+  constructor(
+    private readonly maxLength: number,
+    expected = 256,
+  ) {
+    let size = 1024;
+    while (size < 2 * expected && size < 1 << 20) size *= 2;
+    this.slots = new Int32Array(size);
+  }
 
   /**
    * Add `value` when it is a well-formed id not yet in the set; false (and nothing added) when it

@@ -137,7 +137,8 @@ export function isParsedProgram(value: unknown): value is Program {
   if (!Array.isArray(rungs) || rungs.length > L.rungs) return false;
   // One walk checks the schema's fields and the size limits `parseProgram` checks first (depth,
   // nodes per rung and per program, no NUL anywhere); the depth limit also bounds its recursion.
-  const walk: Walk = { ids: new IdSet(L.id), rungNodes: 0, programNodes: 0 };
+  // Sized for 20 ids a rung (a generated 1,000-rung program has 14-19), capped by the node limit; it grows past that.
+  const walk: Walk = { ids: new IdSet(L.id, Math.min(20 * rungs.length, BOUNDS.nodesPerProgram + rungs.length)), rungNodes: 0, programNodes: 0 };
   const { ids } = walk;
   for (let r = 0; r < rungs.length; r += 1) {
     const rung: unknown = rungs[r];
