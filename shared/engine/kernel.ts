@@ -45,6 +45,8 @@ interface Emitting {
   readonly plan: Plan;
   /** The plan's node table (`PlanNodes.data`). */
   readonly nodes: Int32Array;
+  /** The instructions of each contact without an edge memory met so far, by `contactKey` (shared by the module's functions). */
+  readonly contacts: Array<Uint8Array | undefined>;
   readonly layout: StateLayout;
   readonly recordFlow: boolean;
   readonly forces: boolean;
@@ -151,10 +153,32 @@ function emitParallel(at: number, count: number, depth: number, e: Emitting): nu
   return next;
 }
 
+/**
+ * A contact without an edge memory is the same instructions wherever it stands (its source and
+ * its variant's), and a long program repeats a few hundred of them thousands of times: each is
+ * emitted once and copied after that (compiling 1,000 rungs in a fresh process, the emitters'
+ * calls per contact cost more than the rest of the kernel).
+ */
+const contactKey = (variant: number, source: number): number => source * CONTACTS.length + variant;
+
 function emitContact(variant: number, source: number, edge: number, e: Emitting): void {
   const kind = CONTACTS[variant]!;
+  const { code } = e;
+  if (kind.edge) {
+    pushBool(e, e.plan.sources[source]!);
+    kind.emit({ code, edge: bitAt(edge, e.layout.edges), temp: code.i32Temp(EDGE_VALUE) });
+    return;
+  }
+  const key = contactKey(variant, source);
+  const known = e.contacts[key];
+  if (known !== undefined) {
+    code.out.appendCopy(known);
+    return;
+  }
+  const start = code.out.length;
   pushBool(e, e.plan.sources[source]!);
-  kind.emit({ code: e.code, edge: kind.edge ? bitAt(edge, e.layout.edges) : -1, temp: e.code.i32Temp(EDGE_VALUE) });
+  kind.emit({ code, edge: -1, temp: code.i32Temp(EDGE_VALUE) });
+  e.contacts[key] = code.out.since(start);
 }
 
 function emitCoil(variant: number, bit: number, edgeIndex: number, e: Emitting): void {
@@ -342,7 +366,8 @@ export function kernelModule(plan: Plan, layout: StateLayout, options: KernelOpt
       e.code.op(OP.drop);
     }
   };
-  const emitting = (): Emitting => ({ code: new Code(), plan, nodes: plan.nodes.data, layout, recordFlow: options.recordFlow, forces: options.forces });
+  const contacts = new Array<Uint8Array | undefined>(CONTACTS.length * plan.sources.length);
+  const emitting = (): Emitting => ({ code: new Code(), plan, nodes: plan.nodes.data, contacts, layout, recordFlow: options.recordFlow, forces: options.forces });
   const chunks = chunkRungs(plan);
   const scan = emitting();
   emitInputImage(scan);

@@ -125,6 +125,18 @@ export class ByteWriter {
     this.size += other.size;
   }
 
+  /** Append `bytes` (a copy of earlier output, see `since`). */
+  appendCopy(bytes: Uint8Array): void {
+    this.room(bytes.length);
+    this.bytes.set(bytes, this.size);
+    this.size += bytes.length;
+  }
+
+  /** A copy of the bytes written from offset `start` on. */
+  since(start: number): Uint8Array {
+    return this.bytes.slice(start, this.size);
+  }
+
   /** A copy of the bytes written so far. */
   toBytes(): Uint8Array {
     return this.bytes.slice(0, this.size);
