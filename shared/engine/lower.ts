@@ -63,8 +63,8 @@ interface Lowering {
   readonly blocks: PlanBlock[];
 }
 
-/** Nodes the node table first has room for, per rung (it grows when a program has more). */
-const NODES_PER_RUNG_GUESS = 16;
+/** Nodes the node table first has room for, per rung (generated 1,000-rung programs have 13-18; it grows when a program has more). */
+const NODES_PER_RUNG_GUESS = 20;
 
 /** Lower a program that validation passed. Never throws for anything in the document. */
 export function lowerProgram(program: Program, space: AddressSpace): LowerResult {
@@ -106,7 +106,8 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
   }
   if (context.diagnostics.length > 0) return { ok: false, diagnostics: context.diagnostics };
   const { flowIds, sources, blocks } = context;
-  const nodes: PlanNodes = { data: context.data.subarray(0, NODE_STRIDE * flowIds.length), roots: rootFlows, elements: rungElements };
+  // A copy of the part written: the plan keeps no spare room.
+  const nodes: PlanNodes = { data: context.data.slice(0, NODE_STRIDE * flowIds.length), roots: rootFlows, elements: rungElements };
   // Only a live view looks nodes up by id, and only the tests and the reference interpreter walk
   // the rungs as objects: each is built on its first use, not on every compile.
   let flowIndex: Map<string, number> | null = null;
