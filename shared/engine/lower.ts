@@ -9,7 +9,7 @@
  */
 import { addressInRange, formatAddress, type AddressSpace } from '../ladder/addresses';
 import { BLOCK_SPECS, blockOutput, operandInputs, type BlockParam, type ParamType } from '../ladder/blocks';
-import { buildSymbolTable, operandKey, resolveOperand, symbolKey, type Operand, type SymbolTable } from '../ladder/operands';
+import { buildSymbolTable, operandKey, operandResolutions, resolveOperand, symbolKey, type Operand, type SymbolTable } from '../ladder/operands';
 import type { Result } from '../ladder/result';
 import type { Block, Coil, Contact, NetworkNode, Program } from '../ladder/schema';
 import { engineDiagnostic, type Diagnostic } from './diagnostic';
@@ -46,7 +46,7 @@ interface Lowering {
   readonly edges: PlanEdge[];
   readonly flowIds: string[];
   readonly diagnostics: Diagnostic[];
-  /** Operand text → its resolution, once per distinct text. */
+  /** Operand text → its resolution, once per distinct text (shared with validation, see `operandResolutions`). */
   readonly resolved: Map<string, Result<Operand>>;
   /** Operand text → what a contact with it reads (or why it cannot), once per distinct text. */
   readonly contactOperands: Map<string, ContactOperand>;
@@ -79,7 +79,7 @@ export function lowerProgram(program: Program, space: AddressSpace): LowerResult
     edges: [],
     flowIds: [],
     diagnostics: [],
-    resolved: new Map(),
+    resolved: operandResolutions(symbols),
     contactOperands: new Map(),
     coilOperands: new Map(),
     path: [],

@@ -18,6 +18,7 @@ import { createDiagnostic, type Diagnostic, type DiagnosticCode } from './diagno
 import {
   buildSymbolTable,
   IDENTIFIER,
+  operandResolutions,
   resolveOperand,
   symbolKey,
   type Operand,
@@ -46,7 +47,7 @@ interface Context {
   readonly symbols: SymbolTable;
   readonly space: AddressSpace;
   readonly found: Diagnostic[];
-  /** Each distinct operand text resolved once. */
+  /** Each distinct operand text resolved once (shared with lowering, see `operandResolutions`). */
   readonly resolved: Map<string, Result<Operand>>;
   /** Contact operand texts already found to be usable (a bit in range). */
   readonly goodContacts: Set<string>;
@@ -254,11 +255,12 @@ export function validateProgram(program: Program, space: AddressSpace = DEFAULT_
 }
 
 function findProblems(program: Program, space: AddressSpace): Diagnostic[] {
+  const symbols = buildSymbolTable(program);
   const ctx: Context = {
-    symbols: buildSymbolTable(program),
+    symbols,
     space,
     found: validateTags(program.tags, space),
-    resolved: new Map(),
+    resolved: operandResolutions(symbols),
     goodContacts: new Set(),
     coilTargets: new Map(),
     place: { rungId: '', path: [], elementId: '' },
