@@ -7,6 +7,24 @@
 /** `i32.const` (WebAssembly Core Specification 2.0, section 5.4.7); see `opcodes.ts`. */
 const OP_I32_CONST = 0x41;
 
+/** Whether `value` is a whole number 0..2^32-1, what an unsigned LEB128 here may hold. */
+const isU32 = (value: number): boolean => value >= 0 && value <= 0xffffffff && value === Math.floor(value);
+
+/**
+ * Write the u32 `value` at `at` as unsigned LEB128; the offset after it. One loop for every
+ * length: with a branch per length, the first address past 2^14 (block and flow records lie
+ * there) took a path the optimised code had never seen, and V8 threw that code away.
+ */
+function leb(bytes: Uint8Array, at: number, value: number): number {
+  let v = value;
+  while (v >= 0x80) {
+    bytes[at++] = (v & 0x7f) | 0x80;
+    v >>>= 7;
+  }
+  bytes[at++] = v;
+  return at;
+}
+
 export class ByteWriter {
   private bytes = new Uint8Array(1024);
   private size = 0;
@@ -39,52 +57,27 @@ export class ByteWriter {
 
   /**
    * A memory access at a constant address, the engine's commonest instruction sequence:
-   * `i32.const 0`, then `opcode align offset` with the offset as unsigned LEB128. One bounds check
-   * and no further call for the usual offset below 2^14 (compiling a long program writes tens of
-   * thousands of these, much of it before the JavaScript engine has optimised this code).
+   * `i32.const 0`, then `opcode align offset` with the offset as unsigned LEB128, in one call
+   * (compiling a long program writes tens of thousands of these, much of it before the
+   * JavaScript engine has optimised this code).
    */
   access(opcode: number, align: number, offset: number): void {
-    if (!(offset >= 0 && offset < 0x4000 && offset === Math.floor(offset))) {
-      this.pair(OP_I32_CONST, 0);
-      this.pair(opcode, align);
-      this.u32(offset);
-      return;
-    }
-    this.room(6);
+    if (!isU32(offset)) throw new RangeError(`wasm: bad u32 ${String(offset)}`);
+    this.room(9);
     const bytes = this.bytes;
-    let at = this.size;
-    bytes[at++] = OP_I32_CONST;
-    bytes[at++] = 0;
-    bytes[at++] = opcode;
-    bytes[at++] = align;
-    if (offset < 0x80) bytes[at++] = offset;
-    else {
-      bytes[at++] = (offset & 0x7f) | 0x80;
-      bytes[at++] = offset >>> 7;
-    }
-    this.size = at;
+    const at = this.size;
+    bytes[at] = OP_I32_CONST;
+    bytes[at + 1] = 0;
+    bytes[at + 2] = opcode;
+    bytes[at + 3] = align;
+    this.size = leb(bytes, at + 4, offset);
   }
 
   /** Unsigned LEB128 of a whole number 0..2^32-1. */
   u32(value: number): void {
+    if (!isU32(value)) throw new RangeError(`wasm: bad u32 ${String(value)}`);
     this.room(5);
-    // Most values written are addresses below 2^14: one or two bytes, no loop.
-    if (value >= 0 && value < 0x4000 && value === Math.floor(value)) {
-      if (value < 0x80) this.bytes[this.size++] = value;
-      else {
-        this.bytes[this.size++] = (value & 0x7f) | 0x80;
-        this.bytes[this.size++] = value >>> 7;
-      }
-      return;
-    }
-    if (!Number.isInteger(value) || value < 0 || value > 0xffffffff) throw new RangeError(`wasm: bad u32 ${String(value)}`);
-    let v = value;
-    do {
-      let b = v % 128;
-      v = Math.floor(v / 128);
-      if (v !== 0) b |= 0x80;
-      this.bytes[this.size++] = b;
-    } while (v !== 0);
+    this.size = leb(this.bytes, this.size, value);
   }
 
   /** Signed LEB128 of a 32-bit integer. */
